@@ -1,0 +1,69 @@
+package main
+
+import (
+	"fmt"
+	"io"
+	"math"
+	"text/tabwriter"
+
+	"n2pulse/validation"
+)
+
+func init() {
+	register(command{
+		name:    "check",
+		summary: "run the validation registry: the model against published and analytic values",
+		run:     runCheck,
+	})
+}
+
+func runCheck(args []string, stdout, stderr io.Writer) error {
+	fs := newFlags("check", "[--strict]", stderr)
+	strict := fs.Bool("strict", false, "exit 1 also on a discrepancy with a published experiment")
+	if help, err := parseFlags(fs, args); help || err != nil {
+		return err
+	}
+	if fs.NArg() > 0 {
+		return usagef("check: takes no arguments, got %q", fs.Args())
+	}
+	checks := validation.RunAll()
+	failed, discrepant := printChecks(stdout, checks)
+	fmt.Fprintf(stdout, "\n%d checks: %d passed, %d failed, %d discrepancies with experiments\n",
+		len(checks), len(checks)-failed-discrepant, failed, discrepant)
+	if failed > 0 || (*strict && discrepant > 0) {
+		return errSilent
+	}
+	return nil
+}
+
+// printChecks writes the check table and counts failures and experiment discrepancies.
+func printChecks(w io.Writer, checks []validation.Check) (failed, discrepant int) {
+	tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
+	fmt.Fprintln(tw, "id\tcomputed\treference\tdeviation\ttolerance\tresult\tkind\tsource")
+	for _, c := range checks {
+		result := "pass"
+		switch {
+		case c.Pass():
+		case c.Kind == validation.Experiment:
+			result, discrepant = "DISCREPANCY", discrepant+1
+		default:
+			result, failed = "FAIL", failed+1
+		}
+		comp := fmt.Sprintf("%.5g %s", c.Computed, c.Unit)
+		if c.Err != nil {
+			comp = "error: " + c.Err.Error()
+		}
+		dev := "-"
+		if d := c.Deviation(); !math.IsNaN(d) && c.Mode != validation.True {
+			if c.Mode == validation.Absolute {
+				dev = fmt.Sprintf("%+.3g", d)
+			} else {
+				dev = fmt.Sprintf("%+.2f%%", 100*d)
+			}
+		}
+		fmt.Fprintf(tw, "%s\t%s\t%.5g\t%s\t%s\t%s\t%s\t%s\n", c.ID, comp, c.Reference, dev,
+			c.ToleranceText(), result, c.Kind, c.Source)
+	}
+	tw.Flush()
+	return failed, discrepant
+}
