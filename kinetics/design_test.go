@@ -1,0 +1,84 @@
+package kinetics
+
+import (
+	"errors"
+	"math"
+	"strings"
+	"testing"
+)
+
+func TestExampleDesign(t *testing.T) {
+	d := ExampleDesign()
+	if d.Channel.Length != 0.2 || d.Circuit.ChargeVoltage != 14e3 || d.Circuit.Topology != Blumlein {
+		t.Fatalf("example decoded wrong: %+v", d.Circuit)
+	}
+	if math.Abs(d.Gas.Pressure-101325) > 1e-9 {
+		t.Errorf("pressure %g Pa, want 101325", d.Gas.Pressure)
+	}
+	if !math.IsInf(d.Optics.ExcitationVelocity, 1) {
+		t.Errorf("excitation velocity %g, want +Inf", d.Optics.ExcitationVelocity)
+	}
+}
+
+func TestDesignErrors(t *testing.T) {
+	base := `[channel]
+length = "20 cm"
+gap = "2 mm"
+width = "3 mm"
+[gas]
+pressure = "1 atm"
+[circuit]
+topology = "blumlein"
+charge_voltage = "10 kV"
+switch_capacitance = "2 nF"
+channel_capacitance = "2 nF"
+switch_inductance = "10 nH"
+channel_inductance = "2 nH"
+`
+	if _, err := ParseDesign([]byte(base), "base.toml"); err != nil {
+		t.Fatalf("valid design rejected: %v", err)
+	}
+	cases := []struct{ extra, key, want string }{
+		{"[gas]\npresure = 3\n", "gas.presure", "did you mean gas.pressure"},
+		{"[optics]\nfront_reflectivity = 1.5\n", "optics.front_reflectivity", "out of range"},
+		{"[switch]\nmodel = \"magic\"\n", "switch.model", "allowed: ideal"},
+		{"[numerics]\nend_time = \"12 kV\"\n", "numerics.end_time", "want s"},
+	}
+	for _, c := range cases {
+		src := base + c.extra
+		if strings.HasPrefix(c.extra, "[gas]") {
+			src = strings.Replace(base, "[gas]\n", "[gas]\n"+strings.TrimPrefix(c.extra, "[gas]\n"), 1)
+		}
+		_, err := ParseDesign([]byte(src), "x.toml")
+		var ke *KeyError
+		if !errors.As(err, &ke) || ke.Key != c.key || !strings.Contains(err.Error(), c.want) {
+			t.Errorf("%q: got %v, want KeyError on %s containing %q", c.extra, err, c.key, c.want)
+		}
+	}
+	missing := strings.Replace(base, "gap = \"2 mm\"\n", "", 1)
+	if _, err := ParseDesign([]byte(missing), "m.toml"); err == nil || !strings.Contains(err.Error(), "channel.gap") {
+		t.Errorf("missing gap: %v", err)
+	}
+}
+
+func TestSet(t *testing.T) {
+	d := ExampleDesign()
+	if err := d.Set("gas.pressure", "40 Torr"); err != nil {
+		t.Fatal(err)
+	}
+	if math.Abs(d.Gas.Pressure-40*133.322368) > 1e-3 {
+		t.Errorf("pressure %g", d.Gas.Pressure)
+	}
+	if err := d.Set("numerics.cells", "400"); err != nil || d.Numerics.Cells != 400 {
+		t.Errorf("cells: %v %d", err, d.Numerics.Cells)
+	}
+	if err := d.Set("optics.excitation_velocity", "c"); err != nil || d.Optics.ExcitationVelocity != 299792458 {
+		t.Errorf("velocity: %v %g", err, d.Optics.ExcitationVelocity)
+	}
+	if err := d.Set("numerics.cells", "2.5"); err == nil {
+		t.Error("fractional cells accepted")
+	}
+	if err := d.Set("circuit.charge_voltage", "-3 kV"); err == nil || !strings.Contains(err.Error(), "100 to 1e+06 V") {
+		t.Errorf("negative voltage: %v", err)
+	}
+}

@@ -1,0 +1,169 @@
+package kinetics
+
+import (
+	"bytes"
+	"errors"
+	"fmt"
+	"math"
+	"os"
+	"sort"
+	"strconv"
+	"strings"
+
+	"github.com/BurntSushi/toml"
+
+	"n2pulse/data"
+)
+
+// requiredKeys must appear in every design file: the defaults cover only published constants
+// and numerics, never the apparatus.
+var requiredKeys = []string{
+	"channel.length", "channel.gap", "channel.width", "gas.pressure",
+	"circuit.topology", "circuit.charge_voltage", "circuit.switch_capacitance",
+	"circuit.channel_capacitance", "circuit.switch_inductance", "circuit.channel_inductance",
+}
+
+// LoadDesign reads and checks a design file.
+func LoadDesign(path string) (*Design, error) {
+	b, err := os.ReadFile(path)
+	if err != nil {
+		return nil, fmt.Errorf("design: %w", err)
+	}
+	return ParseDesign(b, path)
+}
+
+// ExampleDesign returns the built-in example: a bench-top atmospheric Blumlein laser.
+func ExampleDesign() *Design {
+	d, err := ParseDesign(data.ExampleDesign(), "example.toml")
+	if err != nil {
+		panic("kinetics: built-in example design is invalid: " + err.Error()) // programmer error
+	}
+	return d
+}
+
+// ParseDesign decodes a TOML design, rejecting unknown keys, wrong units and impossible
+// values; name is used in messages. Keys absent from the file take the defaults of Defaults.
+func ParseDesign(b []byte, name string) (*Design, error) {
+	var raw map[string]any
+	if _, err := toml.NewDecoder(bytes.NewReader(b)).Decode(&raw); err != nil {
+		var pe toml.ParseError
+		if errors.As(err, &pe) {
+			return nil, fmt.Errorf("design: %s:%d: %s", name, pe.Position.Line, pe.Message)
+		}
+		return nil, fmt.Errorf("design: %s: %w", name, err)
+	}
+	flat := map[string]any{}
+	flatten("", raw, flat)
+	keys := make([]string, 0, len(flat))
+	for k := range flat {
+		keys = append(keys, k)
+	}
+	sort.Strings(keys)
+	d := Defaults()
+	for _, k := range keys {
+		if err := d.setValue(k, flat[k]); err != nil {
+			return nil, fmt.Errorf("%s: %w", name, err)
+		}
+	}
+	for _, k := range requiredKeys {
+		if _, ok := flat[k]; !ok {
+			return nil, fmt.Errorf("%s: %w", name, &KeyError{Key: k, Problem: "missing: every design must give it"})
+		}
+	}
+	if _, ok := flat["gas.nitrogen"]; !ok {
+		d.Gas.Nitrogen = 1 - d.Gas.Oxygen - d.Gas.Helium
+	}
+	if err := d.Validate(); err != nil {
+		return nil, fmt.Errorf("%s: %w", name, err)
+	}
+	return d, nil
+}
+
+func flatten(prefix string, m map[string]any, out map[string]any) {
+	for k, v := range m {
+		key := k
+		if prefix != "" {
+			key = prefix + "." + k
+		}
+		if sub, ok := v.(map[string]any); ok {
+			flatten(key, sub, out)
+			continue
+		}
+		out[key] = v
+	}
+}
+
+// setValue assigns a decoded TOML value to a key.
+func (d *Design) setValue(key string, v any) error {
+	f, ok := fieldIndex[key]
+	if !ok {
+		return &KeyError{Key: key, Problem: "unknown key" + suggest(key)}
+	}
+	switch x := v.(type) {
+	case string:
+		return d.Set(key, x)
+	case int64:
+		if f.str != nil {
+			return &KeyError{Key: key, Value: strconv.FormatInt(x, 10), Problem: "want text in quotes"}
+		}
+		return f.setNumber(d, float64(x), strconv.FormatInt(x, 10))
+	case float64:
+		if f.str != nil {
+			return &KeyError{Key: key, Value: strconv.FormatFloat(x, 'g', -1, 64), Problem: "want text in quotes"}
+		}
+		return f.setNumber(d, x, strconv.FormatFloat(x, 'g', -1, 64))
+	}
+	return &KeyError{Key: key, Value: fmt.Sprint(v), Problem: "want a number or a quoted value with a unit"}
+}
+
+// Validate checks the relations between keys that no single range can: mole fractions that
+// sum to one, and the parameters each switch model needs.
+func (d *Design) Validate() error {
+	g := d.Gas
+	if s := g.Nitrogen + g.Oxygen + g.Helium; math.Abs(s-1) > 1e-6 {
+		return &KeyError{Key: "gas.nitrogen", Value: fmt.Sprintf("%g", g.Nitrogen),
+			Problem: fmt.Sprintf("mole fractions nitrogen + oxygen + helium sum to %g, must sum to 1", s)}
+	}
+	if g.Nitrogen <= 0 {
+		return &KeyError{Key: "gas.nitrogen", Value: fmt.Sprintf("%g", g.Nitrogen), Problem: "a nitrogen laser needs nitrogen: allowed above 0 to 1"}
+	}
+	for _, k := range []string{"circuit.topology", "switch.model"} {
+		s := *fieldIndex[k].str(d)
+		if err := fieldIndex[k].setString(d, s); err != nil {
+			return err
+		}
+	}
+	if d.Switch.Model != IdealSwitch && d.Switch.OffResistance <= d.Switch.OnResistance {
+		return &KeyError{Key: "switch.off_resistance", Value: fmt.Sprintf("%g Ω", d.Switch.OffResistance),
+			Problem: fmt.Sprintf("must exceed switch.on_resistance (%g Ω)", d.Switch.OnResistance)}
+	}
+	if d.Numerics.Cells < 4 {
+		return &KeyError{Key: "numerics.cells", Value: strconv.Itoa(d.Numerics.Cells), Problem: "allowed 4 to 20000"}
+	}
+	if d.Optics.ExcitationVelocity == 0 {
+		return &KeyError{Key: "optics.excitation_velocity", Value: "0", Problem: `must not be zero: use "infinite" for a simultaneous discharge`}
+	}
+	return nil
+}
+
+// Clone returns an independent copy of the design.
+func (d *Design) Clone() *Design {
+	c := *d
+	return &c
+}
+
+// String lists the design as dotted key = value lines, in SI.
+func (d *Design) String() string {
+	var b strings.Builder
+	for _, f := range fieldList {
+		switch {
+		case f.str != nil:
+			fmt.Fprintf(&b, "%s = %q\n", f.key, *f.str(d))
+		case f.integer:
+			fmt.Fprintf(&b, "%s = %d\n", f.key, d.Numerics.Cells)
+		default:
+			fmt.Fprintf(&b, "%s = %g\n", f.key, *f.num(d))
+		}
+	}
+	return b.String()
+}

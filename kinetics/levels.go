@@ -1,0 +1,51 @@
+package kinetics
+
+import "n2pulse/units"
+
+// Rate constants are given in cm³/s in the comments (the unit of the sources) and stored in
+// SI (m³/s, ×1e-6).
+func defaultLevels() Levels {
+	return Levels{
+		// N2(C,v=0) + N2: 1.0e-11 cm³/s. Kossyi, Kostinsky, Matveyev & Silakov, Plasma Sources
+		// Sci. Technol. 1, 207 (1992), as quoted in public air-plasma mechanism files (seen,
+		// secondary). Published spread 1.0–1.5e-11 (Pancheshnyi et al., Chem. Phys. Lett. 294,
+		// 523 (1998): about 1.3e-11, from memory).
+		UpperQuenchingNitrogen: 1.0e-17,
+		// N2(C,v=0) + O2: 3.0e-10 cm³/s, Kossyi et al. 1992 (seen, secondary); spread 2.7–3.3e-10.
+		UpperQuenchingOxygen: 3.0e-16,
+		// N2(C) + He: no value found; taken as zero (from memory: helium is a weak quencher).
+		UpperQuenchingHelium: 0,
+		// Electron-induced loss of C(0): no published rate coefficient found; a free parameter,
+		// zero by default.
+		UpperElectronMixing: 0,
+		// B(v) radiative rate 1.34e5 s⁻¹ (τ = 7.5 µs), band average of Capitelli et al., Plasma
+		// Kinetics in Atmospheric Gases (Springer 2000), as quoted in mechanism files (seen,
+		// secondary); τ(B, v=0) is 8–13 µs (Eyler & Pipkin 1983, from memory).
+		LowerLifetime: 7.5e-6,
+		// Removal of B(v=0) by N2: 2e-12 cm³/s, the N2(B) + N2 → N2 + N2 channel of Kossyi et
+		// al. 1992 (seen, secondary). The 3e-11 cm³/s B → A channel of the same set describes
+		// cascades inside the B/W/A manifold that feed back into B and is not used as the loss
+		// of B(v=0): used so, it drains the lower level faster than C is quenched and removes
+		// the self-termination that every practical nitrogen laser shows.
+		LowerRemovalNitrogen: 2e-18,
+		// N2(B) + O2 → N2 + O + O: 3e-10 cm³/s, Kossyi et al. 1992 (seen, secondary).
+		LowerRemovalOxygen: 3e-16,
+	}
+}
+
+// UpperDecayRate returns the total loss rate of C(0) [s⁻¹] without electrons and stimulated
+// emission: the Stern–Volmer form 1/τ_C + Σ k_q,i·N_i, with radiative lifetime tauC [s] and the
+// gas g.
+func (l Levels) UpperDecayRate(tauC float64, g Gas) float64 {
+	n := gasDensity(g)
+	return 1/tauC + n*(g.Nitrogen*l.UpperQuenchingNitrogen+g.Oxygen*l.UpperQuenchingOxygen+g.Helium*l.UpperQuenchingHelium)
+}
+
+// LowerDecayRate returns the total loss rate of B(0) [s⁻¹]: radiative plus collisional removal.
+func (l Levels) LowerDecayRate(g Gas) float64 {
+	n := gasDensity(g)
+	return 1/l.LowerLifetime + n*(g.Nitrogen*l.LowerRemovalNitrogen+g.Oxygen*l.LowerRemovalOxygen)
+}
+
+// gasDensity is the total number density of the gas [m⁻³].
+func gasDensity(g Gas) float64 { return units.GasDensity(g.Pressure, g.Temperature) }
