@@ -1,0 +1,93 @@
+package kinetics
+
+// Summary holds the figures of merit of one shot, in SI. The JSON names are part of the
+// program's interface (`run --json`, sweep tables): scripts rely on them.
+type Summary struct {
+	EnergyFront           float64  `json:"energy_front_J"`           // pulse energy leaving the output end z = L [J]
+	EnergyRear            float64  `json:"energy_rear_J"`            // pulse energy leaving the rear end z = 0 [J]
+	EnergyTotal           float64  `json:"energy_total_J"`           // both ends [J]
+	PeakPower             float64  `json:"peak_power_W"`             // peak power at the output end [W]
+	FWHM                  float64  `json:"fwhm_s"`                   // full width at half maximum of the output-end pulse [s]
+	Rise                  float64  `json:"rise_s"`                   // 10–90 % rise time of the output-end pulse [s]
+	Delay                 float64  `json:"delay_s"`                  // switch closure to the half-maximum of the rising edge [s]
+	Efficiency            float64  `json:"efficiency"`               // total pulse energy / stored energy
+	StoredEnergy          float64  `json:"stored_energy_J"`          // ½ΣCV₀² [J]
+	DepositedEnergy       float64  `json:"deposited_energy_J"`       // energy delivered to the plasma [J]
+	PeakGain              float64  `json:"peak_gain_per_m"`          // highest small-signal gain σ·(N_C − g·N_B) [m⁻¹]
+	GainLength            float64  `json:"gain_length"`              // highest channel-integrated gain ∫g dz
+	InversionDuration     float64  `json:"inversion_duration_s"`     // FWHM of the channel-mean gain [s]
+	TerminationTime       float64  `json:"termination_time_s"`       // when the mid-channel gain falls below 10 % of its peak after it [s]
+	TerminationCause      string   `json:"termination_cause"`        // "lower-level bottleneck", "pump collapse", "quenching", "extraction by the pulse" or "no gain"
+	PeakReducedField      float64  `json:"peak_reduced_field_Td"`    // highest |E/N| [Td]
+	PeakCurrent           float64  `json:"peak_current_A"`           // highest |channel current| [A]
+	PeakElectronDensity   float64  `json:"peak_electron_density_m3"` // [m⁻³]
+	EnergyBalanceResidual float64  `json:"energy_balance_residual"`  // |stored − (left + dissipated)| / stored
+	PhotonBalanceResidual float64  `json:"photon_balance_residual"`  // |created − (emitted + lost + left)| / created
+	Lases                 bool     `json:"lases"`                    // output above the floor of amplified spontaneous emission
+	Overridden            []string `json:"overridden,omitempty"`     // spectroscopic values taken from the design, not computed
+}
+
+// Result is the outcome of Run: the summary, the waveforms on a common time grid, the gain
+// map and the numbers the model used.
+type Result struct {
+	Summary Summary
+
+	// Waveforms, all of length len(Time). Populations and gain are at the middle of the channel.
+	Time            []float64 // time after switch closure [s]
+	ChannelVoltage  []float64 // [V]
+	Current         []float64 // channel current (plasma plus gap capacitance) [A]
+	ReducedField    []float64 // E/N [V m²]
+	ElectronDensity []float64 // [m⁻³]
+	UpperLevel      []float64 // N_C, C³Πu(v=0) [m⁻³]
+	LowerLevel      []float64 // N_B, B³Πg(v=0) [m⁻³]
+	PowerFront      []float64 // output power at z = L [W]
+	PowerRear       []float64 // output power at z = 0 [W]
+	MeanGain        []float64 // channel-mean small-signal gain [m⁻¹]
+
+	// Gain map: Gain[i][j] is the small-signal gain [m⁻¹] at Z[i] and GainTime[j].
+	Z        []float64
+	GainTime []float64
+	Gain     [][]float64
+
+	Parameters Parameters // the spectroscopic and kinetic numbers used
+	Warnings   []string   // e.g. E/N outside the swarm table
+	Stats      Stats      // solver statistics
+}
+
+// Parameters are the derived numbers a run used.
+type Parameters struct {
+	CrossSection    float64 // effective σ [m²]
+	DegeneracyRatio float64 // effective g_C/g_B
+	EinsteinA00     float64 // [s⁻¹]
+	UpperLifetime   float64 // radiative τ_C [s]
+	UpperShare      float64 // f_C
+	LowerShare      float64 // f_B
+	Wavelength      float64 // vacuum [m]
+	PhotonEnergy    float64 // [J]
+	GasDensity      float64 // N [m⁻³]
+	UpperDecayRate  float64 // 1/τ_C + Σk_q N [s⁻¹]
+	LowerDecayRate  float64 // [s⁻¹]
+	GapCapacitance  float64 // [F]
+	OpticalArea     float64 // [m²]
+	CellLength      float64 // Δz [m]
+	TimeStep        float64 // Δt = Δz/c [s]
+}
+
+// Stats counts the work of one run.
+type Stats struct {
+	CircuitSteps, CircuitRejected, CircuitEvals int
+	OpticalSteps, Cells                         int
+	TableBelow, TableAbove                      int64 // swarm lookups clamped below or above the table
+}
+
+// RunSettings tune one run; nil means defaults.
+type RunSettings struct {
+	// CacheDir holds swarm tables solved for mixtures other than N₂ and air; "" means the
+	// user cache directory.
+	CacheDir string
+	// GainMapColumns is the number of time columns kept in the gain map (default 300).
+	GainMapColumns int
+	// Light drops the waveforms and gain map from the Result and keeps only the Summary,
+	// for sweeps.
+	Light bool
+}
