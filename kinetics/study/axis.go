@@ -1,0 +1,126 @@
+package study
+
+import (
+	"fmt"
+	"math"
+	"strconv"
+	"strings"
+
+	"n2pulse/kinetics"
+)
+
+// Axis is one varied design key: N values from From to To, evenly spaced or, with Log,
+// evenly spaced in the logarithm.
+type Axis struct {
+	Key  string  `json:"key"`  // dotted design key, "gas.pressure"
+	Unit string  `json:"unit"` // SI unit of the key ("" for a pure number)
+	From float64 `json:"from"` // first value [SI]
+	To   float64 `json:"to"`   // last value [SI]
+	N    int     `json:"n"`    // number of values, at least 1
+	Log  bool    `json:"log"`  // logarithmic spacing
+}
+
+// maxAxisPoints bounds one axis; more points than this are a typing mistake.
+const maxAxisPoints = 100000
+
+// ParseAxis reads an axis written KEY=FROM:TO:N[:log], for example
+// "gas.pressure=20Torr:760Torr:20:log". FROM and TO take any unit of the key's dimension (a bare
+// number is SI); both ends are checked against the key's allowed range on a copy of base.
+func ParseAxis(text string, base *kinetics.Design) (Axis, error) {
+	key, rng, ok := strings.Cut(text, "=")
+	key = strings.TrimSpace(key)
+	if !ok || key == "" {
+		return Axis{}, fmt.Errorf("study: --vary %q: want KEY=FROM:TO:N[:log]", text)
+	}
+	parts := strings.Split(rng, ":")
+	if len(parts) < 3 || len(parts) > 4 {
+		return Axis{}, fmt.Errorf("study: --vary %q: want KEY=FROM:TO:N[:log], got %d fields after '='", text, len(parts))
+	}
+	unit, known := kinetics.KeyUnit(key)
+	if !known {
+		// Set gives the error with a suggestion.
+		return Axis{}, fmt.Errorf("study: --vary %q: %w", text, base.Clone().Set(key, parts[0]))
+	}
+	if _, err := base.Get(key); err != nil {
+		return Axis{}, fmt.Errorf("study: --vary %q: %w", text, err)
+	}
+	a := Axis{Key: key, Unit: unit}
+	var err error
+	if a.From, err = valueOf(base, key, parts[0]); err != nil {
+		return Axis{}, fmt.Errorf("study: --vary %q: FROM: %w", text, err)
+	}
+	if a.To, err = valueOf(base, key, parts[1]); err != nil {
+		return Axis{}, fmt.Errorf("study: --vary %q: TO: %w", text, err)
+	}
+	n, err := strconv.Atoi(strings.TrimSpace(parts[2]))
+	if err != nil || n < 1 || n > maxAxisPoints {
+		return Axis{}, fmt.Errorf("study: --vary %q: N = %q: want a whole number from 1 to %d", text, parts[2], maxAxisPoints)
+	}
+	a.N = n
+	if len(parts) == 4 {
+		switch strings.ToLower(strings.TrimSpace(parts[3])) {
+		case "log":
+			a.Log = true
+		case "lin", "linear", "":
+		default:
+			return Axis{}, fmt.Errorf("study: --vary %q: spacing %q: allowed log or lin", text, parts[3])
+		}
+	}
+	if err := a.Check(); err != nil {
+		return Axis{}, fmt.Errorf("study: --vary %q: %w", text, err)
+	}
+	return a, nil
+}
+
+// valueOf converts text with a unit to SI through the design's own parser and range check.
+func valueOf(base *kinetics.Design, key, text string) (float64, error) {
+	d := base.Clone()
+	if err := d.Set(key, strings.TrimSpace(text)); err != nil {
+		return 0, err
+	}
+	return d.Get(key)
+}
+
+// Check reports an axis that cannot make a grid.
+func (a Axis) Check() error {
+	if a.N < 1 || a.N > maxAxisPoints {
+		return fmt.Errorf("%s: %d points: allowed 1 to %d", a.Key, a.N, maxAxisPoints)
+	}
+	if math.IsNaN(a.From) || math.IsNaN(a.To) || math.IsInf(a.From, 0) || math.IsInf(a.To, 0) {
+		return fmt.Errorf("%s: ends %g and %g must be finite", a.Key, a.From, a.To)
+	}
+	if a.Log && (a.From <= 0 || a.To <= 0) {
+		return fmt.Errorf("%s: log spacing needs positive ends, got %g and %g", a.Key, a.From, a.To)
+	}
+	return nil
+}
+
+// Values returns the N grid values in SI; the ends are exactly From and To.
+func (a Axis) Values() []float64 {
+	v := make([]float64, a.N)
+	if a.N == 1 {
+		v[0] = a.From
+		return v
+	}
+	for i := range v {
+		f := float64(i) / float64(a.N-1)
+		if a.Log {
+			v[i] = math.Exp(math.Log(a.From) + f*(math.Log(a.To)-math.Log(a.From)))
+		} else {
+			v[i] = a.From + f*(a.To-a.From)
+		}
+	}
+	v[a.N-1] = a.To
+	return v
+}
+
+// Header is the column heading of the axis in a results table: "gas.pressure [Pa]".
+func (a Axis) Header() string {
+	if a.Unit == "" {
+		return a.Key
+	}
+	return a.Key + " [" + a.Unit + "]"
+}
+
+// formatNumber writes v as the shortest decimal that reads back to the same float64.
+func formatNumber(v float64) string { return strconv.FormatFloat(v, 'g', -1, 64) }

@@ -1,0 +1,109 @@
+package study
+
+import (
+	"encoding/json"
+	"fmt"
+	"os"
+	"path/filepath"
+	"slices"
+	"strings"
+)
+
+// manifestVersion is the format of sweep.json.
+const manifestVersion = 1
+
+// Manifest is the record of a sweep kept in its directory (sweep.json): enough to recognise
+// the same sweep on resume and in a merge.
+type Manifest struct {
+	Version    int      `json:"version"`
+	DesignName string   `json:"design_name"`
+	DesignHash string   `json:"design_hash"` // DesignHash of the base design
+	Design     string   `json:"design"`      // kinetics.Design.String of the base design
+	Axes       []Axis   `json:"axes"`
+	Points     int      `json:"points"` // of the whole grid
+	Columns    []string `json:"columns"`
+	Shard      Shard    `json:"shard"`
+}
+
+func (s *Sweep) manifest() *Manifest {
+	return &Manifest{
+		Version:    manifestVersion,
+		DesignName: s.Design.Name,
+		DesignHash: DesignHash(s.Design),
+		Design:     s.Design.String(),
+		Axes:       s.Axes,
+		Points:     s.Points(),
+		Columns:    s.Columns(),
+		Shard:      s.Shard.norm(),
+	}
+}
+
+// ReadManifest reads sweep.json from a sweep directory; the error wraps os.ErrNotExist when
+// there is none.
+func ReadManifest(dir string) (*Manifest, error) {
+	path := filepath.Join(dir, ManifestFile)
+	b, err := os.ReadFile(path)
+	if err != nil {
+		return nil, fmt.Errorf("study: %w", err)
+	}
+	var m Manifest
+	if err := json.Unmarshal(b, &m); err != nil {
+		return nil, fmt.Errorf("study: %s: %w", path, err)
+	}
+	if m.Version != manifestVersion {
+		return nil, fmt.Errorf("study: %s: format version %d, this program reads %d", path, m.Version, manifestVersion)
+	}
+	m.Shard = m.Shard.norm()
+	return &m, nil
+}
+
+func (m *Manifest) write(path string) error {
+	b, err := json.MarshalIndent(m, "", "  ")
+	if err != nil {
+		return fmt.Errorf("study: %w", err)
+	}
+	return WriteFileAtomic(path, append(b, '\n'))
+}
+
+// Differs describes how two manifests sweep different things (design, grid or columns), or
+// returns "" when they are the same sweep; the shard is not compared.
+func (m *Manifest) Differs(o *Manifest) string {
+	if m.DesignHash != o.DesignHash {
+		if k := firstDifference(m.Design, o.Design); k != "" {
+			return "design differs at " + k
+		}
+		return "design differs"
+	}
+	if len(m.Axes) != len(o.Axes) {
+		return fmt.Sprintf("%d varied keys against %d", len(m.Axes), len(o.Axes))
+	}
+	for i := range m.Axes {
+		if m.Axes[i] != o.Axes[i] {
+			a, b := m.Axes[i], o.Axes[i]
+			return fmt.Sprintf("axis %d: %s=%g:%g:%d (log %v) against %s=%g:%g:%d (log %v)",
+				i+1, a.Key, a.From, a.To, a.N, a.Log, b.Key, b.From, b.To, b.N, b.Log)
+		}
+	}
+	if !slices.Equal(m.Columns, o.Columns) {
+		return "table columns differ (written by another version of the program)"
+	}
+	return ""
+}
+
+// firstDifference names the first line where two design listings differ.
+func firstDifference(a, b string) string {
+	la, lb := strings.Split(a, "\n"), strings.Split(b, "\n")
+	for i := range max(len(la), len(lb)) {
+		var x, y string
+		if i < len(la) {
+			x = la[i]
+		}
+		if i < len(lb) {
+			y = lb[i]
+		}
+		if x != y {
+			return fmt.Sprintf("%q against %q", x, y)
+		}
+	}
+	return ""
+}

@@ -1,0 +1,106 @@
+package study
+
+import (
+	"context"
+	"fmt"
+	"runtime"
+	"strings"
+	"sync"
+
+	"n2pulse/kinetics"
+)
+
+// Runner computes the figures of merit of one design. The default is the full model
+// (kinetics.Run with light results); tests and studies may pass their own.
+type Runner func(d *kinetics.Design) (kinetics.Summary, error)
+
+// outcome is one finished point.
+type outcome struct {
+	i   int
+	sum kinetics.Summary
+	err error
+}
+
+// evaluate runs the designs of the points idx on a pool of workers and hands each outcome to
+// done, one at a time on the calling goroutine, in completion order. Points are independent and
+// share nothing: no lock is held while a design runs. When ctx is cancelled no new point starts;
+// the points in flight finish and are handed to done before evaluate returns ctx.Err(). An error
+// from done stops the pool the same way and is returned.
+func evaluate(ctx context.Context, idx []int, workers int, design func(i int) (*kinetics.Design, error),
+	run Runner, done func(o outcome) error) error {
+	if workers <= 0 {
+		workers = runtime.NumCPU()
+	}
+	workers = min(workers, max(len(idx), 1))
+	ctx, cancel := context.WithCancel(ctx)
+	defer cancel()
+
+	jobs := make(chan int)
+	results := make(chan outcome)
+	var wg sync.WaitGroup
+	for range workers {
+		wg.Add(1)
+		go func() {
+			defer wg.Done()
+			for i := range jobs {
+				o := outcome{i: i}
+				d, err := design(i)
+				if err == nil {
+					o.sum, o.err = safeRun(run, d)
+				} else {
+					o.err = err
+				}
+				results <- o
+			}
+		}()
+	}
+	go func() {
+		defer close(jobs)
+		for _, i := range idx {
+			select {
+			case jobs <- i:
+			case <-ctx.Done():
+				return
+			}
+		}
+	}()
+	go func() {
+		wg.Wait()
+		close(results)
+	}()
+
+	var firstErr error
+	for o := range results {
+		if firstErr != nil {
+			continue // drain the points in flight
+		}
+		if err := done(o); err != nil {
+			firstErr = err
+			cancel()
+		}
+	}
+	if firstErr != nil {
+		return firstErr
+	}
+	return ctx.Err()
+}
+
+// safeRun turns a panic inside the model into the point's error, so one bad point never
+// sinks a sweep.
+func safeRun(run Runner, d *kinetics.Design) (s kinetics.Summary, err error) {
+	defer func() {
+		if r := recover(); r != nil {
+			err = fmt.Errorf("study: model panicked: %v", r)
+		}
+	}()
+	return run(d)
+}
+
+// statusOf is the status cell of a point: "ok" or "failed: <error>" on one line.
+func statusOf(err error) string {
+	if err == nil {
+		return StatusOK
+	}
+	msg := strings.Join(strings.Fields(err.Error()), " ")
+	return "failed: " + msg
+}
