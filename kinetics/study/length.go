@@ -1,0 +1,263 @@
+package study
+
+import (
+	"context"
+	"errors"
+	"fmt"
+	"math"
+
+	"n2pulse/kinetics"
+	"n2pulse/units"
+)
+
+// LengthScan runs one design over channel lengths, as given and, optionally, with a
+// travelling excitation front.
+type LengthScan struct {
+	Design   *kinetics.Design // base design; not modified
+	From, To float64          // shortest and longest channel [m]
+	Points   int              // number of lengths, at least 3
+	// TravellingWave, when non-zero, adds a second curve with optics.excitation_velocity set to
+	// it [m/s] (units.SpeedOfLight for a front at light speed).
+	TravellingWave float64
+	Runner         Runner // nil means ModelRunner
+	Workers        int    // ≤ 0 means runtime.NumCPU()
+}
+
+// LengthPoint is one channel length of a curve.
+type LengthPoint struct {
+	Length  float64 // [m]
+	Summary kinetics.Summary
+	Err     error // the run failed; Summary is zero
+}
+
+// LengthCurve is a length scan at one excitation velocity, with its useful length.
+type LengthCurve struct {
+	Velocity float64 // excitation velocity [m/s]; +Inf for a simultaneous discharge
+	Points   []LengthPoint
+	Useful   float64 // useful length [m]; NaN when the energy has no plateau in the range
+	Rule     string  // how Useful was found, in words
+	// Transit is the transit-time estimate c·τ_g [m], τ_g the inversion duration at the useful
+	// length (at the longest length when there is no useful length).
+	Transit float64
+}
+
+// LengthResult holds the curve of the design as given and, with a travelling wave, a second.
+type LengthResult struct {
+	Curves []LengthCurve
+}
+
+// Lengths returns the scan's channel lengths, evenly spaced.
+func (s *LengthScan) Lengths() []float64 {
+	return Axis{Key: "channel.length", From: s.From, To: s.To, N: s.Points}.Values()
+}
+
+func (s *LengthScan) check() error {
+	if s.Design == nil {
+		return errors.New("study: length scan has no design")
+	}
+	if s.Points < 3 || s.Points > 10000 {
+		return fmt.Errorf("study: length scan: --points %d: allowed 3 to 10000", s.Points)
+	}
+	if !(s.From > 0) || !(s.To > s.From) {
+		return fmt.Errorf("study: length scan: --from %g m, --to %g m: want 0 < from < to", s.From, s.To)
+	}
+	for _, l := range []float64{s.From, s.To} {
+		if err := s.Design.Clone().Set("channel.length", formatNumber(l)); err != nil {
+			return fmt.Errorf("study: length scan: %w", err)
+		}
+	}
+	if s.TravellingWave != 0 {
+		if err := s.Design.Clone().Set("optics.excitation_velocity", formatNumber(s.TravellingWave)); err != nil {
+			return fmt.Errorf("study: length scan: --travelling-wave: %w", err)
+		}
+	}
+	return nil
+}
+
+// Run computes the curves. A length whose run fails keeps its error in its LengthPoint.
+func (s *LengthScan) Run(ctx context.Context) (*LengthResult, error) {
+	if err := s.check(); err != nil {
+		return nil, err
+	}
+	run := s.Runner
+	if run == nil {
+		run = ModelRunner
+	}
+	lengths := s.Lengths()
+	velocities := []float64{s.Design.Optics.ExcitationVelocity}
+	if s.TravellingWave != 0 {
+		velocities = append(velocities, s.TravellingWave)
+	}
+	res := &LengthResult{Curves: make([]LengthCurve, len(velocities))}
+	idx := make([]int, len(lengths)*len(velocities))
+	for c, v := range velocities {
+		res.Curves[c] = LengthCurve{Velocity: v, Points: make([]LengthPoint, len(lengths))}
+		for k, l := range lengths {
+			idx[c*len(lengths)+k] = c*len(lengths) + k
+			res.Curves[c].Points[k].Length = l
+		}
+	}
+	design := func(i int) (*kinetics.Design, error) {
+		d := s.Design.Clone()
+		d.Channel.Length = lengths[i%len(lengths)]
+		d.Optics.ExcitationVelocity = velocities[i/len(lengths)]
+		return d, d.Validate()
+	}
+	err := evaluate(ctx, idx, s.Workers, design, run, func(o outcome) error {
+		p := &res.Curves[o.i/len(lengths)].Points[o.i%len(lengths)]
+		p.Summary, p.Err = o.sum, o.err
+		return nil
+	})
+	if err != nil {
+		return nil, err
+	}
+	for c := range res.Curves {
+		res.Curves[c].mark()
+	}
+	return res, nil
+}
+
+// mark finds the useful length and the transit estimate of a curve from its output-end energy.
+func (c *LengthCurve) mark() {
+	var L, E, tau []float64
+	for _, p := range c.Points {
+		if p.Err == nil {
+			L, E, tau = append(L, p.Length), append(E, p.Summary.EnergyFront), append(tau, p.Summary.InversionDuration)
+		}
+	}
+	c.Useful, c.Rule = UsefulLength(L, E)
+	c.Transit = math.NaN()
+	if len(L) == 0 {
+		return
+	}
+	at := L[len(L)-1]
+	if !math.IsNaN(c.Useful) {
+		at = c.Useful
+	}
+	c.Transit = units.SpeedOfLight * interpolate(L, tau, at)
+}
+
+// Plateau and fall criteria of UsefulLength.
+const (
+	usefulFraction = 0.9  // the useful length reaches this share of the plateau energy
+	fallFraction   = 0.95 // an energy at the longest length below this share of the maximum has fallen
+	plateauGrowth  = 0.1  // the last quarter of the range adds less than this share: a plateau
+)
+
+// UsefulLength returns the useful channel length of an energy curve E(L) (L increasing): where
+// E falls again after a maximum (the last value below 95 % of the maximum), the length of the
+// maximum (refined by a parabola through its neighbours); otherwise, when E has levelled off
+// (the last quarter of the range adds less than 10 %), the length where E first reaches 90 % of
+// its plateau, interpolated linearly. It returns NaN when E still rises at the longest length,
+// and says which rule applied.
+func UsefulLength(L, E []float64) (float64, string) {
+	n := len(L)
+	if n < 3 {
+		return math.NaN(), "fewer than three computed lengths"
+	}
+	imax := 0
+	for i := range E {
+		if E[i] > E[imax] {
+			imax = i
+		}
+	}
+	top := E[imax]
+	if !(top > 0) {
+		return math.NaN(), "no output energy"
+	}
+	if imax < n-1 && E[n-1] < fallFraction*top {
+		if imax == 0 {
+			return L[0], "energy falls from the shortest length"
+		}
+		return parabolaVertex(L[imax-1:imax+2], E[imax-1:imax+2]), "maximum of the energy (it falls at longer lengths)"
+	}
+	quarter := interpolate(L, E, L[n-1]-0.25*(L[n-1]-L[0]))
+	if E[n-1]-quarter > plateauGrowth*E[n-1] {
+		return math.NaN(), "energy still rising at the longest length: no plateau in the range"
+	}
+	want := usefulFraction * top
+	if E[0] >= want {
+		return L[0], "90 % of the plateau already at the shortest length"
+	}
+	for i := 1; i < n; i++ {
+		if E[i] >= want {
+			f := (want - E[i-1]) / (E[i] - E[i-1])
+			return L[i-1] + f*(L[i]-L[i-1]), "90 % of the plateau energy"
+		}
+	}
+	return L[n-1], "90 % of the plateau energy"
+}
+
+// parabolaVertex returns the abscissa of the vertex of the parabola through three points,
+// kept within their span.
+func parabolaVertex(x, y []float64) float64 {
+	d1 := (y[1] - y[0]) / (x[1] - x[0])
+	d2 := (y[2] - y[1]) / (x[2] - x[1])
+	curv := (d2 - d1) / (x[2] - x[0])
+	if curv >= 0 {
+		return x[1]
+	}
+	v := 0.5*(x[0]+x[1]) - d1/(2*curv)
+	return math.Max(x[0], math.Min(x[2], v))
+}
+
+// interpolate evaluates the piecewise-linear function through (x, y) at t, clamped at the ends.
+func interpolate(x, y []float64, t float64) float64 {
+	if t <= x[0] {
+		return y[0]
+	}
+	for i := 1; i < len(x); i++ {
+		if t <= x[i] {
+			f := (t - x[i-1]) / (x[i] - x[i-1])
+			return y[i-1] + f*(y[i]-y[i-1])
+		}
+	}
+	return y[len(y)-1]
+}
+
+// lengthMetrics are the figures of merit a length table lists per curve.
+var lengthMetrics = []string{"energy_front_J", "energy_total_J", "peak_power_W", "fwhm_s", "inversion_duration_s"}
+
+// Table returns the scan as a table: the length, then for each curve its energies, peak power,
+// FWHM, inversion duration, transit estimate c·τ_g ("transit_length_m") and status; columns of
+// the travelling-wave curve carry the prefix "tw.".
+func (r *LengthResult) Table() *Table {
+	t := &Table{Columns: []string{"channel.length [m]"}}
+	for c := range r.Curves {
+		pre := ""
+		if c > 0 {
+			pre = "tw."
+		}
+		for _, m := range lengthMetrics {
+			t.Columns = append(t.Columns, pre+m)
+		}
+		t.Columns = append(t.Columns, pre+"transit_length_m", pre+StatusColumn)
+	}
+	all := Metrics()
+	pos := make([]int, len(lengthMetrics))
+	for k, m := range lengthMetrics {
+		for j, a := range all {
+			if a == m {
+				pos[k] = j
+			}
+		}
+	}
+	for k := range r.Curves[0].Points {
+		row := []string{formatNumber(r.Curves[0].Points[k].Length)}
+		for _, c := range r.Curves {
+			p := c.Points[k]
+			if p.Err != nil {
+				row = append(row, make([]string, len(lengthMetrics)+1)...)
+			} else {
+				f := summaryFields(p.Summary)
+				for _, j := range pos {
+					row = append(row, f[j])
+				}
+				row = append(row, formatNumber(units.SpeedOfLight*p.Summary.InversionDuration))
+			}
+			row = append(row, statusOf(p.Err))
+		}
+		t.Rows = append(t.Rows, row)
+	}
+	return t
+}
