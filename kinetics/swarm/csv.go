@@ -1,0 +1,132 @@
+package swarm
+
+import (
+	"bufio"
+	"encoding/csv"
+	"errors"
+	"fmt"
+	"io"
+	"math"
+	"strconv"
+	"strings"
+
+	"n2pulse/units"
+)
+
+// Columns are the leading CSV columns of a swarm table, in this order. The CSV is the one place
+// with Td and eV; more columns may follow and are ignored by ReadCSV.
+var Columns = []string{"reduced_field_Td", "mean_energy_eV", "drift_velocity_m_s", "alpha_N_m2",
+	"eta_N_m2", "k_ion_m3_s", "k_att_m3_s", "k_A_m3_s", "k_B_m3_s", "k_C_m3_s"}
+
+// ncols is the number of required columns.
+const ncols = 10
+
+// ReadCSV reads a swarm table: an optional block of '#' comment lines, a header with at least
+// the Columns in order, then one row per reduced field. Errors read "name:line: column: problem".
+func ReadCSV(r io.Reader, name string) (*Table, error) {
+	cr := csv.NewReader(r)
+	cr.FieldsPerRecord = -1
+	cr.TrimLeadingSpace = true
+	cr.Comment = '#'
+	head, err := cr.Read()
+	if err == io.EOF {
+		return nil, fmt.Errorf("swarm: %s:1: header: missing", name)
+	}
+	if err != nil {
+		return nil, fmt.Errorf("swarm: %s: %w", name, err)
+	}
+	hline, _ := cr.FieldPos(0)
+	if len(head) < len(Columns) {
+		return nil, fmt.Errorf("swarm: %s:%d: header: %d columns, need at least %d (%s)", name, hline, len(head), len(Columns), strings.Join(Columns, ", "))
+	}
+	for i, c := range Columns {
+		if strings.TrimSpace(head[i]) != c {
+			return nil, fmt.Errorf("swarm: %s:%d: header: column %d is %q, want %q", name, hline, i+1, head[i], c)
+		}
+	}
+	var rows []Coefficients
+	for {
+		rec, err := cr.Read()
+		if err == io.EOF {
+			break
+		}
+		if err != nil {
+			var pe *csv.ParseError
+			if errors.As(err, &pe) {
+				return nil, fmt.Errorf("swarm: %s:%d: %v", name, pe.Line, pe.Err)
+			}
+			return nil, fmt.Errorf("swarm: %s: %w", name, err)
+		}
+		ln, _ := cr.FieldPos(0)
+		if len(rec) < len(Columns) {
+			return nil, fmt.Errorf("swarm: %s:%d: %s: missing (row has %d columns, need %d)", name, ln, Columns[len(rec)], len(rec), len(Columns))
+		}
+		var v [ncols]float64
+		for i := range Columns {
+			x, err := strconv.ParseFloat(strings.TrimSpace(rec[i]), 64)
+			if err != nil || math.IsNaN(x) || math.IsInf(x, 0) {
+				return nil, fmt.Errorf("swarm: %s:%d: %s: %q is not a finite number", name, ln, Columns[i], rec[i])
+			}
+			if x < 0 {
+				return nil, fmt.Errorf("swarm: %s:%d: %s: %g is negative", name, ln, Columns[i], x)
+			}
+			v[i] = x
+		}
+		if v[0] <= 0 {
+			return nil, fmt.Errorf("swarm: %s:%d: %s: %g must be positive", name, ln, Columns[0], v[0])
+		}
+		if v[2] <= 0 {
+			return nil, fmt.Errorf("swarm: %s:%d: %s: %g must be positive", name, ln, Columns[2], v[2])
+		}
+		if n := len(rows); n > 0 && v[0]*units.Townsend <= rows[n-1].ReducedField {
+			return nil, fmt.Errorf("swarm: %s:%d: %s: %g Td is not above the previous row", name, ln, Columns[0], v[0])
+		}
+		rows = append(rows, Coefficients{
+			ReducedField: v[0] * units.Townsend, MeanEnergy: v[1] * units.ElectronVolt,
+			DriftVelocity: v[2], AlphaN: v[3], EtaN: v[4], Ionisation: v[5], Attachment: v[6],
+			ExciteA: v[7], ExciteB: v[8], ExciteC: v[9],
+		})
+	}
+	if len(rows) == 0 {
+		return nil, fmt.Errorf("swarm: %s: %w", name, ErrEmpty)
+	}
+	if len(rows) < 2 {
+		return nil, fmt.Errorf("swarm: %s: table has 1 row, need at least 2", name)
+	}
+	t, err := NewTable(rows)
+	if err != nil {
+		return nil, fmt.Errorf("%w (in %s)", err, name)
+	}
+	return t, nil
+}
+
+// WriteCSV writes the table with the Columns header, E/N in Td and mean energy in eV.
+func (t *Table) WriteCSV(w io.Writer) error {
+	return writeCSV(w, nil, t.rows, nil, nil)
+}
+
+// writeCSV writes comment lines, the header (Columns plus extra names) and the rows with their
+// extra values.
+func writeCSV(w io.Writer, comments []string, rows []Coefficients, extraNames []string, extra [][]float64) error {
+	bw := bufio.NewWriter(w)
+	for _, c := range comments {
+		fmt.Fprintf(bw, "# %s\n", c)
+	}
+	bw.WriteString(strings.Join(append(append([]string(nil), Columns...), extraNames...), ","))
+	bw.WriteByte('\n')
+	for i, r := range rows {
+		vals := []float64{r.ReducedField / units.Townsend, r.MeanEnergy / units.ElectronVolt,
+			r.DriftVelocity, r.AlphaN, r.EtaN, r.Ionisation, r.Attachment, r.ExciteA, r.ExciteB, r.ExciteC}
+		if extra != nil {
+			vals = append(vals, extra[i]...)
+		}
+		for k, v := range vals {
+			if k > 0 {
+				bw.WriteByte(',')
+			}
+			bw.WriteString(strconv.FormatFloat(v, 'g', 8, 64))
+		}
+		bw.WriteByte('\n')
+	}
+	return bw.Flush()
+}

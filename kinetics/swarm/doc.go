@@ -1,0 +1,70 @@
+// Package swarm gives the electron transport and rate coefficients of N₂, air and N₂–O₂–He
+// mixtures as functions of the reduced field E/N: a Table interpolated in log–log, the shipped
+// tables for N₂ and air, and the two-term Boltzmann solver that makes them.
+//
+// # Equation
+//
+// The solver is the steady two-term spherical-harmonic expansion of the Boltzmann equation in
+// the formulation of G.J.M. Hagelaar & L.C. Pitchford, Plasma Sources Sci. Technol. 14, 722
+// (2005). With ε the energy in eV, F0(ε) the isotropic distribution normalised by
+// ∫ ε^½ F0 dε = 1 and γ = (2e/m_e)^½,
+//
+//	d/dε [ W̃ F0 − D̃ dF0/dε ] = S̃,
+//	W̃ = −γ ε² σ_ε,                σ_ε = Σ_k x_k (2m/M_k) σ_el,k,
+//	D̃ = (γ/3) (E/N)² ε/σ̃ + γ (k_B T_g/e) ε² σ_ε,
+//	σ̃ = σ_m + (ν̄/N)/(γ ε^½),      σ_m = Σ_k x_k (σ_el,k + Σ_j σ_kj),
+//
+// where σ_m is the total momentum transfer (elastic momentum transfer plus every inelastic
+// process, taken as isotropic) and x_k are mole fractions. S̃ holds the inelastic collisions:
+// an excitation of threshold u removes electrons at ε and puts them at ε − u; an ionisation
+// shares ε − u equally between the two electrons (EqualSharing: the primary and the secondary
+// each get (ε − u)/2; OneTakesAll is available); an attachment removes the electron.
+//
+// # Growth
+//
+// Electron-number growth is temporal: n_e ∝ exp(ν̄ t) with ν̄/N = Σ x k_ion − Σ x k_att, which
+// adds −(ν̄/N) ε^½ F0 to S̃ and (ν̄/N)/(γ ε^½) to σ̃. ν̄ is iterated to self-consistency
+// (secant method) together with the grid. α/N = k_ion/w and η/N = k_att/w.
+//
+// # Numerics
+//
+// Cell-centred finite volumes on a non-uniform grid (faces ε_k = ε_max(a s + (1−a) s²),
+// s = k/n, a = 0.25: the cells at the top are seven times wider than at the bottom), the
+// exponential (Scharfetter–Gummel) flux of Hagelaar & Pitchford between cells, and inelastic
+// terms as exact overlaps of shifted cells with F0 constant in a cell and σ piecewise linear,
+// so that electron number is conserved exactly. The linear system (dense, since the
+// inelastic terms couple distant cells) is solved by LU factorisation with gonum/mat; the first
+// equation is replaced by the normalisation. ε_max is adapted until F0(ε_max)/F0(0) lies in
+// [1e-14, 1e-7]. The default grid has 200 cells.
+//
+// Outputs per E/N: the EEDF, mean energy ⟨ε⟩ = ∫ ε^{3/2} F0 dε, flux drift velocity
+// w = −(γ/3)(E/N) ∫ ε/σ̃ dF0/dε dε, the rate coefficient k = γ ∫ ε σ F0 dε of every process, the
+// A, B and C excitation rates of N₂ (sums of the processes labelled A, B, C in the data file),
+// α/N, η/N and the power balance
+//
+//	(E/N)·w = P_elastic + Σ x u k + P_attachment + (ν̄/N)⟨ε⟩.
+//
+// # Attachment
+//
+// Dissociative attachment to O₂ is a cross section in data/xsec-o2.txt. Three-body attachment
+// e + O₂ + M → O₂⁻ + M (M = O₂, N₂) is not part of the Boltzmann equation: it is added to k_att
+// after the solve as a two-body rate at the reference density N_ref (default 2.446e25 m⁻³,
+// 101325 Pa and 300 K), from the expressions of I.A. Kossyi, A.Yu. Kostinsky, A.A. Matveyev &
+// V.P. Silakov, Plasma Sources Sci. Technol. 1, 207 (1992), as quoted in public air-plasma
+// mechanism files, with T_e = (2/3)⟨ε⟩/k_B. It scales with N: a user at density N multiplies the
+// k_att3_m3_s column by N/N_ref. It is negligible above about 100 Td.
+//
+// Superelastic collisions are not included (at 300 K the vibrational and electronic
+// populations of the gas are negligible).
+//
+// # Units
+//
+// SI in the API: E/N [V m²] (1 Td = 1e-21 V m²), energies [J], w [m/s], α/N and η/N [m²],
+// rate coefficients [m³/s]. Inside the solver energies are in eV. The CSV tables use Td and eV
+// for E/N and the mean energy, SI otherwise.
+//
+// # Rates per molecule
+//
+// Coefficients.Ionisation and Attachment are per molecule of the whole gas
+// (dn_e/dt = (k_ion − k_att) N n_e); ExciteA, ExciteB and ExciteC are per N₂ molecule.
+package swarm

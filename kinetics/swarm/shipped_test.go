@@ -1,0 +1,68 @@
+package swarm
+
+import (
+	"bytes"
+	"flag"
+	"math"
+	"os"
+	"testing"
+
+	"n2pulse/units"
+)
+
+var update = flag.Bool("update", false, "rewrite data/swarm-n2.csv and data/swarm-air.csv from a fresh solve")
+
+// TestShippedTables solves N₂ and air afresh and compares with the shipped tables (the
+// shipped files are this solver's own output, so they must agree to the CSV's 8 digits up to
+// round-off in the solve: 1e-6 relative). With -update the files are rewritten.
+func TestShippedTables(t *testing.T) {
+	for _, c := range []struct {
+		gas    string
+		xn, xo float64
+	}{{"n2", 1, 0}, {"air", Air.Nitrogen, Air.Oxygen}} {
+		mix, err := Mixture(c.xn, c.xo, 0)
+		if err != nil {
+			t.Fatal(err)
+		}
+		fresh, res, err := SolveTable(mix, nil, TableFields)
+		if err != nil {
+			t.Fatal(err)
+		}
+		file := "../../data/swarm-" + c.gas + ".csv"
+		if *update {
+			var buf bytes.Buffer
+			if err := WriteResultsCSV(&buf, TableComments(mix, nil), res); err != nil {
+				t.Fatal(err)
+			}
+			if err := WriteFileAtomic(file, buf.Bytes()); err != nil {
+				t.Fatal(err)
+			}
+			continue
+		}
+		shipped, err := Builtin(c.gas)
+		if err != nil {
+			t.Fatal(err)
+		}
+		a, b := shipped.Rows(), fresh.Rows()
+		if len(a) != len(b) || len(a) < 60 {
+			t.Fatalf("%s: shipped %d rows, fresh %d (want equal and ≥ 60)", c.gas, len(a), len(b))
+		}
+		lo, hi := shipped.Range()
+		if math.Abs(lo/units.Townsend-10) > 1e-6 || math.Abs(hi/units.Townsend-3000) > 1e-3 {
+			t.Errorf("%s: range %g–%g Td, want 10–3000", c.gas, lo/units.Townsend, hi/units.Townsend)
+		}
+		for i := range a {
+			va, vb := a[i].values(), b[i].values()
+			for k := range va {
+				if d := math.Abs(va[k] - vb[k]); d > 1e-6*math.Abs(vb[k])+1e-300 {
+					t.Errorf("%s row %d (%.4g Td) %s: shipped %g, fresh %g", c.gas, i+1, a[i].ReducedField/units.Townsend, fieldNames[k], va[k], vb[k])
+				}
+			}
+		}
+	}
+}
+
+func TestMain(m *testing.M) {
+	flag.Parse()
+	os.Exit(m.Run())
+}

@@ -1,0 +1,160 @@
+package swarm
+
+import (
+	"errors"
+	"fmt"
+	"math"
+	"sort"
+	"sync/atomic"
+)
+
+// Coefficients are the electron transport and rate coefficients at one reduced field (SI).
+//
+// Ionisation and Attachment are per molecule of the whole gas (the electron balance is
+// dn_e/dt = (k_ion − k_att)·N·n_e with N the total density); ExciteA, ExciteB and ExciteC are per
+// N₂ molecule (the excitation rate density is k·n_e·N_N₂). In pure N₂ the two are the same.
+type Coefficients struct {
+	ReducedField  float64 // E/N [V m²]
+	MeanEnergy    float64 // [J]
+	DriftVelocity float64 // [m/s]
+	AlphaN        float64 // Townsend ionisation coefficient α/N [m²]
+	EtaN          float64 // attachment coefficient η/N [m²]
+	Ionisation    float64 // k_ion [m³/s]
+	Attachment    float64 // k_att [m³/s]
+	ExciteA       float64 // k for X → A³Σu⁺ (all v) [m³/s]
+	ExciteB       float64 // k for X → B³Πg (all v) [m³/s]
+	ExciteC       float64 // k for X → C³Πu (all v) [m³/s]
+}
+
+// nfields is the number of interpolated quantities after ReducedField.
+const nfields = 9
+
+func (c *Coefficients) values() [nfields]float64 {
+	return [nfields]float64{c.MeanEnergy, c.DriftVelocity, c.AlphaN, c.EtaN, c.Ionisation,
+		c.Attachment, c.ExciteA, c.ExciteB, c.ExciteC}
+}
+
+func fromValues(en float64, v *[nfields]float64) Coefficients {
+	return Coefficients{ReducedField: en, MeanEnergy: v[0], DriftVelocity: v[1], AlphaN: v[2],
+		EtaN: v[3], Ionisation: v[4], Attachment: v[5], ExciteA: v[6], ExciteB: v[7], ExciteC: v[8]}
+}
+
+// Table is a swarm table: Coefficients at ascending reduced fields, interpolated linearly in
+// log–log between rows (a zero value is interpolated linearly in E/N instead, so rates that
+// vanish at low E/N stay zero there). A Table is immutable after construction and safe for
+// concurrent use; only its out-of-range counters change, atomically.
+//
+// Lookups outside the rows' range are clamped and counted:
+//   - above the last row every coefficient is the last row's;
+//   - below the first row the drift velocity follows constant mobility, v = v₁·(E/N)/(E/N)₁, so
+//     it goes to zero smoothly at E/N = 0, and the mean energy and rate coefficients are held at
+//     the first row's values (they are tiny there for the excitation and ionisation rates);
+//     α/N and η/N are recomputed from the held rates and the scaled velocity would diverge,
+//     so they too are held at the first row's values.
+//
+// E/N = 0 returns zero drift velocity and the first row's other values; it is counted as below.
+type Table struct {
+	rows  []Coefficients
+	logx  []float64          // ln E/N of the rows
+	logv  [][nfields]float64 // ln of each value (or NaN where the value is not positive)
+	lin   [][nfields]float64 // the values themselves
+	below atomic.Int64
+	above atomic.Int64
+}
+
+// NewTable checks rows (at least two, E/N positive and strictly ascending, all values finite
+// and not negative, drift velocity positive) and builds a table over a copy of them.
+func NewTable(rows []Coefficients) (*Table, error) {
+	if len(rows) < 2 {
+		return nil, fmt.Errorf("swarm: table needs at least 2 rows, got %d", len(rows))
+	}
+	t := &Table{rows: append([]Coefficients(nil), rows...)}
+	t.logx = make([]float64, len(rows))
+	t.logv = make([][nfields]float64, len(rows))
+	t.lin = make([][nfields]float64, len(rows))
+	for i, r := range t.rows {
+		if !(r.ReducedField > 0) || math.IsInf(r.ReducedField, 0) {
+			return nil, fmt.Errorf("swarm: row %d: reduced field %g V m²: must be positive and finite", i+1, r.ReducedField)
+		}
+		if i > 0 && r.ReducedField <= t.rows[i-1].ReducedField {
+			return nil, fmt.Errorf("swarm: row %d: reduced field %g V m²: must be above the previous row's %g", i+1, r.ReducedField, t.rows[i-1].ReducedField)
+		}
+		if !(r.DriftVelocity > 0) {
+			return nil, fmt.Errorf("swarm: row %d: drift velocity %g m/s: must be positive", i+1, r.DriftVelocity)
+		}
+		v := r.values()
+		for k, x := range v {
+			if math.IsNaN(x) || math.IsInf(x, 0) || x < 0 {
+				return nil, fmt.Errorf("swarm: row %d: %s %g: must be finite and not negative", i+1, fieldNames[k], x)
+			}
+			t.lin[i][k] = x
+			if x > 0 {
+				t.logv[i][k] = math.Log(x)
+			} else {
+				t.logv[i][k] = math.NaN()
+			}
+		}
+		t.logx[i] = math.Log(r.ReducedField)
+	}
+	return t, nil
+}
+
+var fieldNames = [nfields]string{"mean energy", "drift velocity", "alpha/N", "eta/N", "k_ion", "k_att", "k_A", "k_B", "k_C"}
+
+// ErrEmpty is returned by readers when a table has no rows.
+var ErrEmpty = errors.New("swarm: table has no rows")
+
+// At returns the coefficients at |reducedField| [V m²]. It does not allocate.
+func (t *Table) At(reducedField float64) Coefficients {
+	en := math.Abs(reducedField)
+	n := len(t.rows)
+	lo, hi := t.rows[0].ReducedField, t.rows[n-1].ReducedField
+	switch {
+	case !(en >= lo) || math.IsNaN(en): // below the range, zero, or NaN
+		t.below.Add(1)
+		c := t.rows[0]
+		if math.IsNaN(en) {
+			en = 0
+		}
+		c.DriftVelocity = c.DriftVelocity * en / lo
+		c.ReducedField = en
+		return c
+	case en > hi:
+		t.above.Add(1)
+		c := t.rows[n-1]
+		c.ReducedField = en
+		return c
+	}
+	x := math.Log(en)
+	// index of the first row with logx > x, minus one, within [0, n-2]
+	i := sort.SearchFloat64s(t.logx, x) - 1
+	if i < 0 {
+		i = 0
+	}
+	if i > n-2 {
+		i = n - 2
+	}
+	s := (x - t.logx[i]) / (t.logx[i+1] - t.logx[i])
+	var v [nfields]float64
+	a, b := &t.logv[i], &t.logv[i+1]
+	for k := range v {
+		if math.IsNaN(a[k]) || math.IsNaN(b[k]) {
+			f := (en - t.rows[i].ReducedField) / (t.rows[i+1].ReducedField - t.rows[i].ReducedField)
+			v[k] = t.lin[i][k] + f*(t.lin[i+1][k]-t.lin[i][k])
+			continue
+		}
+		v[k] = math.Exp(a[k] + s*(b[k]-a[k]))
+	}
+	return fromValues(en, &v)
+}
+
+// Range returns the lowest and highest reduced field of the rows [V m²].
+func (t *Table) Range() (lo, hi float64) {
+	return t.rows[0].ReducedField, t.rows[len(t.rows)-1].ReducedField
+}
+
+// OutOfRange returns how many lookups fell below and above the range since construction.
+func (t *Table) OutOfRange() (below, above int64) { return t.below.Load(), t.above.Load() }
+
+// Rows returns a copy of the table's rows.
+func (t *Table) Rows() []Coefficients { return append([]Coefficients(nil), t.rows...) }
