@@ -1,0 +1,302 @@
+package kinetics
+
+import (
+	"bytes"
+	"errors"
+	"fmt"
+	"math"
+	"sort"
+	"strconv"
+	"strings"
+
+	"github.com/BurntSushi/toml"
+
+	"n2pulse/kinetics/build"
+	"n2pulse/kinetics/spectro"
+	"n2pulse/units"
+)
+
+// buildField is one key of the [build] section of a design file.
+type buildField struct {
+	key      string
+	dim      units.Dimension
+	num      func(s *build.Spec) *float64
+	str      func(s *build.Spec) *string
+	choices  func() []string
+	min, max float64 // allowed closed range in SI
+	help     string
+}
+
+var buildFields = []buildField{
+	{key: "build.switch_plate_length", dim: units.Length, num: func(s *build.Spec) *float64 { return &s.SwitchPlateLength }, min: 1e-3, max: 10, help: "switch-side capacitor plate, along the current away from the switch edge"},
+	{key: "build.switch_plate_width", dim: units.Length, num: func(s *build.Spec) *float64 { return &s.SwitchPlateWidth }, min: 1e-3, max: 10, help: "switch-side capacitor plate, along the switch edge"},
+	{key: "build.channel_plate_length", dim: units.Length, num: func(s *build.Spec) *float64 { return &s.ChannelPlateLength }, min: 1e-3, max: 10, help: "channel-side capacitor plate, along the current away from the rails"},
+	{key: "build.channel_plate_width", dim: units.Length, num: func(s *build.Spec) *float64 { return &s.ChannelPlateWidth }, min: 1e-3, max: 10, help: "channel-side capacitor plate, along the rails"},
+	{key: "build.dielectric", str: func(s *build.Spec) *string { return &s.Dielectric }, choices: build.DielectricKeys, help: "dielectric preset between the plates"},
+	{key: "build.dielectric_thickness", dim: units.Length, num: func(s *build.Spec) *float64 { return &s.DielectricThickness }, min: 1e-6, max: 0.05, help: "dielectric thickness between the plates"},
+	{key: "build.permittivity", dim: units.Dimensionless, num: func(s *build.Spec) *float64 { return &s.Permittivity }, min: 1, max: 1e4, help: "relative permittivity (overrides the preset)"},
+	{key: "build.dielectric_strength", dim: units.ElectricField, num: func(s *build.Spec) *float64 { return &s.DielectricStrength }, min: 1e5, max: 1e10, help: "short-time dielectric strength (overrides the preset)"},
+	{key: "build.fringe_correction", str: func(s *build.Spec) *string { return (*string)(&s.Fringe) }, choices: func() []string { return []string{string(build.NoFringe), string(build.Palmer)} }, help: "edge-field correction of the plate capacitance"},
+	{key: "build.rail_length", dim: units.Length, num: func(s *build.Spec) *float64 { return &s.RailLength }, min: 1e-3, max: 10, help: "electrode rail length (default: channel.length)"},
+	{key: "build.rail_height", dim: units.Length, num: func(s *build.Spec) *float64 { return &s.RailHeight }, min: 0, max: 0.5, help: "rail height from the plate to the discharge"},
+	{key: "build.rail_gap", dim: units.Length, num: func(s *build.Spec) *float64 { return &s.RailGap }, min: 1e-4, max: 0.2, help: "rail separation (default: channel.gap)"},
+	{key: "build.switch_gap", dim: units.Length, num: func(s *build.Spec) *float64 { return &s.SwitchGap }, min: 1e-5, max: 0.1, help: "spark-gap length (also sets switch.gap)"},
+	{key: "build.switch_own_inductance", dim: units.Inductance, num: func(s *build.Spec) *float64 { return &s.SwitchOwnInductance }, min: 0, max: 1e-5, help: "inductance of the spark channel and its leads, added to the switch loop"},
+	{key: "build.switch_gas", str: func(s *build.Spec) *string { return &s.SwitchGas }, choices: func() []string { return []string{"air", "nitrogen"} }, help: "gas in the spark gap"},
+	{key: "build.secondary_emission", dim: units.Dimensionless, num: func(s *build.Spec) *float64 { return &s.SecondaryEmission }, min: 1e-6, max: 0.9, help: "secondary-emission coefficient γ of the channel cathode (default: copper)"},
+}
+
+// BuildKeys returns the keys of the [build] section of a design file, sorted.
+func BuildKeys() []string {
+	k := make([]string, 0, len(buildFields))
+	for _, f := range buildFields {
+		k = append(k, f.key)
+	}
+	sort.Strings(k)
+	return k
+}
+
+// BuildKeyHelp returns the one-line description of a [build] key and whether it exists.
+func BuildKeyHelp(key string) (string, bool) {
+	for _, f := range buildFields {
+		if f.key == key {
+			return f.help, true
+		}
+	}
+	return "", false
+}
+
+// setBuild assigns one decoded TOML value of the [build] section.
+func setBuild(s *build.Spec, key string, v any) error {
+	var f *buildField
+	for i := range buildFields {
+		if buildFields[i].key == key {
+			f = &buildFields[i]
+		}
+	}
+	if f == nil {
+		best, bestD := "", 1<<30
+		for _, g := range buildFields {
+			if d := editDistance(key, g.key); d < bestD {
+				best, bestD = g.key, d
+			}
+		}
+		p := "unknown key"
+		if bestD <= 4 {
+			p += fmt.Sprintf(" (did you mean %s?)", best)
+		}
+		return &KeyError{Key: key, Problem: p}
+	}
+	if f.str != nil {
+		t, ok := v.(string)
+		if !ok {
+			return &KeyError{Key: key, Value: fmt.Sprint(v), Problem: "want text in quotes"}
+		}
+		for _, c := range f.choices() {
+			if strings.EqualFold(t, c) {
+				*f.str(s) = c
+				return nil
+			}
+		}
+		return &KeyError{Key: key, Value: strconv.Quote(t), Problem: "allowed: " + strings.Join(f.choices(), ", ")}
+	}
+	var x float64
+	given := fmt.Sprint(v)
+	switch y := v.(type) {
+	case int64:
+		x = float64(y)
+	case float64:
+		x = y
+	case string:
+		p, err := units.Parse(strings.TrimSpace(y), f.dim)
+		if err != nil {
+			return &KeyError{Key: key, Value: y, Problem: fmt.Sprintf("%v (want a number in %s or with a unit)", strings.TrimPrefix(err.Error(), "units: "), f.dim)}
+		}
+		x = p
+	default:
+		return &KeyError{Key: key, Value: given, Problem: "want a number or a quoted value with a unit"}
+	}
+	if math.IsNaN(x) || x < f.min || x > f.max {
+		return &KeyError{Key: key, Value: given, Problem: fmt.Sprintf("out of range: allowed %g to %g %s", f.min, f.max, f.dim)}
+	}
+	*f.num(s) = x
+	return nil
+}
+
+// Built is a design read together with its [build] section.
+type Built struct {
+	Design  *Design
+	Spec    build.Spec   // the [build] section as given, in SI
+	Bench   *build.Bench // derived circuit values, stresses and warnings
+	Derived []string     // design keys whose values came from the build, not the file
+}
+
+// ParseBuiltDesign decodes a TOML design that may describe the laser as built: a [build]
+// section of plates, dielectric, rails and switch gap gives the circuit keys the file leaves
+// out (explicit circuit values win). Without a [build] section it reads the design like
+// ParseDesign and rates the stresses the circuit values allow.
+func ParseBuiltDesign(b []byte, name string) (*Built, error) {
+	var raw map[string]any
+	if _, err := toml.NewDecoder(bytes.NewReader(b)).Decode(&raw); err != nil {
+		var pe toml.ParseError
+		if errors.As(err, &pe) {
+			return nil, fmt.Errorf("design: %s:%d: %s", name, pe.Position.Line, pe.Message)
+		}
+		return nil, fmt.Errorf("design: %s: %w", name, err)
+	}
+	flat := map[string]any{}
+	flatten("", raw, flat)
+	out, err := parseBuilt(flat)
+	if err != nil {
+		return nil, fmt.Errorf("%s: %w", name, err)
+	}
+	return out, nil
+}
+
+// derivable maps the design keys the build can give to the build's values.
+var derivable = []struct {
+	key string
+	get func(b *build.Bench) float64
+	set func(d *Design) *float64
+}{
+	{"circuit.switch_capacitance", func(b *build.Bench) float64 { return b.DerivedSwitchCapacitance }, func(d *Design) *float64 { return &d.Circuit.SwitchCapacitance }},
+	{"circuit.channel_capacitance", func(b *build.Bench) float64 { return b.DerivedChannelCapacitance }, func(d *Design) *float64 { return &d.Circuit.ChannelCapacitance }},
+	{"circuit.switch_inductance", func(b *build.Bench) float64 { return b.DerivedSwitchInductance }, func(d *Design) *float64 { return &d.Circuit.SwitchInductance }},
+	{"circuit.channel_inductance", func(b *build.Bench) float64 { return b.DerivedChannelInductance }, func(d *Design) *float64 { return &d.Circuit.ChannelInductance }},
+}
+
+// parseBuilt reads a flattened design with an optional build section.
+func parseBuilt(flat map[string]any) (*Built, error) {
+	keys := make([]string, 0, len(flat))
+	for k := range flat {
+		keys = append(keys, k)
+	}
+	sort.Strings(keys)
+	d := Defaults()
+	out := &Built{Design: d}
+	for _, k := range keys {
+		var err error
+		if strings.HasPrefix(k, "build.") {
+			err = setBuild(&out.Spec, k, flat[k])
+		} else {
+			err = d.setValue(k, flat[k])
+		}
+		if err != nil {
+			return nil, err
+		}
+	}
+	for _, k := range []string{"channel.length", "channel.gap", "channel.width", "gas.pressure", "circuit.topology", "circuit.charge_voltage"} {
+		if _, ok := flat[k]; !ok {
+			return nil, &KeyError{Key: k, Problem: "missing: every design must give it"}
+		}
+	}
+	if _, ok := flat["gas.nitrogen"]; !ok {
+		d.Gas.Nitrogen = 1 - d.Gas.Oxygen - d.Gas.Helium
+	}
+	if _, ok := flat["switch.gap"]; !ok && out.Spec.SwitchGap > 0 {
+		d.Switch.Gap = out.Spec.SwitchGap
+		out.Derived = append(out.Derived, "switch.gap")
+	}
+	for _, x := range derivable {
+		_, given := flat[x.key]
+		plates := out.Spec.HasSwitchPlates()
+		if strings.Contains(x.key, "channel_") {
+			plates = out.Spec.HasChannelPlates()
+		}
+		if !given && !plates {
+			return nil, &KeyError{Key: x.key, Problem: "missing: give it, or describe the capacitor plates and dielectric in [build]"}
+		}
+	}
+	bench, derived, err := d.ApplyBuild(&out.Spec)
+	if err != nil {
+		return nil, err
+	}
+	out.Bench, out.Derived = bench, append(out.Derived, derived...)
+	if err := d.Validate(); err != nil {
+		return nil, err
+	}
+	for _, x := range derivable {
+		if err := fieldIndex[x.key].setNumber(d, *x.set(d), units.Format(*x.set(d), fieldIndex[x.key].unit)+" (from [build])"); err != nil {
+			return nil, err
+		}
+	}
+	return out, nil
+}
+
+// ApplyBuild fills the design's zero circuit values (capacitances, loop inductances) from the
+// build s and returns the bench report and the design keys it filled. Non-zero circuit values
+// are kept: explicit values win over derived ones.
+func (d *Design) ApplyBuild(s *build.Spec) (*build.Bench, []string, error) {
+	b, err := build.Evaluate(*s, d.benchConditions())
+	if err != nil {
+		return nil, nil, fmt.Errorf("design: [build]: %w", err)
+	}
+	var derived []string
+	for _, x := range derivable {
+		if p := x.set(d); *p == 0 && x.get(b) > 0 {
+			*p = x.get(b)
+			derived = append(derived, x.key)
+		}
+	}
+	return b, derived, nil
+}
+
+// Bench rates the stresses of a design given by circuit values only (no [build] section):
+// channel breakdown, shunt, switch against the upper-level lifetime.
+func (d *Design) Bench() (*build.Bench, error) {
+	b, err := build.Evaluate(build.Spec{}, d.benchConditions())
+	if err != nil {
+		return nil, fmt.Errorf("design: %w", err)
+	}
+	return b, nil
+}
+
+func (d *Design) benchConditions() build.Conditions {
+	c := d.Circuit
+	we := d.Channel.ElectrodeWidth
+	if we == 0 {
+		we = d.Channel.Width
+	}
+	cond := build.Conditions{
+		Transfer:           c.Topology == ChargeTransfer,
+		ChargeVoltage:      c.ChargeVoltage,
+		ChannelLength:      d.Channel.Length,
+		ChannelGap:         d.Channel.Gap,
+		GapCapacitance:     units.VacuumPermittivity*d.Channel.Length*we/d.Channel.Gap + d.Channel.StrayCapacitance,
+		Pressure:           d.Gas.Pressure,
+		Temperature:        d.Gas.Temperature,
+		Nitrogen:           d.Gas.Nitrogen,
+		Shunt:              c.ShuntInductance > 0 || c.ShuntResistance > 0,
+		UpperLifetime:      d.EffectiveUpperLifetime(),
+		SwitchCapacitance:  c.SwitchCapacitance,
+		ChannelCapacitance: c.ChannelCapacitance,
+		SwitchInductance:   c.SwitchInductance,
+		ChannelInductance:  c.ChannelInductance,
+	}
+	switch d.Switch.Model {
+	case RompeWeizelSwitch:
+		cond.SwitchGap, cond.SwitchPressure = d.Switch.Gap, d.Switch.Pressure
+	case ExponentialSwitch:
+		cond.SwitchRiseTime = d.Switch.RiseTime
+	}
+	return cond
+}
+
+// fallbackUpperLifetime is the radiative lifetime of C(0) used when package spectro cannot
+// give one: 40.8 ns, Capitelli et al., Plasma Kinetics in Atmospheric Gases (Springer 2000),
+// p. 157, via air-plasma mechanism files (seen, secondary).
+const fallbackUpperLifetime = 40.8e-9
+
+// EffectiveUpperLifetime returns the lifetime of C(0) in the design's gas without electrons
+// or stimulated emission, 1/(1/τ_C + Σk_q·N) = τ_C/(1 + p/p_q) [s] (Stern–Volmer), with τ_C
+// from spectroscopy.upper_lifetime, else package spectro, else 40.8 ns.
+func (d *Design) EffectiveUpperLifetime() float64 {
+	tau := d.Spectroscopy.UpperLifetime
+	if tau == 0 {
+		tau = fallbackUpperLifetime
+		if lp, err := spectro.Laser(d.Gas.Pressure, d.Gas.Temperature); err == nil && lp.UpperLifetime > 0 {
+			tau = lp.UpperLifetime
+		}
+	}
+	return 1 / d.Levels.UpperDecayRate(tau, d.Gas)
+}

@@ -1,0 +1,142 @@
+package kinetics
+
+import (
+	"errors"
+	"math"
+	"slices"
+	"strings"
+	"testing"
+
+	"n2pulse/units"
+)
+
+// boardDesign is an invented scenario: a Blumlein etched on a 1.6 mm glass-epoxy board.
+const boardDesign = `
+name = "board Blumlein"
+[channel]
+length = "25 cm"
+gap = "2 mm"
+width = "3 mm"
+[gas]
+pressure = "760 Torr"
+[circuit]
+topology = "blumlein"
+charge_voltage = "12 kV"
+shunt_inductance = "1 uH"
+[switch]
+model = "rompe-weizel"
+[build]
+switch_plate_length = "15 cm"
+switch_plate_width = "25 cm"
+channel_plate_length = "15 cm"
+channel_plate_width = "25 cm"
+dielectric = "fr4"
+dielectric_thickness = "1.6 mm"
+rail_height = "5 mm"
+switch_gap = "3 mm"
+switch_own_inductance = "5 nH"
+`
+
+func TestParseBuiltDesignDerives(t *testing.T) {
+	b, err := ParseBuiltDesign([]byte(boardDesign), "board.toml")
+	if err != nil {
+		t.Fatal(err)
+	}
+	d := b.Design
+	want := []string{"switch.gap", "circuit.switch_capacitance", "circuit.channel_capacitance", "circuit.switch_inductance", "circuit.channel_inductance"}
+	if !slices.Equal(b.Derived, want) {
+		t.Errorf("derived %v, want %v", b.Derived, want)
+	}
+	// Textbook formulas (see package build): C = ε₀ε_r·l·w/d, L = μ₀·d·l/(3w) (+5 nH for the
+	// switch), rails μ₀·g·h/L.
+	c := units.VacuumPermittivity * 4.5 * 0.15 * 0.25 / 1.6e-3
+	ls := units.VacuumPermeability*1.6e-3*0.15/(3*0.25) + 5e-9
+	lc := units.VacuumPermeability*1.6e-3*0.15/(3*0.25) + units.VacuumPermeability*2e-3*5e-3/0.25
+	for _, x := range []struct {
+		what      string
+		got, want float64
+	}{
+		{"C₁", d.Circuit.SwitchCapacitance, c}, {"C₂", d.Circuit.ChannelCapacitance, c},
+		{"L_s", d.Circuit.SwitchInductance, ls}, {"L_c", d.Circuit.ChannelInductance, lc},
+		{"switch gap", d.Switch.Gap, 3e-3},
+	} {
+		if math.Abs(x.got-x.want) > 1e-12*x.want {
+			t.Errorf("%s = %g, want %g", x.what, x.got, x.want)
+		}
+	}
+	if b.Bench.DielectricMargin <= 0 || b.Bench.ChannelBreakdown <= 0 {
+		t.Errorf("bench incomplete: margin %g, breakdown %g", b.Bench.DielectricMargin, b.Bench.ChannelBreakdown)
+	}
+}
+
+func TestParseBuiltDesignExplicitWins(t *testing.T) {
+	text := strings.Replace(boardDesign, `shunt_inductance = "1 uH"`, `shunt_inductance = "1 uH"`+"\nswitch_inductance = \"20 nH\"", 1)
+	b, err := ParseBuiltDesign([]byte(text), "board.toml")
+	if err != nil {
+		t.Fatal(err)
+	}
+	if b.Design.Circuit.SwitchInductance != 20e-9 || slices.Contains(b.Derived, "circuit.switch_inductance") {
+		t.Errorf("explicit L_s lost: %g, derived %v", b.Design.Circuit.SwitchInductance, b.Derived)
+	}
+	if b.Bench.DerivedSwitchInductance == 20e-9 || b.Bench.SwitchInductance != 20e-9 {
+		t.Errorf("bench: derived %g, used %g", b.Bench.DerivedSwitchInductance, b.Bench.SwitchInductance)
+	}
+}
+
+func TestParseBuiltDesignErrors(t *testing.T) {
+	cases := []struct{ old, new, key, says string }{
+		{`rail_height = "5 mm"`, `rail_hieght = "5 mm"`, "build.rail_hieght", "did you mean build.rail_height"},
+		{`dielectric_thickness = "1.6 mm"`, `dielectric_thickness = "-1 mm"`, "build.dielectric_thickness", "out of range"},
+		{`dielectric = "fr4"`, `dielectric = "cardboard"`, "build.dielectric", "allowed"},
+		{`channel_plate_length = "15 cm"`, ``, "circuit.channel_capacitance", "missing"},
+		{`dielectric_thickness = "1.6 mm"`, `dielectric_thickness = "1.6 kg"`, "build.dielectric_thickness", "want a number"},
+	}
+	for _, c := range cases {
+		_, err := ParseBuiltDesign([]byte(strings.Replace(boardDesign, c.old, c.new, 1)), "board.toml")
+		var ke *KeyError
+		if !errors.As(err, &ke) || ke.Key != c.key || !strings.Contains(err.Error(), c.says) {
+			t.Errorf("%s: error %v, want a KeyError on %s saying %q", c.new, err, c.key, c.says)
+		}
+	}
+}
+
+func TestBenchOfExample(t *testing.T) {
+	d := ExampleDesign()
+	b, err := d.Bench()
+	if err != nil {
+		t.Fatal(err)
+	}
+	// The switch loop rings C₁ to the peak in π·sqrt(L_s·C₁) (analytic); set a 12 nH loop with
+	// 4 nF, 21.8 ns, far slower than the ~3.7 ns effective C(0) lifetime at 1 atm.
+	d.Circuit.SwitchInductance, d.Circuit.SwitchCapacitance = 12e-9, 4e-9
+	b, err = d.Bench()
+	if err != nil {
+		t.Fatal(err)
+	}
+	if math.Abs(b.VoltageRise-math.Pi*math.Sqrt(12e-9*4e-9)) > 1e-12 {
+		t.Errorf("voltage rise %g", b.VoltageRise)
+	}
+	found := false
+	for _, w := range b.Warnings {
+		found = found || strings.Contains(w, "switch slower")
+	}
+	if !found {
+		t.Errorf("no slow-switch warning: %q", b.Warnings)
+	}
+}
+
+func TestEffectiveUpperLifetime(t *testing.T) {
+	d := ExampleDesign()
+	d.Spectroscopy.UpperLifetime = 40e-9
+	// Stern–Volmer (analytic): 1/τ_eff = 1/τ_C + k_q·N, N = p/(k_B·T).
+	n := 101325 / (units.Boltzmann * 300)
+	want := 1 / (1/40e-9 + d.Levels.UpperQuenchingNitrogen*n)
+	if got := d.EffectiveUpperLifetime(); math.Abs(got-want) > 1e-12*want {
+		t.Errorf("τ_eff = %g, want %g", got, want)
+	}
+	// τ/(1 + p/p_q) form with p_q = k_B·T/(k_q·τ).
+	pq := units.Boltzmann * 300 / (d.Levels.UpperQuenchingNitrogen * 40e-9)
+	if got := d.EffectiveUpperLifetime(); math.Abs(got-40e-9/(1+101325/pq)) > 1e-12*want {
+		t.Errorf("τ_eff = %g, want τ/(1+p/p_q) = %g", got, 40e-9/(1+101325/pq))
+	}
+}
