@@ -22,6 +22,7 @@ type Rosenbrock struct {
 	rhs, ytmp []float64
 	rhsv      *mat.VecDense
 	jacValid  bool
+	yScale    []float64 // largest |y_j| seen, the scale of difference increments
 }
 
 var _ Integrator = (*Rosenbrock)(nil)
@@ -53,6 +54,10 @@ func (r *Rosenbrock) Init(sys System, t0 float64, y0 []float64, s *Settings) err
 		u := make([]float64, n)
 		r.u = append(r.u, u)
 		r.uv = append(r.uv, mat.NewVecDense(n, u))
+	}
+	r.yScale = resize(r.yScale, n)
+	for i, v := range y0 {
+		r.yScale[i] = math.Abs(v)
 	}
 	r.jacValid = false
 	r.h = r.initialStep(r.tab.Order)
@@ -152,9 +157,11 @@ func (r *Rosenbrock) try(h float64) (float64, error) {
 }
 
 // jacobian computes ∂f/∂y and ∂f/∂t at the step start, analytically when the system provides
-// them, otherwise by forward differences with the increments of the CVODE difference quotient
-// (Hindmarsh et al., ACM TOMS 31, 363–396, 2005): δ_j = max(√ε·|y_j|, δ_min/w_j) with
-// w_j the error weight and δ_min = 1000·ε·|h|·n·‖f‖.
+// them, otherwise by forward differences. The increments follow the CVODE difference quotient
+// (Hindmarsh et al., ACM TOMS 31, 363–396, 2005), δ_j = max(√ε·|y_j|, δ_min/w_j) with w_j
+// the error weight and δ_min = 1000·ε·|h|·n·‖f‖, except that |y_j| is replaced by the largest
+// |y_j| seen so far: a component passing through zero (a charge, a current) keeps an increment
+// of its own scale instead of one drowned by rounding.
 func (r *Rosenbrock) jacobian(h float64) error {
 	t := r.tStart()
 	r.stats.JacEvals++
@@ -196,8 +203,9 @@ func (r *Rosenbrock) diffJacobian(t, h float64) error {
 	copy(r.ytmp, r.y)
 	for j := range r.n {
 		yj := r.y[j]
+		r.yScale[j] = math.Max(r.yScale[j], math.Abs(yj))
 		sc := r.cfg.atol[j] + r.cfg.rtol*math.Abs(yj)
-		d := math.Max(srur*math.Abs(yj), minInc*sc)
+		d := math.Max(srur*r.yScale[j], minInc*sc)
 		if d == 0 {
 			d = srur
 		}

@@ -44,7 +44,69 @@ type Problem struct {
 
 // Problems returns fresh instances of all shared problems.
 func Problems() []Problem {
-	return []Problem{Decay(), Oscillator(), Robertson(), VanDerPol(), ProtheroRobinson(-1e6)}
+	return []Problem{Decay(), Oscillator(), Rational(), Kepler(0.5), Robertson(), VanDerPol(), ProtheroRobinson(-1e6)}
+}
+
+// RationalSystem is the nonlinear, non-autonomous y′ = −2t·y², solved by y = 1/(1 + t²) from
+// y(0) = 1.
+type RationalSystem struct{}
+
+func (RationalSystem) Dim() int { return 1 }
+func (RationalSystem) Eval(t float64, y, dydt []float64) error {
+	dydt[0] = -2 * t * y[0] * y[0]
+	return nil
+}
+func (RationalSystem) Jacobian(t float64, y []float64, dst *mat.Dense) { dst.Set(0, 0, -4*t*y[0]) }
+
+// Rational is y′ = −2t·y² on [0, 3] with exact solution 1/(1 + t²).
+func Rational() Problem {
+	p := Problem{Name: "rational", Sys: RationalSystem{}, End: 3, Y0: []float64{1},
+		Exact:  func(t float64, d []float64) { d[0] = 1 / (1 + t*t) },
+		Source: "analytic", AbsTol: 1e-12, Scale: []float64{1}}
+	return p.withExact()
+}
+
+// KeplerSystem is the two-body problem q″ = −q/|q|³ in the plane, state (q₁, q₂, p₁, p₂).
+type KeplerSystem struct{}
+
+func (KeplerSystem) Dim() int { return 4 }
+func (KeplerSystem) Eval(_ float64, y, dydt []float64) error {
+	r := math.Hypot(y[0], y[1])
+	r3 := r * r * r
+	dydt[0], dydt[1] = y[2], y[3]
+	dydt[2], dydt[3] = -y[0]/r3, -y[1]/r3
+	return nil
+}
+
+func (KeplerSystem) Jacobian(_ float64, y []float64, dst *mat.Dense) {
+	dst.Zero()
+	r := math.Hypot(y[0], y[1])
+	r3, r5 := r*r*r, r*r*r*r*r
+	dst.Set(0, 2, 1)
+	dst.Set(1, 3, 1)
+	for i := range 2 {
+		for j := range 2 {
+			v := 3 * y[i] * y[j] / r5
+			if i == j {
+				v -= 1 / r3
+			}
+			dst.Set(2+i, j, v)
+		}
+	}
+}
+
+// KeplerInvariants returns the energy ½|p|² − 1/|q| and the angular momentum q₁p₂ − q₂p₁.
+func KeplerInvariants(y []float64) (energy, angular float64) {
+	return 0.5*(y[2]*y[2]+y[3]*y[3]) - 1/math.Hypot(y[0], y[1]), y[0]*y[3] - y[1]*y[2]
+}
+
+// Kepler is an orbit of eccentricity e with semi-major axis 1 from pericentre, over one period
+// 2π, after which it returns exactly to its initial state (Kepler's third law; analytic).
+func Kepler(e float64) Problem {
+	y0 := []float64{1 - e, 0, 0, math.Sqrt((1 + e) / (1 - e))}
+	return Problem{Name: "kepler", Sys: KeplerSystem{}, End: 2 * math.Pi, Y0: y0,
+		Ref: append([]float64(nil), y0...), RefTol: 1e-15, Source: "analytic (period 2π for a = 1)",
+		AbsTol: 1e-12, Scale: []float64{1, 1, 1, 1}}
 }
 
 // DecaySystem is y₁′ = −y₁, y₂′ = −10·y₂.
