@@ -37,6 +37,9 @@ type Problem struct {
 	Stiff bool
 	// AbsTol is a suitable absolute tolerance for the problem's scale.
 	AbsTol float64
+	// Growth bounds the global error in units of RelTol (default 100): the tolerance bounds
+	// local errors, which accumulate over the interval, most along orbits (Kepler: 1000).
+	Growth float64
 	// Scale is the typical magnitude of each component (nil: the reference value itself);
 	// errors are measured relative to max(|Ref_i|, Scale_i).
 	Scale []float64
@@ -106,7 +109,7 @@ func Kepler(e float64) Problem {
 	y0 := []float64{1 - e, 0, 0, math.Sqrt((1 + e) / (1 - e))}
 	return Problem{Name: "kepler", Sys: KeplerSystem{}, End: 2 * math.Pi, Y0: y0,
 		Ref: append([]float64(nil), y0...), RefTol: 1e-15, Source: "analytic (period 2π for a = 1)",
-		AbsTol: 1e-12, Scale: []float64{1, 1, 1, 1}}
+		AbsTol: 1e-12, Scale: []float64{1, 1, 1, 1}, Growth: 1000}
 }
 
 // DecaySystem is y₁′ = −y₁, y₂′ = −10·y₂.
