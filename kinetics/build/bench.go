@@ -58,12 +58,12 @@ type Conditions struct {
 
 // Line describes one capacitor of the build as a parallel-plate line.
 type Line struct {
-	Plates
-	Capacitance         float64 // with the chosen fringe correction [F]
-	InductancePerLength float64 // L' [H/m]
-	LoopInductance      float64 // L'·l/3 [H]
-	Impedance           float64 // Z₀ [Ω]
-	TransitTime         float64 // one way [s]
+	Plates              `json:"plates"`
+	Capacitance         float64 `json:"capacitance_F"`             // with the chosen fringe correction [F]
+	InductancePerLength float64 `json:"inductance_per_length_H_m"` // L' [H/m]
+	LoopInductance      float64 `json:"loop_inductance_H"`         // L'·l/3 [H]
+	Impedance           float64 `json:"impedance_ohm"`             // Z₀ [Ω]
+	TransitTime         float64 `json:"transit_time_s"`            // one way [s]
 }
 
 func newLine(p Plates, f Fringe) *Line {
@@ -74,39 +74,43 @@ func newLine(p Plates, f Fringe) *Line {
 // Bench is the outcome of Evaluate: the derived circuit values, the values used (explicit
 // ones win), the stresses on the parts and the warnings.
 type Bench struct {
-	Dielectric     *Dielectric // nil when the build gives no dielectric
-	Fringe         Fringe
-	SwitchLine     *Line // nil when the switch-side plates are not described
-	ChannelLine    *Line // nil when the channel-side plates are not described
-	RailInductance float64
+	Dielectric     *Dielectric `json:"dielectric,omitempty"`   // nil when the build gives no dielectric
+	Fringe         Fringe      `json:"fringe"`                 // fringe correction of the plate capacitances
+	SwitchLine     *Line       `json:"switch_line,omitempty"`  // nil when the switch-side plates are not described
+	ChannelLine    *Line       `json:"channel_line,omitempty"` // nil when the channel-side plates are not described
+	RailInductance float64     `json:"rail_inductance_H"`      // [H]
 
 	// Derived values (zero when the build cannot give them) and the values used.
-	DerivedSwitchCapacitance, DerivedChannelCapacitance float64 // [F]
-	DerivedSwitchInductance, DerivedChannelInductance   float64 // [H]
-	SwitchCapacitance, ChannelCapacitance               float64 // [F]
-	SwitchInductance, ChannelInductance                 float64 // [H]
+	DerivedSwitchCapacitance  float64 `json:"derived_switch_capacitance_F"`  // [F]
+	DerivedChannelCapacitance float64 `json:"derived_channel_capacitance_F"` // [F]
+	DerivedSwitchInductance   float64 `json:"derived_switch_inductance_H"`   // [H]
+	DerivedChannelInductance  float64 `json:"derived_channel_inductance_H"`  // [H]
+	SwitchCapacitance         float64 `json:"switch_capacitance_F"`          // [F]
+	ChannelCapacitance        float64 `json:"channel_capacitance_F"`         // [F]
+	SwitchInductance          float64 `json:"switch_inductance_H"`           // [H]
+	ChannelInductance         float64 `json:"channel_inductance_H"`          // [H]
 
-	DielectricVoltage float64 // highest voltage across the dielectric [V]
-	DielectricField   float64 // [V/m]; 0 without a dielectric thickness
-	DielectricMargin  float64 // strength / field
+	DielectricVoltage float64 `json:"dielectric_voltage_V"` // highest voltage across the dielectric [V]
+	DielectricField   float64 `json:"dielectric_field_V_m"` // [V/m]; 0 without a dielectric thickness
+	DielectricMargin  float64 `json:"dielectric_margin"`    // strength / field
 
-	Townsend         Townsend // of the channel gas
-	ChannelPD        float64  // reduced p·d of the channel [Pa m]
-	ChannelBreakdown float64  // static Paschen breakdown of the channel gap [V]
-	ChannelCharging  float64  // voltage across the channel while the capacitors charge [V]
-	ChannelPeak      float64  // highest voltage across the channel after switch closure, before breakdown [V]
-	Overvoltage      float64  // ChannelPeak / ChannelBreakdown
-	ShuntNeeded      bool     // the circuit needs a shunt across the channel and has none
+	Townsend         Townsend `json:"townsend"`            // of the channel gas
+	ChannelPD        float64  `json:"channel_pd_Pa_m"`     // reduced p·d of the channel [Pa m]
+	ChannelBreakdown float64  `json:"channel_breakdown_V"` // static Paschen breakdown of the channel gap [V]
+	ChannelCharging  float64  `json:"channel_charging_V"`  // voltage across the channel while the capacitors charge [V]
+	ChannelPeak      float64  `json:"channel_peak_V"`      // highest voltage across the channel after switch closure, before breakdown [V]
+	Overvoltage      float64  `json:"overvoltage"`         // ChannelPeak / ChannelBreakdown
+	ShuntNeeded      bool     `json:"shunt_needed"`        // the circuit needs a shunt across the channel and has none
 
-	SwitchGap       float64 // [m]; 0 when unknown
-	SwitchBreakdown float64 // static Paschen breakdown of the spark gap [V]; 0 when unknown
+	SwitchGap       float64 `json:"switch_gap_m"`       // [m]; 0 when unknown
+	SwitchBreakdown float64 `json:"switch_breakdown_V"` // static Paschen breakdown of the spark gap [V]; 0 when unknown
 
-	VoltageRise   float64 // switch closure to the peak channel voltage, π·sqrt(L_s·C) plus the switch's own closing time [s]
-	CurrentRise   float64 // quarter period of the channel loop, (π/2)·sqrt(L_c·C_ch) [s]
-	UpperLifetime float64 // effective C(0) lifetime [s]
-	StoredEnergy  float64 // ½(C₁+C₂)V₀² (Blumlein) or ½C_sV₀² (transfer) [J]
+	VoltageRise   float64 `json:"voltage_rise_s"`   // switch closure to the peak channel voltage, π·sqrt(L_s·C) plus the switch's own closing time [s]
+	CurrentRise   float64 `json:"current_rise_s"`   // quarter period of the channel loop, (π/2)·sqrt(L_c·C_ch) [s]
+	UpperLifetime float64 `json:"upper_lifetime_s"` // effective C(0) lifetime [s]
+	StoredEnergy  float64 `json:"stored_energy_J"`  // ½(C₁+C₂)V₀² (Blumlein) or ½C_sV₀² (transfer) [J]
 
-	Warnings []string
+	Warnings []string `json:"warnings"`
 }
 
 // Evaluate derives the circuit from the build and rates the stresses; an error means the build
@@ -292,8 +296,8 @@ func (b *Bench) stresses(s Spec, c Conditions) error {
 		if vb, err := sg.Breakdown(ReducedPD(c.SwitchPressure, b.SwitchGap, 293.15)); err == nil {
 			b.SwitchBreakdown = vb
 			if vb < v0 {
-				b.warnf("the spark gap breaks down at %s, below the charge voltage %s: the laser fires at about %s",
-					units.Format(vb, "V"), units.Format(v0, "V"), units.Format(vb, "V"))
+				b.warnf("the %s spark gap breaks down at %s (static, %s gas), below the charge voltage %s: self-breaking, the laser fires at about %s (a pressurised gap holds more)",
+					units.Format(b.SwitchGap, "m"), units.Format(vb, "V"), sg.Name, units.Format(v0, "V"), units.Format(vb, "V"))
 			}
 		}
 	}

@@ -14,24 +14,24 @@ import (
 
 // Dielectric is the insulation between two capacitor plates.
 type Dielectric struct {
-	Key                string  // preset name used in design files ("pet", "fr4")
-	Name               string  // name in words
-	Permittivity       float64 // relative permittivity ε_r
-	Strength           float64 // short-time dielectric strength [V/m]
-	PermittivitySource string
-	StrengthSource     string
+	Key                string  `json:"key"`                 // preset name used in design files ("pet", "fr4")
+	Name               string  `json:"name"`                // name in words
+	Permittivity       float64 `json:"permittivity"`        // relative permittivity ε_r
+	Strength           float64 `json:"strength_V_m"`        // short-time dielectric strength [V/m]
+	PermittivitySource string  `json:"permittivity_source"` // where ε_r comes from
+	StrengthSource     string  `json:"strength_source"`     // where the strength comes from
 }
 
 // Townsend holds the Townsend constants of a gas and the secondary-emission coefficient of the
 // cathode, for Paschen's law.
 type Townsend struct {
-	Key         string
-	Name        string
-	A           float64 // first-coefficient fit α/p = A·exp(−B·p/E) [m⁻¹ Pa⁻¹]
-	B           float64 // [V m⁻¹ Pa⁻¹]
-	Gamma       float64 // secondary-emission coefficient γ
-	Source      string
-	GammaSource string
+	Key         string  `json:"key"`          // "nitrogen", "air"
+	Name        string  `json:"name"`         // name in words
+	A           float64 `json:"A_per_m_Pa"`   // first-coefficient fit α/p = A·exp(−B·p/E) [m⁻¹ Pa⁻¹]
+	B           float64 `json:"B_V_per_m_Pa"` // [V m⁻¹ Pa⁻¹]
+	Gamma       float64 `json:"gamma"`        // secondary-emission coefficient γ
+	Source      string  `json:"source"`       // where A and B come from
+	GammaSource string  `json:"gamma_source"` // where γ comes from
 }
 
 type materialsFile struct {

@@ -18,10 +18,10 @@ const (
 
 // Plates is a pair of rectangular capacitor plates with a dielectric between them.
 type Plates struct {
-	Length       float64 // along the current, away from the edge where the switch or channel sits [m]
-	Width        float64 // along that edge, across the current [m]
-	Thickness    float64 // dielectric thickness d [m]
-	Permittivity float64 // relative permittivity ε_r
+	Length       float64 `json:"length_m"`     // along the current, away from the edge where the switch or channel sits [m]
+	Width        float64 `json:"width_m"`      // along that edge, across the current [m]
+	Thickness    float64 `json:"thickness_m"`  // dielectric thickness d [m]
+	Permittivity float64 `json:"permittivity"` // relative permittivity ε_r
 }
 
 // Capacitance returns the capacitance of the plates [F]: ε₀ε_r·l·w/d, times Palmer's edge
