@@ -1,0 +1,23 @@
+package kinetics
+
+import "testing"
+
+// BenchmarkRun times one shot of the built-in example design (200 cells) and reports the
+// optical cell updates per second.
+func BenchmarkRun(b *testing.B) {
+	d := ExampleDesign()
+	if _, err := Run(d, &RunSettings{Light: true}); err != nil { // warm the tables
+		b.Fatal(err)
+	}
+	b.ResetTimer()
+	var updates int
+	for i := 0; i < b.N; i++ {
+		r, err := Run(d, &RunSettings{Light: true})
+		if err != nil {
+			b.Fatal(err)
+		}
+		updates += r.Stats.OpticalSteps * r.Stats.Cells
+	}
+	b.ReportMetric(float64(updates)/b.Elapsed().Seconds(), "cell-updates/s")
+	b.ReportMetric(b.Elapsed().Seconds()*1e9/float64(updates), "ns/cell-update")
+}

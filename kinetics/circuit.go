@@ -1,0 +1,165 @@
+package kinetics
+
+import (
+	"math"
+
+	"n2pulse/kinetics/swarm"
+	"n2pulse/units"
+)
+
+// Indices of the circuit–discharge state vector.
+const (
+	iV1      = iota // switch-side capacitor voltage [V]
+	iV2             // channel-side capacitor voltage [V]
+	iIs             // switch-loop current [A]
+	iIc             // channel-loop current [A]
+	iVg             // channel (gap) voltage [V]
+	iIsh            // shunt-inductor current [A]
+	iLnNe           // ln(n_e / m⁻³)
+	iQ              // ∫ I_s² dt of the spark [A² s]
+	iESwitch        // energy dissipated in the switch [J]
+	iEPlasma        // energy delivered to the plasma [J]
+	iEShunt         // energy dissipated in the shunt resistor [J]
+	nState
+)
+
+// circuit is the stiff 0-D system of the circuit and the discharge: the ode.System that the
+// Rosenbrock integrator advances.
+type circuit struct {
+	topo               Topology
+	c1, c2, cg         float64 // [F]
+	ls, lc, lsh, rsh   float64 // [H], [Ω]
+	sw                 Switch
+	q0                 float64 // spark integral at closure that gives R = R_off [A² s]
+	density, gap, area float64 // N [m⁻³], d [m], L·w [m²]
+	beta               float64 // recombination [m³/s]
+	table              *swarm.Table
+
+	// For tests of the circuit alone: when fixed, the plasma is replaced by a constant
+	// conductance [S] and the electron density is frozen.
+	fixed       bool
+	conductance float64
+}
+
+func newCircuit(d *Design, table *swarm.Table) *circuit {
+	ch := d.Channel
+	we := ch.ElectrodeWidth
+	if we == 0 {
+		we = ch.Width
+	}
+	c := &circuit{
+		topo: d.Circuit.Topology,
+		c1:   d.Circuit.SwitchCapacitance, c2: d.Circuit.ChannelCapacitance,
+		cg: units.VacuumPermittivity*ch.Length*we/ch.Gap + ch.StrayCapacitance,
+		ls: d.Circuit.SwitchInductance, lc: d.Circuit.ChannelInductance,
+		lsh: d.Circuit.ShuntInductance, rsh: d.Circuit.ShuntResistance,
+		sw:      d.Switch,
+		density: gasDensity(d.Gas), gap: ch.Gap, area: ch.Length * ch.Width,
+		beta: d.Discharge.Recombination, table: table,
+	}
+	if c.sw.Model == RompeWeizelSwitch {
+		// R(0) = d_g / sqrt((2a/p_g)·q0) = R_off.
+		r := c.sw.Gap / c.sw.OffResistance
+		c.q0 = r * r * c.sw.Pressure / (2 * c.sw.SparkConstant)
+	}
+	return c
+}
+
+// Dim implements ode.System.
+func (c *circuit) Dim() int { return nState }
+
+// initial returns the state at switch closure and the stored energy [J].
+func (c *circuit) initial(v0, seed float64) ([]float64, float64) {
+	y := make([]float64, nState)
+	y[iV1] = v0
+	if c.topo == Blumlein {
+		y[iV2] = v0
+	}
+	y[iLnNe] = math.Log(seed)
+	return y, c.storedEnergy(y)
+}
+
+// storedEnergy is the energy in the capacitors and inductors of state y [J].
+func (c *circuit) storedEnergy(y []float64) float64 {
+	return 0.5 * (c.c1*y[iV1]*y[iV1] + c.c2*y[iV2]*y[iV2] + c.cg*y[iVg]*y[iVg] +
+		c.ls*y[iIs]*y[iIs] + c.lc*y[iIc]*y[iIc] + c.lsh*y[iIsh]*y[iIsh])
+}
+
+// switchResistance is R_s at time t with spark integral q [Ω].
+func (c *circuit) switchResistance(t, q float64) float64 {
+	s := c.sw
+	switch s.Model {
+	case ExponentialSwitch:
+		return s.OnResistance + (s.OffResistance-s.OnResistance)*math.Exp(-t/s.RiseTime)
+	case RompeWeizelSwitch:
+		return s.OnResistance + s.Gap/math.Sqrt(2*s.SparkConstant/s.Pressure*(c.q0+math.Max(q, 0)))
+	}
+	return s.OnResistance
+}
+
+// reducedField is |E|/N for a channel voltage vg [V m²].
+func (c *circuit) reducedField(vg float64) float64 { return math.Abs(vg) / (c.gap * c.density) }
+
+// plasmaCurrent is e·n_e·v_d(E/N)·A with the sign of vg [A].
+func (c *circuit) plasmaCurrent(vg, ne float64) (current float64, k swarm.Coefficients) {
+	k = c.table.At(c.reducedField(vg))
+	return math.Copysign(units.ElementaryCharge*ne*k.DriftVelocity*c.area, vg), k
+}
+
+// Eval implements ode.System.
+func (c *circuit) Eval(t float64, y, dy []float64) error {
+	var ip float64
+	var k swarm.Coefficients
+	ne := math.Exp(y[iLnNe])
+	if c.fixed {
+		ip = c.conductance * y[iVg]
+	} else {
+		ip, k = c.plasmaCurrent(y[iVg], ne)
+	}
+	rs := c.switchResistance(t, y[iQ])
+	v1, v2, is, ic, vg := y[iV1], y[iV2], y[iIs], y[iIc], y[iVg]
+
+	var shunt, vsh float64 // current through the shunt [A] and the voltage across it [V]
+	switch c.topo {
+	case Blumlein:
+		vsh = v2 - v1
+	default:
+		vsh = v2
+	}
+	if c.lsh > 0 {
+		shunt += y[iIsh]
+		dy[iIsh] = vsh / c.lsh
+	} else {
+		dy[iIsh] = 0
+	}
+	dy[iEShunt] = 0
+	if c.rsh > 0 {
+		shunt += vsh / c.rsh
+		dy[iEShunt] = vsh * vsh / c.rsh
+	}
+
+	switch c.topo {
+	case Blumlein:
+		// The switch shorts C₁ through L_s; the channel loop runs from the C₂ plate through
+		// L_c and the gap back to the C₁ plate.
+		dy[iV1] = (ic + shunt - is) / c.c1
+		dy[iV2] = -(ic + shunt) / c.c2
+		dy[iIs] = (v1 - rs*is) / c.ls
+		dy[iIc] = (v2 - v1 - vg) / c.lc
+	default:
+		// The switch connects C_s to C_p through L_s; C_p feeds the gap through L_c.
+		dy[iV1] = -is / c.c1
+		dy[iV2] = (is - ic - shunt) / c.c2
+		dy[iIs] = (v1 - v2 - rs*is) / c.ls
+		dy[iIc] = (v2 - vg) / c.lc
+	}
+	dy[iVg] = (ic - ip) / c.cg
+	dy[iLnNe] = 0
+	if !c.fixed {
+		dy[iLnNe] = (k.Ionisation-k.Attachment)*c.density - c.beta*ne
+	}
+	dy[iQ] = is * is
+	dy[iESwitch] = rs * is * is
+	dy[iEPlasma] = vg * ip
+	return nil
+}
