@@ -356,49 +356,53 @@ func (g *grid) cellOf(e float64) int {
 	return i
 }
 
-// addInelastic adds a process's loss and gain terms to the inelastic operator: loss γ∫εσ over
-// the source cell on the diagonal, and the same electrons placed in the destination cells
-// (ε − u for excitation; (ε − u)/2, twice, for ionisation with equal sharing; ε − u plus one
-// electron in the lowest cell for one-takes-all; none for attachment).
+// addInelastic adds a process's loss and gain terms to the inelastic operator. The loss from
+// source cell j is L_j = x·γ∫εσ dε over the cell (F0 constant in a cell). The scattered
+// electrons go to energy T = ε_j − u (excitation, and the primary with one-takes-all), twice to
+// T = (ε_j − u)/2 (ionisation with equal sharing), or nowhere (attachment); the secondary of a
+// one-takes-all ionisation goes to the lowest cell. A packet at energy T is split between the
+// two cells whose centres bracket T so that both the number and the energy (in the cell-centre
+// energies that the discrete energy balance uses) are conserved exactly: the discrete
+// operator then loses exactly u per collision.
 func (s *Solver) addInelastic(g *grid, pr *proc, x float64) {
 	n := g.n
 	u := pr.u
 	kind := pr.p.Kind
 	for j := 0; j < n; j++ {
-		a, b := g.f[j], g.f[j+1]
-		if b <= u && kind != Attachment {
-			continue
-		}
-		lj := x * gamma * pr.t.integral(a, b)
+		lj := x * gamma * pr.t.integral(g.f[j], g.f[j+1])
 		if lj == 0 {
 			continue
 		}
 		g.inel[j*n+j] += lj
 		switch {
 		case kind == Attachment:
-		case kind == Excitation || (kind == Ionisation && s.set.Sharing == OneTakesAll):
-			lo := math.Max(a, u)
-			for i := g.cellOf(lo - u); i < n && g.f[i]+u < b; i++ {
-				s0 := math.Max(lo, g.f[i]+u)
-				s1 := math.Min(b, g.f[i+1]+u)
-				if s1 > s0 {
-					g.inel[i*n+j] -= x * gamma * pr.t.integral(s0, s1)
-				}
-			}
+		case kind == Ionisation && s.set.Sharing == EqualSharing:
+			g.place(j, (g.c[j]-u)/2, 2*lj)
+		default:
+			g.place(j, g.c[j]-u, lj)
 			if kind == Ionisation {
 				g.inel[0*n+j] -= lj
 			}
-		case kind == Ionisation:
-			lo := math.Max(a, u)
-			for i := g.cellOf((lo - u) / 2); i < n && 2*g.f[i]+u < b; i++ {
-				s0 := math.Max(lo, 2*g.f[i]+u)
-				s1 := math.Min(b, 2*g.f[i+1]+u)
-				if s1 > s0 {
-					g.inel[i*n+j] -= 2 * x * gamma * pr.t.integral(s0, s1)
-				}
-			}
 		}
 	}
+}
+
+// place adds electrons scattered out of cell j at rate coefficient w to the cells around
+// energy e [eV], splitting linearly between the bracketing cell centres.
+func (g *grid) place(j int, e, w float64) {
+	n := g.n
+	if e <= g.c[0] {
+		g.inel[0*n+j] -= w
+		return
+	}
+	if e >= g.c[n-1] {
+		g.inel[(n-1)*n+j] -= w
+		return
+	}
+	i := sort.SearchFloat64s(g.c, e) - 1 // c[i] < e <= c[i+1]
+	p := (g.c[i+1] - e) / (g.c[i+1] - g.c[i])
+	g.inel[i*n+j] -= p * w
+	g.inel[(i+1)*n+j] -= (1 - p) * w
 }
 
 // bernoulli is x/(eˣ − 1).
