@@ -18,8 +18,9 @@ func init() {
 }
 
 func runCheck(args []string, stdout, stderr io.Writer) error {
-	fs := newFlags("check", "[--strict]", stderr)
+	fs := newFlags("check", "[--strict] [--report DIR]", stderr)
 	strict := fs.Bool("strict", false, "exit 1 also on a discrepancy with a published experiment")
+	report := fs.String("report", "", "write the validation report (checks.md, checks.csv, overlay figures) into `DIR`")
 	if help, err := parseFlags(fs, args); help || err != nil {
 		return err
 	}
@@ -27,6 +28,11 @@ func runCheck(args []string, stdout, stderr io.Writer) error {
 		return usagef("check: takes no arguments, got %q", fs.Args())
 	}
 	checks := validation.RunAll()
+	if *report != "" {
+		if err := validation.WriteReport(*report, checks); err != nil {
+			return err
+		}
+	}
 	failed, discrepant := printChecks(stdout, checks)
 	fmt.Fprintf(stdout, "\n%d checks: %d passed, %d failed, %d discrepancies with experiments\n",
 		len(checks), len(checks)-failed-discrepant, failed, discrepant)
