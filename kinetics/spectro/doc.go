@@ -42,8 +42,16 @@
 // The rotationless radial equation −(ħ²/2μ)ψ″ + V(r)ψ = Eψ is solved on a uniform grid with
 // the sinc discrete-variable representation (the infinite-order finite-difference limit) of
 // Colbert & Miller, J. Chem. Phys. 96, 1982 (1992), or the three-point difference, by a dense
-// symmetric eigen-decomposition (gonum mat.EigenSym). The potentials are Morse curves
-// V = De(1 − e^(−a(r−re)))², De = ωe²/4ωexe, a = √(2μωexe)/ħ, built from ωe, ωexe and re.
+// symmetric eigen-decomposition (gonum mat.EigenSym). The potentials are first-order
+// Rydberg–Klein–Rees curves (default) built from G(v) and B_v,
+//
+//	f = √k ∫ dv′/√(G(v)−G(v′)),  g = (1/√k) ∫ B(v′) dv′/√(G(v)−G(v′)),  r± = √(f/g + f²) ± f,
+//
+// with k = ħ²/2μ, interpolated in y = ±√V by a cubic spline and continued by the Morse shape
+// beyond the fitted levels (C: v ≤ 6, B: v ≤ 12, X: v ≤ 15); or Morse curves
+// V = De(1 − e^(−a(r−re)))², De = ωe²/4ωexe, a = √(2μωexe)/ħ. With RKR curves the v′ = 0
+// progression reproduces the published Franck–Condon factors to 0.003; Morse curves are
+// 0.017 high in q(0,0). Both become poor for v′ ≥ 2 of C, whose constants cover v ≤ 4 only.
 // Franck–Condon factors and r-centroids are
 //
 //	q(v′,v″) = |⟨v′|v″⟩|²,   r̄(v′,v″) = ⟨v′|r|v″⟩/⟨v′|v″⟩.

@@ -31,5 +31,5 @@ func ExampleLaser() {
 	}
 	fmt.Printf("λ_air %.3f nm, σ_eff %.2g m², g_C/g_B %.2f, τ_C %.1f ns\n",
 		lp.AirWavelength*1e9, lp.CrossSection, lp.DegeneracyRatio, lp.UpperLifetime*1e9)
-	// Output: λ_air 337.109 nm, σ_eff 1.5e-19 m², g_C/g_B 0.83, τ_C 39.6 ns
+	// Output: λ_air 337.109 nm, σ_eff 1.4e-19 m², g_C/g_B 0.83, τ_C 39.9 ns
 }

@@ -74,7 +74,7 @@ func defaultModel() (*Model, error) {
 			cacheErr = err
 			return
 		}
-		m, err := NewModel(c, DefaultGrid)
+		m, err := NewModel(c, DefaultGrid, RKRCurve)
 		if err != nil {
 			cacheErr = err
 			return

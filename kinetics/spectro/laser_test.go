@@ -104,7 +104,7 @@ func BenchmarkModel(b *testing.B) {
 		b.Fatal(err)
 	}
 	for b.Loop() {
-		if _, err := NewModel(c, DefaultGrid); err != nil {
+		if _, err := NewModel(c, DefaultGrid, RKRCurve); err != nil {
 			b.Fatal(err)
 		}
 	}

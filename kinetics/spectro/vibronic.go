@@ -18,21 +18,44 @@ var DefaultGrid = Grid{RMin: 0.75, RMax: 2.6, N: 240}
 // levelsPerState is how many vibrational levels of each state are kept.
 const levelsPerState = 30
 
+// rkrVmax is the highest level of each state's RKR curve. The C constants were fitted to
+// v ≤ 4 (Laher & Gilmore 1991); the curve is carried two levels further (G still rises to
+// v ≈ 9) so that v = 4 lies inside it; beyond, the Morse curve takes over.
+var rkrVmax = map[string]int{"X": 15, "B": 12, "C": 6}
+
+// Curve selects the potential energy curves of the Franck–Condon calculation.
+type Curve int
+
+const (
+	// RKRCurve is the first-order RKR curve from G(v) and B_v (default).
+	RKRCurve Curve = iota
+	// MorseCurve is the Morse curve from ωe, ωexe and re.
+	MorseCurve
+)
+
 // Model holds the vibrational wave functions of X, B and C on one grid and the quantities
 // derived from them: Franck–Condon factors, r-centroids, Einstein coefficients, lifetimes.
 type Model struct {
 	Constants *Constants
 	Grid      Grid
+	Curve     Curve
 	levels    map[string]*Levels
 }
 
-// NewModel solves the radial equation for the Morse potentials of the states X, B and C of c
-// on grid g.
-func NewModel(c *Constants, g Grid) (*Model, error) {
-	m := &Model{Constants: c, Grid: g, levels: map[string]*Levels{}}
+// NewModel solves the radial equation for the potential curves (RKR or Morse) of the states
+// X, B and C of c on grid g.
+func NewModel(c *Constants, g Grid, curve Curve) (*Model, error) {
+	m := &Model{Constants: c, Grid: g, Curve: curve, levels: map[string]*Levels{}}
 	mu := c.ReducedMass()
 	for _, name := range []string{"X", "B", "C"} {
-		lv, err := SolveRadial(Morse(c.States[name], mu), mu, g, SincDVR, levelsPerState)
+		V := Morse(c.States[name], mu)
+		if curve == RKRCurve {
+			var err error
+			if V, err = RKR(c.States[name], mu, rkrVmax[name]); err != nil {
+				return nil, err
+			}
+		}
+		lv, err := SolveRadial(V, mu, g, SincDVR, levelsPerState)
 		if err != nil {
 			return nil, fmt.Errorf("spectro: state %s: %w", name, err)
 		}
