@@ -263,18 +263,19 @@ func peak(x []float64) (float64, int) {
 	return best, at
 }
 
-// crossings returns the fractional indices where x crosses level before and after index k,
-// interpolating linearly.
+// crossings returns the fractional indices where x first rises through level and where it
+// last falls through it: the outermost half-maximum points of a pulse that may have several
+// spikes (the full width of the envelope). k is the index of the maximum.
 func crossings(x []float64, k int, level float64) (before, after float64) {
 	before, after = 0, float64(len(x)-1)
-	for i := k; i > 0; i-- {
-		if x[i-1] < level {
+	for i := 1; i <= k; i++ {
+		if x[i] >= level && x[i-1] < level {
 			before = float64(i-1) + (level-x[i-1])/(x[i]-x[i-1])
 			break
 		}
 	}
-	for i := k; i < len(x)-1; i++ {
-		if x[i+1] < level {
+	for i := len(x) - 2; i >= k; i-- {
+		if x[i] >= level && x[i+1] < level {
 			after = float64(i) + (x[i]-level)/(x[i]-x[i+1])
 			break
 		}
