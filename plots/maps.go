@@ -79,6 +79,21 @@ func sweepValue(t *study.Table, r, col int) float64 {
 	return t.Float(r, col)
 }
 
+// Optimum returns the row of a sweep table with the best computed value of metric (the largest,
+// or the smallest for widths, times and residuals) and the word for it ("maximum" or
+// "minimum"); the row is −1 when no point was computed or the metric is not a column.
+func Optimum(t *study.Table, metric string) (row int, word string) {
+	col := t.Column(metric)
+	if col < 0 {
+		return -1, optimumWord(metric)
+	}
+	v := make([]float64, len(t.Rows))
+	for r := range v {
+		v[r] = sweepValue(t, r, col)
+	}
+	return optimum(v, metric), optimumWord(metric)
+}
+
 // optimum returns the index of the best finite value, or −1.
 func optimum(v []float64, metric string) int {
 	best := -1

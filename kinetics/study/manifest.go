@@ -57,7 +57,8 @@ func ReadManifest(dir string) (*Manifest, error) {
 	return &m, nil
 }
 
-func (m *Manifest) write(path string) error {
+// Write saves the manifest as JSON at path, atomically.
+func (m *Manifest) Write(path string) error {
 	b, err := json.MarshalIndent(m, "", "  ")
 	if err != nil {
 		return fmt.Errorf("study: %w", err)

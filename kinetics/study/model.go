@@ -1,12 +1,13 @@
 package study
 
-import (
-	"errors"
+import "n2pulse/kinetics"
 
-	"n2pulse/kinetics"
-)
-
-// ModelRunner runs the full model on d and keeps only the figures of merit.
+// ModelRunner runs the full model on d (kinetics.Run without waveforms) and keeps only the
+// figures of merit.
 func ModelRunner(d *kinetics.Design) (kinetics.Summary, error) {
-	return kinetics.Summary{}, errors.New("study: the model (kinetics.Run) is not in this build yet")
+	r, err := kinetics.Run(d, &kinetics.RunSettings{Light: true})
+	if err != nil {
+		return kinetics.Summary{}, err
+	}
+	return r.Summary, nil
 }

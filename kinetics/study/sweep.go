@@ -220,7 +220,7 @@ func (s *Sweep) prepare(m *Manifest) error {
 		if _, jerr := os.Stat(filepath.Join(s.Dir, JournalFile)); jerr == nil {
 			return fmt.Errorf("study: %s holds a journal but no %s; refusing to mix sweeps", s.Dir, ManifestFile)
 		}
-		return m.write(path)
+		return m.Write(path)
 	case err != nil:
 		return err
 	case !s.Resume:
