@@ -130,26 +130,50 @@ func (m *Model) GainLines(vu, vl int, p, T float64) ([]GainLine, error) {
 }
 
 func (m *Model) gainLines(lines []Line, vu, vl int, p, T float64) []GainLine {
-	up, lo := m.Constants.States["C"], m.Constants.States["B"]
-	sC := RotationalShares(up, vu, T, gainJmax+1)
-	sB := RotationalShares(lo, vl, T, gainJmax+1)
-	spin := float64(up.Multiplicity)
-	fL := m.Constants.CollisionFWHM(p, T)
+	gc := m.newGainContext(vu, vl, p, T)
 	out := make([]GainLine, len(lines))
 	for i, l := range lines {
-		nu := units.SpeedOfLight / l.VacuumWavelength
-		fD := DopplerFWHM(nu, T, units.NitrogenMass)
-		lam := l.VacuumWavelength
-		sig := lam * lam / (8 * math.Pi) * l.A * Voigt(0, fD, fL)
-		g := GainLine{Line: l, DopplerFWHM: fD, CollisionFWHM: fL, PeakSigma: sig,
-			UpperShare: sC[l.JUpper] / spin, LowerShare: sB[l.JLower] / spin,
-			LineRatio: float64(2*l.JUpper+1) / float64(2*l.JLower+1)}
-		g.Effective = sig * g.UpperShare
-		g.EffectiveRatio = g.LineRatio * g.LowerShare / g.UpperShare
-		out[i] = g
+		out[i] = gc.line(l)
 	}
 	sort.SliceStable(out, func(i, j int) bool { return out[i].Effective > out[j].Effective })
 	return out
+}
+
+// gainContext holds what the lines of one band share at one p and T.
+type gainContext struct {
+	sC, sB []float64
+	spin   float64
+	fL, T  float64
+}
+
+func (m *Model) newGainContext(vu, vl int, p, T float64) gainContext {
+	up, lo := m.Constants.States["C"], m.Constants.States["B"]
+	return gainContext{
+		sC:   RotationalShares(up, vu, T, gainJmax+1),
+		sB:   RotationalShares(lo, vl, T, gainJmax+1),
+		spin: float64(up.Multiplicity),
+		fL:   m.Constants.CollisionFWHM(p, T),
+		T:    T,
+	}
+}
+
+func (gc gainContext) lineNoWidth(l Line) GainLine {
+	nu := units.SpeedOfLight / l.VacuumWavelength
+	fD := DopplerFWHM(nu, gc.T, units.NitrogenMass)
+	lam := l.VacuumWavelength
+	sig := lam * lam / (8 * math.Pi) * l.A * Voigt(0, fD, gc.fL)
+	g := GainLine{Line: l, DopplerFWHM: fD, CollisionFWHM: gc.fL, PeakSigma: sig,
+		UpperShare: gc.sC[l.JUpper] / gc.spin, LowerShare: gc.sB[l.JLower] / gc.spin,
+		LineRatio: float64(2*l.JUpper+1) / float64(2*l.JLower+1)}
+	g.Effective = sig * g.UpperShare
+	g.EffectiveRatio = g.LineRatio * g.LowerShare / g.UpperShare
+	return g
+}
+
+func (gc gainContext) line(l Line) GainLine {
+	g := gc.lineNoWidth(l)
+	g.FWHM = VoigtFWHM(g.DopplerFWHM, g.CollisionFWHM)
+	return g
 }
 
 // Laser returns the spectroscopic parameters of the (0,0) band at pressure p [Pa] and
@@ -179,11 +203,29 @@ func Laser(pressure, temperature float64) (LaserParameters, error) {
 	}, nil
 }
 
-// strongest returns the (0,0) line of largest effective cross section, with its Voigt FWHM,
-// without sorting the whole list.
+// strongest returns the (0,0) line of largest effective cross section without building and
+// sorting the whole table: the effective cross section is ranked on A·s_C(J′), which orders the
+// lines as σ_eff does up to the 1e−4 spread of λ² and the Doppler width across the band, and
+// the leading candidates are then compared exactly.
 func (m *Model) strongest(p, T float64) GainLine {
-	gl := m.gainLines(cache.lines, 0, 0, p, T)
-	best := gl[0]
+	gc := m.newGainContext(0, 0, p, T)
+	var best GainLine
+	for _, l := range cache.lines {
+		if l.Branch == Q { // Q lines carry S ∝ 1/J and never lead
+			continue
+		}
+		// cheap upper bound first: σ_eff ∝ λ²·A·s_C
+		if best.Effective > 0 {
+			bound := l.VacuumWavelength * l.VacuumWavelength * l.A * gc.sC[l.JUpper]
+			ref := best.VacuumWavelength * best.VacuumWavelength * best.A * gc.sC[best.JUpper]
+			if bound < 0.99*ref {
+				continue
+			}
+		}
+		if g := gc.lineNoWidth(l); g.Effective > best.Effective {
+			best = g
+		}
+	}
 	best.FWHM = VoigtFWHM(best.DopplerFWHM, best.CollisionFWHM)
 	return best
 }

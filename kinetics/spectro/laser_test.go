@@ -109,3 +109,25 @@ func BenchmarkModel(b *testing.B) {
 		}
 	}
 }
+
+// The fast search in Laser picks the same line as the fully sorted table (consistency of the two
+// code paths) over the accepted range of pressure and temperature.
+func TestLaserMatchesTable(t *testing.T) {
+	m := testModel(t)
+	for _, p := range []float64{1, 100, 1e4, units.Atmosphere, 1e6} {
+		for _, T := range []float64{77, 300, 600, 1500} {
+			lp, err := Laser(p, T)
+			if err != nil {
+				t.Fatal(err)
+			}
+			gl, err := m.GainLines(0, 0, p, T)
+			if err != nil {
+				t.Fatal(err)
+			}
+			if lp.CrossSection != gl[0].Effective || lp.LineWidth != gl[0].FWHM {
+				t.Errorf("p=%g T=%g: Laser σ %g width %g, table %v(%d) σ %g width %g", p, T,
+					lp.CrossSection, lp.LineWidth, gl[0].Branch, gl[0].JLower, gl[0].Effective, gl[0].FWHM)
+			}
+		}
+	}
+}
