@@ -1,0 +1,48 @@
+package main
+
+import (
+	"fmt"
+	"io"
+	"os"
+
+	"n2pulse/data"
+	"n2pulse/kinetics"
+)
+
+func init() {
+	register(command{
+		name:    "init",
+		summary: "write a commented example design file (a bench-top atmospheric laser)",
+		run:     runInit,
+	})
+}
+
+func runInit(args []string, stdout, stderr io.Writer) error {
+	fs := newFlags("init", "[FILE] [--all] [--force]", stderr)
+	all := fs.Bool("all", false, "print every design key with its default value (SI), instead of the example")
+	force := fs.Bool("force", false, "overwrite FILE if it exists")
+	if help, err := parseFlags(fs, args); help || err != nil {
+		return err
+	}
+	if fs.NArg() > 1 {
+		return usagef("init: takes at most one file name")
+	}
+	text := data.ExampleDesign()
+	if *all {
+		text = []byte("# every key of a design file, with the defaults in SI (apparatus keys have no default)\n" +
+			kinetics.Defaults().String())
+	}
+	if fs.NArg() == 0 {
+		_, err := stdout.Write(text)
+		return err
+	}
+	path := fs.Arg(0)
+	if _, err := os.Stat(path); err == nil && !*force {
+		return fmt.Errorf("init: %s exists; use --force to overwrite", path)
+	}
+	if err := writeFileAtomic(path, text); err != nil {
+		return fmt.Errorf("init: %w", err)
+	}
+	fmt.Fprintf(stderr, "wrote %s\n", path)
+	return nil
+}

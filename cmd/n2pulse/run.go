@@ -1,0 +1,200 @@
+package main
+
+import (
+	"bufio"
+	"bytes"
+	"encoding/json"
+	"fmt"
+	"io"
+	"os"
+	"path/filepath"
+	"strings"
+
+	"n2pulse/kinetics"
+	"n2pulse/units"
+)
+
+func init() {
+	register(command{
+		name:    "run",
+		summary: "simulate one shot of a design and print the pulse it makes",
+		run:     runRun,
+	})
+}
+
+// loadDesign reads the design named by args (or the built-in example) and applies --set.
+func loadDesign(args []string, sets []string) (*kinetics.Design, error) {
+	var d *kinetics.Design
+	switch len(args) {
+	case 0:
+		d = kinetics.ExampleDesign()
+	case 1:
+		var err error
+		if d, err = kinetics.LoadDesign(args[0]); err != nil {
+			return nil, err
+		}
+	default:
+		return nil, usagef("takes at most one design file, got %d arguments", len(args))
+	}
+	for _, s := range sets {
+		key, value, ok := strings.Cut(s, "=")
+		if !ok {
+			return nil, usagef("--set %q: want key=value, e.g. --set gas.pressure=\"40 Torr\"", s)
+		}
+		if err := d.Set(strings.TrimSpace(key), strings.TrimSpace(value)); err != nil {
+			return nil, err
+		}
+	}
+	if err := d.Validate(); err != nil {
+		return nil, err
+	}
+	return d, nil
+}
+
+func runRun(args []string, stdout, stderr io.Writer) error {
+	fs := newFlags("run", "[DESIGN] [--out DIR] [--json] [--set key=value …]", stderr)
+	out := fs.String("out", "", "write waveforms.csv, summary.json and the figures to this directory")
+	asJSON := fs.Bool("json", false, "print the summary as JSON on stdout")
+	sets := fs.StringArray("set", nil, "override a design key, e.g. --set gas.pressure=\"40 Torr\" (repeatable)")
+	stats := fs.Bool("stats", false, "print solver statistics")
+	if help, err := parseFlags(fs, args); help || err != nil {
+		return err
+	}
+	d, err := loadDesign(fs.Args(), *sets)
+	if err != nil {
+		return err
+	}
+	res, err := kinetics.Run(d, nil)
+	if err != nil {
+		return err
+	}
+	if *asJSON {
+		b, err := json.MarshalIndent(res.Summary, "", "  ")
+		if err != nil {
+			return err
+		}
+		fmt.Fprintln(stdout, string(b))
+	} else {
+		printSummary(stdout, d, res)
+	}
+	for _, w := range res.Warnings {
+		fmt.Fprintln(stderr, "warning:", w)
+	}
+	if *stats {
+		s := res.Stats
+		fmt.Fprintf(stderr, "circuit: %d steps, %d rejected, %d evaluations; optics: %d steps × %d cells; swarm lookups clamped: %d below, %d above\n",
+			s.CircuitSteps, s.CircuitRejected, s.CircuitEvals, s.OpticalSteps, s.Cells, s.TableBelow, s.TableAbove)
+	}
+	if *out != "" {
+		if err := writeRunOutputs(*out, d, res); err != nil {
+			return err
+		}
+		fmt.Fprintf(stderr, "wrote %s\n", *out)
+	}
+	return nil
+}
+
+// printSummary writes the readable summary and the caution line.
+func printSummary(w io.Writer, d *kinetics.Design, r *kinetics.Result) {
+	s := r.Summary
+	name := d.Name
+	if name == "" {
+		name = "design"
+	}
+	fmt.Fprintf(w, "%s\n", name)
+	row := func(label, value string) { fmt.Fprintf(w, "  %-28s %s\n", label, value) }
+	row("pulse energy, output end", units.Format(s.EnergyFront, "J"))
+	row("pulse energy, rear end", units.Format(s.EnergyRear, "J"))
+	row("peak power, output end", units.Format(s.PeakPower, "W"))
+	row("FWHM", units.Format(s.FWHM, "s"))
+	row("rise 10–90 %", units.Format(s.Rise, "s"))
+	row("delay from switch closure", units.Format(s.Delay, "s"))
+	row("efficiency", fmt.Sprintf("%.3g %% of %s stored", 100*s.Efficiency, units.Format(s.StoredEnergy, "J")))
+	row("energy into the plasma", units.Format(s.DepositedEnergy, "J"))
+	row("peak E/N", fmt.Sprintf("%.0f Td", s.PeakReducedField))
+	row("peak current", units.Format(s.PeakCurrent, "A"))
+	row("peak electron density", fmt.Sprintf("%.3g cm⁻³", s.PeakElectronDensity*1e-6))
+	row("peak gain", fmt.Sprintf("%.3g cm⁻¹ (gain × length %.3g)", s.PeakGain/100, s.GainLength))
+	row("inversion duration", units.Format(s.InversionDuration, "s"))
+	row("self-termination", fmt.Sprintf("%s at %s", s.TerminationCause, units.Format(s.TerminationTime, "s")))
+	lases := "yes"
+	if !s.Lases {
+		lases = "no (spontaneous emission is not amplified tenfold)"
+	}
+	row("lases", lases)
+	row("energy / photon balance", fmt.Sprintf("%.1e / %.1e", s.EnergyBalanceResidual, s.PhotonBalanceResidual))
+	p := r.Parameters
+	row("σ, g_C/g_B, A₀₀, τ_C", fmt.Sprintf("%.3g cm², %.3g, %.3g s⁻¹, %s", p.CrossSection*1e4, p.DegeneracyRatio, p.EinsteinA00, units.Format(p.UpperLifetime, "s")))
+	if len(s.Overridden) > 0 {
+		row("taken from the design", strings.Join(s.Overridden, ", "))
+	}
+	if c := caution(s.StoredEnergy, s.EnergyTotal); c != "" {
+		fmt.Fprintln(w, "\n"+c)
+	}
+}
+
+// caution returns the safety line for a design whose stored or pulse energy is above harmless
+// levels (0.1 J stored: common practice, no source; a 337 nm pulse of 1 µJ exceeds eye
+// exposure limits, common practice, no source).
+func caution(stored, pulse float64) string {
+	var parts []string
+	if stored > 0.1 {
+		parts = append(parts, fmt.Sprintf("the capacitors store %s at high voltage, which can kill", units.Format(stored, "J")))
+	}
+	if pulse > 1e-6 {
+		parts = append(parts, "the 337 nm pulse can injure eyes and skin")
+	}
+	if len(parts) == 0 {
+		return ""
+	}
+	return "Caution: " + strings.Join(parts, "; ") + ". Follow local electrical codes and licensed laser-safety practice."
+}
+
+// writeRunOutputs writes waveforms.csv, summary.json and the figures into dir.
+func writeRunOutputs(dir string, d *kinetics.Design, r *kinetics.Result) error {
+	if err := os.MkdirAll(dir, 0o755); err != nil {
+		return err
+	}
+	var csv bytes.Buffer
+	bw := bufio.NewWriter(&csv)
+	fmt.Fprintln(bw, "time_s,channel_voltage_V,current_A,reduced_field_Td,electron_density_m3,upper_level_m3,lower_level_m3,power_front_W,power_rear_W,mean_gain_per_m")
+	for k := range r.Time {
+		fmt.Fprintf(bw, "%.6e,%.6e,%.6e,%.6e,%.6e,%.6e,%.6e,%.6e,%.6e,%.6e\n", r.Time[k], r.ChannelVoltage[k], r.Current[k],
+			r.ReducedField[k]/units.Townsend, r.ElectronDensity[k], r.UpperLevel[k], r.LowerLevel[k],
+			r.PowerFront[k], r.PowerRear[k], r.MeanGain[k])
+	}
+	bw.Flush()
+	if err := writeFileAtomic(filepath.Join(dir, "waveforms.csv"), csv.Bytes()); err != nil {
+		return err
+	}
+	js, err := json.MarshalIndent(r.Summary, "", "  ")
+	if err != nil {
+		return err
+	}
+	if err := writeFileAtomic(filepath.Join(dir, "summary.json"), append(js, '\n')); err != nil {
+		return err
+	}
+	return writeRunFigures(dir, d, r)
+}
+
+// writeFileAtomic writes b to a temporary file beside path and renames it into place.
+func writeFileAtomic(path string, b []byte) error {
+	f, err := os.CreateTemp(filepath.Dir(path), "."+filepath.Base(path)+".tmp*")
+	if err != nil {
+		return err
+	}
+	if _, err := f.Write(b); err != nil {
+		f.Close()
+		os.Remove(f.Name())
+		return err
+	}
+	if err := f.Close(); err != nil {
+		os.Remove(f.Name())
+		return err
+	}
+	if err := os.Rename(f.Name(), path); err != nil {
+		os.Remove(f.Name())
+		return err
+	}
+	return nil
+}

@@ -1,0 +1,37 @@
+package main
+
+import (
+	"path/filepath"
+
+	"n2pulse/kinetics"
+	"n2pulse/plots"
+)
+
+// writeRunFigures draws the pulse report and the gain map of one shot as PNG and SVG.
+func writeRunFigures(dir string, d *kinetics.Design, r *kinetics.Result) error {
+	pd := plots.PulseData{
+		Title:           d.Name,
+		Time:            r.Time,
+		ChannelVoltage:  r.ChannelVoltage,
+		Current:         r.Current,
+		ReducedField:    r.ReducedField,
+		ElectronDensity: r.ElectronDensity,
+		UpperLevel:      r.UpperLevel,
+		LowerLevel:      r.LowerLevel,
+		PowerFront:      r.PowerFront,
+		PowerRear:       r.PowerRear,
+	}
+	if s := r.Summary; s.FWHM > 0 {
+		pd.FWHMStart = s.Delay
+		pd.FWHMEnd = s.Delay + s.FWHM
+	}
+	for _, ext := range []string{".png", ".svg"} {
+		if err := plots.PulseReport(filepath.Join(dir, "pulse-report"+ext), pd); err != nil {
+			return err
+		}
+		if err := plots.GainMap(filepath.Join(dir, "gain-map"+ext), r.Z, r.GainTime, r.Gain); err != nil {
+			return err
+		}
+	}
+	return nil
+}
