@@ -45,7 +45,7 @@ func laserChecks() ([]Check, error) {
 			Source: "conservation of photons (the issue's tolerance 1e-3)"},
 		{ID: "laser.example.self_terminates", Quantity: "the inversion of the example ends by the lower-level bottleneck or extraction (1 = yes)",
 			Computed: b2f(base.TerminationCause == "lower-level bottleneck" || base.TerminationCause == "extraction by the pulse"),
-			Mode: True, Kind: CommonPractice,
+			Mode:     True, Kind: CommonPractice,
 			Source: "common practice, no source: the N₂ laser self-terminates because B(0) outlives C(0) (cause found: " + base.TerminationCause + ")"},
 	}
 
