@@ -9,9 +9,9 @@ import (
 type Branch int
 
 const (
-	P Branch = iota - 1
-	Q
-	R
+	P Branch = iota - 1 // P: J′ = J″ − 1
+	Q                   // Q: J′ = J″
+	R                   // R: J′ = J″ + 1
 )
 
 // String returns "P", "Q" or "R".
@@ -40,8 +40,9 @@ type Line struct {
 }
 
 // HonlLondon returns the Hönl–London factor of a ΔΛ = 0 transition between levels with
-// projection lambda (≥ 1) for the branch b and lower-level J″, in the form of G. Herzberg,
-// Spectra of Diatomic Molecules (1950), eq. (V,46) (from memory):
+// projection lambda (≥ 1) for the branch b and lower-level J″, in the form given by G. Herzberg,
+// Spectra of Diatomic Molecules (1950), chapter V (from memory; checked by the sum rule in the
+// tests):
 // S_R = (J″+1+Λ)(J″+1−Λ)/(J″+1), S_Q = (2J″+1)Λ²/(J″(J″+1)), S_P = (J″+Λ)(J″−Λ)/J″.
 // It returns 0 where the line does not exist (J′ or J″ < Λ).
 func HonlLondon(b Branch, jLower, lambda int) float64 {
