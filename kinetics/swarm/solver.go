@@ -244,6 +244,8 @@ type Result struct {
 	Rates  []Rate
 
 	GrowthRate          float64 // ν̄/N = Σ k_ion − Σ k_att (two-body) [m³/s]
+	DiffusionN          float64 // transverse diffusion N·D_T = (γ/3) ∫ ε/σ̃ F0 dε [m⁻¹ s⁻¹]
+	Characteristic      float64 // characteristic energy e·D_T/μ [J]
 	ThreeBodyAttachment float64 // three-body part of Attachment at the reference density [m³/s]
 	PowerField          float64 // (E/N)·e·w [J m³/s]
 	PowerElastic        float64 // elastic recoil minus heating by the gas [J m³/s]
@@ -360,7 +362,7 @@ func (g *grid) cellOf(e float64) int {
 // source cell j is L_j = x·γ∫εσ dε over the cell (F0 constant in a cell). The scattered
 // electrons go to energy T = ε_j − u (excitation, and the primary with one-takes-all), twice to
 // T = (ε_j − u)/2 (ionisation with equal sharing), or nowhere (attachment); the secondary of a
-// one-takes-all ionisation goes to the lowest cell. A packet at energy T is split between the
+// one-takes-all ionisation goes to the lowest cell (the primary then goes to ε_j − u − ε_0). A packet at energy T is split between the
 // two cells whose centres bracket T so that both the number and the energy (in the cell-centre
 // energies that the discrete energy balance uses) are conserved exactly: the discrete
 // operator then loses exactly u per collision.
@@ -378,11 +380,12 @@ func (s *Solver) addInelastic(g *grid, pr *proc, x float64) {
 		case kind == Attachment:
 		case kind == Ionisation && s.set.Sharing == EqualSharing:
 			g.place(j, (g.c[j]-u)/2, 2*lj)
+		case kind == Ionisation: // one takes all: the secondary sits in the lowest cell, at
+			// energy c_0, which the primary gives up so that energy is conserved exactly
+			g.place(j, g.c[j]-u-g.c[0], lj)
+			g.inel[0*n+j] -= lj
 		default:
 			g.place(j, g.c[j]-u, lj)
-			if kind == Ionisation {
-				g.inel[0*n+j] -= lj
-			}
 		}
 	}
 }
@@ -629,6 +632,20 @@ func (s *Solver) result(st *state) *Result {
 	// mobility from the face gradients: μN = −(γ/3) ∫ ε/σ̃ dF0/dε dε
 	muN := 0.0
 	pel := 0.0
+	dN := 0.0
+	for i := 0; i < n; i++ {
+		// σ̃ at the cell centre from the neighbouring faces (the end cells use their inner face)
+		var st1 float64
+		switch {
+		case i == 0:
+			st1 = st.sigmaTilde[1]
+		case i == n-1:
+			st1 = st.sigmaTilde[n-1]
+		default:
+			st1 = (st.sigmaTilde[i] + st.sigmaTilde[i+1]) / 2
+		}
+		dN += gamma / 3 * g.c[i] / st1 * F[i] * (g.f[i+1] - g.f[i])
+	}
 	for k := 1; k < n; k++ {
 		e := g.f[k]
 		h := g.c[k] - g.c[k-1]
@@ -669,6 +686,10 @@ func (s *Solver) result(st *state) *Result {
 				kC += k
 			}
 		}
+	}
+	r.DiffusionN = dN
+	if muN > 0 {
+		r.Characteristic = dN / muN * ev
 	}
 	r.PowerField = en * w * ev
 	r.PowerElastic = pel * ev
