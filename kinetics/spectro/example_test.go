@@ -33,3 +33,13 @@ func ExampleLaser() {
 		lp.AirWavelength*1e9, lp.CrossSection, lp.DegeneracyRatio, lp.UpperLifetime*1e9)
 	// Output: λ_air 337.109 nm, σ_eff 1.4e-19 m², g_C/g_B 0.83, τ_C 39.9 ns
 }
+
+// The Voigt profile of a 337 nm line at 300 K: Doppler FWHM 2.08 GHz with a 3 GHz collision
+// width; peak value and full width at half maximum.
+func ExampleVoigt() {
+	fD := spectro.DopplerFWHM(2.9671e6*299792458, 300, 28.0134*1.66053906660e-27)
+	fL := 3e9
+	fmt.Printf("Doppler %.3f GHz, peak %.3e 1/Hz, FWHM %.3f GHz\n",
+		fD/1e9, spectro.Voigt(0, fD, fL), spectro.VoigtFWHM(fD, fL)/1e9)
+	// Output: Doppler 2.085 GHz, peak 1.708e-10 1/Hz, FWHM 4.113 GHz
+}

@@ -3,6 +3,8 @@ package spectro
 import (
 	"math"
 	"testing"
+
+	"gonum.org/v1/gonum/integrate/quad"
 )
 
 // For Morse levels the RKR width f = (r₊ − r₋)/2 is exact (first-order WKB quantisation is exact
@@ -69,5 +71,48 @@ func TestRKRErrors(t *testing.T) {
 	// the C-state Dunham series turns over near v ≈ 9
 	if _, err := RKR(c.States["C"], c.ReducedMass(), 12); err == nil {
 		t.Error("RKR(C, vmax=12) gave no error")
+	}
+}
+
+// Quadrature convergence of the RKR integrals: the turning points with 64 Gauss–Legendre nodes
+// agree with 256 nodes to 1e−7 Å (numerical convergence).
+func TestRKRQuadratureConvergence(t *testing.T) {
+	c := testConstants(t)
+	mu := c.ReducedMass()
+	s := c.States["C"]
+	k := KineticConstant(mu)
+	for _, v := range []float64{-0.3, 0, 2, 5} {
+		in, out := RKRTurningPoints(s, mu, v)
+		x := v + 0.5
+		gv := gCont(s, x)
+		ff := func(t float64) float64 { xp := x * (1 - t*t); return 2 * x * t / math.Sqrt(gv-gCont(s, xp)) }
+		gg := func(t float64) float64 {
+			xp := x * (1 - t*t)
+			return bCont(s, xp) * 2 * x * t / math.Sqrt(gv-gCont(s, xp))
+		}
+		f := math.Sqrt(k) * quad.Fixed(ff, 0, 1, 256, nil, 0)
+		g := quad.Fixed(gg, 0, 1, 256, nil, 0) / math.Sqrt(k)
+		root := math.Sqrt(f/g + f*f)
+		if math.Abs(in-(root-f)) > 1e-7 || math.Abs(out-(root+f)) > 1e-7 {
+			t.Errorf("v=%g: 64 nodes %.9f, %.9f; 256 nodes %.9f, %.9f", v, in, out, root-f, root+f)
+		}
+	}
+}
+
+// Grid convergence of the Franck–Condon factors: the default grid and one 1.5 times finer agree
+// to 1e−6 (numerical convergence of the sinc-DVR wave functions).
+func TestFranckCondonGridConvergence(t *testing.T) {
+	c := testConstants(t)
+	fine, err := NewModel(c, Grid{DefaultGrid.RMin, DefaultGrid.RMax, 3*(DefaultGrid.N-1)/2 + 1}, RKRCurve)
+	if err != nil {
+		t.Fatal(err)
+	}
+	m := testModel(t)
+	for vl := 0; vl <= 4; vl++ {
+		q1, _, _ := m.FranckCondon("C", 0, "B", vl)
+		q2, _, _ := fine.FranckCondon("C", 0, "B", vl)
+		if math.Abs(q1-q2) > 1e-6 {
+			t.Errorf("q(0,%d): default grid %.8f, fine grid %.8f", vl, q1, q2)
+		}
 	}
 }
