@@ -1,0 +1,130 @@
+package main
+
+import (
+	"context"
+	"errors"
+	"fmt"
+	"io"
+	"math"
+	"os"
+	"os/signal"
+	"path/filepath"
+	"runtime"
+	"syscall"
+	"text/tabwriter"
+
+	"n2pulse/kinetics/study"
+	"n2pulse/plots"
+	"n2pulse/units"
+)
+
+func init() {
+	register(command{
+		name:    "length",
+		summary: "scan the channel length: energy, peak power and FWHM, the useful length and c × gain duration",
+		run:     runLength,
+	})
+}
+
+func runLength(args []string, stdout, stderr io.Writer) error {
+	fs := newFlags("length", "[DESIGN] [--from L1] [--to L2] [--points N] [--travelling-wave V] [--out DIR]", stderr)
+	from := fs.String("from", "5 cm", "shortest channel")
+	to := fs.String("to", "1 m", "longest channel")
+	points := fs.Int("points", 12, "number of lengths, evenly spaced (3 to 10000)")
+	tw := fs.String("travelling-wave", "", `also scan with an excitation front at this speed: "c", "0.8c", "2e8 m/s" (design key optics.excitation_velocity)`)
+	out := fs.String("out", "", "write length.csv and the figure length.png/.svg to this directory")
+	sets := fs.StringArray("set", nil, `override a design key, e.g. --set gas.pressure="100 Torr" (repeatable)`)
+	workers := fs.Int("workers", runtime.NumCPU(), "lengths computed at once")
+	if help, err := parseFlags(fs, args); help || err != nil {
+		return err
+	}
+	d, err := loadDesign(fs.Args(), *sets)
+	if err != nil {
+		return err
+	}
+	s := &study.LengthScan{Design: d, Points: *points, Workers: *workers}
+	if s.From, err = units.Parse(*from, units.Length); err != nil {
+		return usagef("length: --from %q: %v", *from, err)
+	}
+	if s.To, err = units.Parse(*to, units.Length); err != nil {
+		return usagef("length: --to %q: %v", *to, err)
+	}
+	if *tw != "" {
+		probe := d.Clone()
+		if err := probe.Set("optics.excitation_velocity", *tw); err != nil {
+			return usagef("length: --travelling-wave: %v", err)
+		}
+		s.TravellingWave = probe.Optics.ExcitationVelocity
+	}
+	ctx, stop := signal.NotifyContext(context.Background(), os.Interrupt, syscall.SIGTERM)
+	defer stop()
+	r, err := s.Run(ctx)
+	if errors.Is(err, context.Canceled) {
+		return errors.New("length: interrupted")
+	}
+	if err != nil {
+		return err
+	}
+	printLength(stdout, r)
+	if *out == "" {
+		return nil
+	}
+	if err := os.MkdirAll(*out, 0o755); err != nil {
+		return fmt.Errorf("length: %w", err)
+	}
+	if err := r.Table().WriteCSV(filepath.Join(*out, "length.csv")); err != nil {
+		return err
+	}
+	files, err := plots.LengthFigure(r, filepath.Join(*out, "length"))
+	if err != nil {
+		return err
+	}
+	fmt.Fprintf(stderr, "wrote %s, %s\n", filepath.Join(*out, "length.csv"), filepath.Base(files[0])+", "+filepath.Base(files[1]))
+	return nil
+}
+
+// printLength writes the scan as a table in units of the trade, then the useful lengths.
+func printLength(w io.Writer, r *study.LengthResult) {
+	tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', tabwriter.AlignRight)
+	head := "length [cm]\t"
+	for c := range r.Curves {
+		pre := ""
+		if c > 0 {
+			pre = "tw "
+		}
+		head += pre + "energy [µJ]\t" + pre + "peak [kW]\t" + pre + "FWHM [ns]\t" + pre + "τ_g [ns]\t" + pre + "c·τ_g [cm]\t"
+	}
+	fmt.Fprintln(tw, head)
+	for k := range r.Curves[0].Points {
+		line := fmt.Sprintf("%.4g\t", 100*r.Curves[0].Points[k].Length)
+		for _, cur := range r.Curves {
+			p := cur.Points[k]
+			if p.Err != nil {
+				line += "failed\t\t\t\t\t"
+				continue
+			}
+			s := p.Summary
+			line += fmt.Sprintf("%.4g\t%.4g\t%.3g\t%.3g\t%.4g\t", 1e6*s.EnergyFront, 1e-3*s.PeakPower, 1e9*s.FWHM,
+				1e9*s.InversionDuration, 100*units.SpeedOfLight*s.InversionDuration)
+		}
+		fmt.Fprintln(tw, line)
+	}
+	tw.Flush()
+	for _, cur := range r.Curves {
+		name := "simultaneous excitation"
+		if !math.IsInf(cur.Velocity, 1) {
+			name = fmt.Sprintf("excitation front at %.3g c", cur.Velocity/units.SpeedOfLight)
+		}
+		if math.IsNaN(cur.Useful) {
+			fmt.Fprintf(w, "\n%s: no useful length: %s; transit estimate c·τ_g = %.3g cm\n", name, cur.Rule, 100*cur.Transit)
+			continue
+		}
+		fmt.Fprintf(w, "\n%s: useful length %.3g cm (%s); transit estimate c·τ_g = %.3g cm (useful/transit %.2f)\n",
+			name, 100*cur.Useful, cur.Rule, 100*cur.Transit, cur.Useful/cur.Transit)
+	}
+	for _, p := range r.Curves[0].Points {
+		if p.Err != nil {
+			fmt.Fprintf(w, "length %.4g cm failed: %v\n", 100*p.Length, p.Err)
+		}
+	}
+}

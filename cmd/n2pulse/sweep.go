@@ -1,0 +1,174 @@
+package main
+
+import (
+	"context"
+	"errors"
+	"fmt"
+	"io"
+	"os"
+	"os/signal"
+	"path/filepath"
+	"runtime"
+	"slices"
+	"strings"
+	"syscall"
+	"text/tabwriter"
+
+	"n2pulse/kinetics/study"
+	"n2pulse/plots"
+)
+
+func init() {
+	register(command{
+		name:    "sweep",
+		summary: "run a design over a grid of any design keys; table, curves or maps, resumable and shardable",
+		run:     runSweep,
+	})
+}
+
+func runSweep(args []string, stdout, stderr io.Writer) error {
+	fs := newFlags("sweep", "[DESIGN] --vary KEY=FROM:TO:N[:log] [--vary …] [--metric NAME …] [--out DIR] [--resume] [--shard K/N]", stderr)
+	vary := fs.StringArray("vary", nil, `a varied key and its grid, e.g. --vary gas.pressure=20Torr:760Torr:20:log (repeatable; the last varies fastest)`)
+	metrics := fs.StringSlice("metric", nil, "figures of merit to draw (default "+strings.Join(plots.DefaultMapMetrics, ",")+")")
+	out := fs.String("out", "sweep", "directory for results.csv, the journal and the figures")
+	sets := fs.StringArray("set", nil, `override a design key before sweeping, e.g. --set channel.length="40 cm" (repeatable)`)
+	workers := fs.Int("workers", runtime.NumCPU(), "points computed at once")
+	resume := fs.Bool("resume", false, "finish the sweep already started in --out, computing only the missing points")
+	shardText := fs.String("shard", "", "compute only shard K of N (point i belongs to shard i mod N + 1); default from SLURM_ARRAY_TASK_ID when set")
+	quiet := fs.Bool("quiet", false, "no progress line")
+	if help, err := parseFlags(fs, args); help || err != nil {
+		return err
+	}
+	if len(*vary) == 0 {
+		return usagef("sweep: give at least one --vary KEY=FROM:TO:N[:log]")
+	}
+	if *workers < 1 {
+		return usagef("sweep: --workers %d: want at least 1", *workers)
+	}
+	d, err := loadDesign(fs.Args(), *sets)
+	if err != nil {
+		return err
+	}
+	s := &study.Sweep{Design: d, Workers: *workers, Dir: *out, Resume: *resume}
+	for _, v := range *vary {
+		a, err := study.ParseAxis(v, d)
+		if err != nil {
+			return usageError{err.Error()}
+		}
+		s.Axes = append(s.Axes, a)
+	}
+	if err := checkMetrics(*metrics); err != nil {
+		return err
+	}
+	if s.Shard, err = shardOf(*shardText); err != nil {
+		return err
+	}
+	if !*quiet && isTerminal(stderr) {
+		s.Progress = stderr
+	}
+
+	ctx, stop := signal.NotifyContext(context.Background(), os.Interrupt, syscall.SIGTERM)
+	defer stop()
+	tab, err := s.Run(ctx)
+	if errors.Is(err, context.Canceled) {
+		return fmt.Errorf("sweep: interrupted; the finished points are kept in %s: run the same command with --resume to finish", filepath.Join(*out, study.JournalFile))
+	}
+	if err != nil {
+		return err
+	}
+	if !*quiet {
+		fmt.Fprintf(stderr, "%s: %s\n", s.Shard, tableCounts(tab))
+	}
+	if !s.Shard.Whole() {
+		fmt.Fprintf(stdout, "shard %s: wrote %s; join the shards with `n2pulse merge`\n", s.Shard, filepath.Join(*out, study.ResultsFile))
+		return nil
+	}
+	return reportSweep(stdout, tab, s.Axes, *metrics, *out)
+}
+
+// reportSweep prints the optimum of each metric, draws the figures and lists the files.
+func reportSweep(stdout io.Writer, tab *study.Table, axes []study.Axis, metrics []string, dir string) error {
+	if len(metrics) == 0 {
+		metrics = plots.DefaultMapMetrics
+	}
+	printOptima(stdout, tab, axes, metrics)
+	files, err := plots.SweepFigures(tab, axes, metrics, dir)
+	if err != nil {
+		return err
+	}
+	fmt.Fprintf(stdout, "wrote %s", filepath.Join(dir, study.ResultsFile))
+	for _, f := range files {
+		fmt.Fprintf(stdout, ", %s", filepath.Base(f))
+	}
+	fmt.Fprintln(stdout)
+	return nil
+}
+
+// checkMetrics rejects --metric names that are not numeric figures of merit.
+func checkMetrics(metrics []string) error {
+	ok := study.NumericMetrics()
+	for _, m := range metrics {
+		if !slices.Contains(ok, m) {
+			return usagef("--metric %q: allowed %s", m, strings.Join(ok, ", "))
+		}
+	}
+	return nil
+}
+
+// shardOf reads --shard, or the Slurm job-array task when --shard is not given.
+func shardOf(text string) (study.Shard, error) {
+	if text != "" {
+		s, err := study.ParseShard(text)
+		if err != nil {
+			return s, usageError{err.Error()}
+		}
+		return s, nil
+	}
+	s, _, err := study.ShardFromSlurm(os.Getenv)
+	return s, err
+}
+
+// isTerminal reports whether w is a terminal (a character device).
+func isTerminal(w io.Writer) bool {
+	f, ok := w.(*os.File)
+	if !ok {
+		return false
+	}
+	st, err := f.Stat()
+	return err == nil && st.Mode()&os.ModeCharDevice != 0
+}
+
+// tableCounts says how many points were computed and how many failed.
+func tableCounts(t *study.Table) string {
+	failed := 0
+	for r := range t.Rows {
+		if !t.OK(r) {
+			failed++
+		}
+	}
+	return fmt.Sprintf("%d points, %d failed", len(t.Rows), failed)
+}
+
+// printOptima writes, per metric, the best computed point and its varied values.
+func printOptima(w io.Writer, t *study.Table, axes []study.Axis, metrics []string) {
+	tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
+	head := "metric\toptimum\tvalue"
+	for _, a := range axes {
+		head += "\t" + a.Header()
+	}
+	fmt.Fprintln(tw, head)
+	for _, m := range metrics {
+		c := t.Column(m)
+		best, word := plots.Optimum(t, m)
+		if best < 0 {
+			fmt.Fprintf(tw, "%s\t-\tno computed point\n", m)
+			continue
+		}
+		line := fmt.Sprintf("%s\t%s\t%s", m, word, t.Rows[best][c])
+		for _, a := range axes {
+			line += "\t" + t.Rows[best][t.Column(a.Header())]
+		}
+		fmt.Fprintln(tw, line)
+	}
+	tw.Flush()
+}
