@@ -50,6 +50,7 @@ type linesJSON struct {
 	LifetimeC0    float64                 `json:"lifetime_C0_s"`
 	StrongestLine []lineJSON              `json:"laser_lines"`
 	Laser         spectro.LaserParameters `json:"laser"`
+	GainPeak      spectro.GainPeak        `json:"gain_peak"`
 }
 
 func runLines(args []string, stdout, stderr io.Writer) error {
@@ -97,7 +98,11 @@ func runLines(args []string, stdout, stderr io.Writer) error {
 		return err
 	}
 	gl = gl[:min(*nLines, len(gl))]
-	out := linesJSON{PressurePa: p, TemperatureK: T, LifetimeC0: tau, Laser: lp}
+	peak, err := m.GainPeak(0, 0, p, T)
+	if err != nil {
+		return err
+	}
+	out := linesJSON{PressurePa: p, TemperatureK: T, LifetimeC0: tau, Laser: lp, GainPeak: peak}
 	for _, b := range bands {
 		out.Bands = append(out.Bands, bandJSON{VUpper: b.VUpper, VLower: b.VLower,
 			OriginAirNm: b.OriginAir * 1e9, OriginVacNm: b.OriginVacuum * 1e9,
@@ -163,4 +168,7 @@ func printLines(w io.Writer, o linesJSON) {
 	fmt.Fprintf(w, "\nlaser model inputs: λ_air %.4f nm, hν %.4f eV, σ %.3e m², g_C/g_B %.3f, A00 %.3e 1/s, τ_C %.2f ns, f_C %.3f, f_B %.3f, width %s\n",
 		lp.AirWavelength*1e9, lp.PhotonEnergy/units.ElectronVolt, lp.CrossSection, lp.DegeneracyRatio,
 		lp.EinsteinA00, lp.UpperLifetime*1e9, lp.UpperShare, lp.LowerShare, units.Format(lp.LineWidth, "Hz"))
+	g := o.GainPeak
+	fmt.Fprintf(w, "gain-spectrum peak with overlapping lines summed: λ_air %.4f nm, σ %.3e m² (×%.2f the single line, %d lines ≥ 10 %%), g_C/g_B %.3f\n",
+		g.AirWavelength*1e9, g.CrossSection, g.Enhancement, g.Lines, g.DegeneracyRatio)
 }

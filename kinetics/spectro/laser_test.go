@@ -131,3 +131,29 @@ func TestLaserMatchesTable(t *testing.T) {
 		}
 	}
 }
+
+// The gain-spectrum peak with overlapping lines summed is never below the strongest single line
+// (a sum of non-negative terms, analytic); at 100 Pa, where the head lines (3–5 GHz apart) are
+// resolved by the 2.1 GHz Doppler width, it equals the single line within 1 %; at 1 atm the
+// neighbours add (analytic consequence of the line spacing and the width).
+func TestGainPeak(t *testing.T) {
+	m := testModel(t)
+	for _, p := range []float64{100, 1e4, units.Atmosphere, 3e5} {
+		g, err := m.GainPeak(0, 0, p, 300)
+		if err != nil {
+			t.Fatal(err)
+		}
+		if g.Enhancement < 1 {
+			t.Errorf("p=%g: enhancement %g < 1", p, g.Enhancement)
+		}
+		if p == 100 && math.Abs(g.Enhancement-1) > 0.01 {
+			t.Errorf("p=100 Pa: enhancement %g, want 1 ± 0.01", g.Enhancement)
+		}
+		if p == units.Atmosphere && (g.Enhancement < 1.05 || g.Lines < 2) {
+			t.Errorf("1 atm: enhancement %g with %d lines, want > 1.05 and ≥ 2 lines", g.Enhancement, g.Lines)
+		}
+		if g.DegeneracyRatio < 0.5 || g.DegeneracyRatio > 1.5 {
+			t.Errorf("p=%g: blended g ratio %g", p, g.DegeneracyRatio)
+		}
+	}
+}
