@@ -73,13 +73,17 @@ type variationSpec struct {
 
 // measured is the content of a <case>.measured.toml file.
 type measured struct {
-	Case      string          `toml:"case"`
-	Source    string          `toml:"source"`
-	Kind      string          `toml:"kind"`
-	Energy    *measuredValue  `toml:"energy"`
-	FWHM      *measuredValue  `toml:"fwhm"`
-	PeakPower *measuredValue  `toml:"peak_power"`
-	Variation []variationSpec `toml:"variation"`
+	Case      string         `toml:"case"`
+	Source    string         `toml:"source"`
+	Kind      string         `toml:"kind"`
+	Energy    *measuredValue `toml:"energy"`
+	FWHM      *measuredValue `toml:"fwhm"`
+	PeakPower *measuredValue `toml:"peak_power"`
+	// Lases, when given, says whether the laser gave any laser output at all; LasesWhere is
+	// the sentence that says so.
+	Lases      *bool           `toml:"lases"`
+	LasesWhere string          `toml:"lases_where"`
+	Variation  []variationSpec `toml:"variation"`
 }
 
 // expCase is one experiment: its design and its measurements.
@@ -92,7 +96,7 @@ type expCase struct {
 // Variation is one measured dependence of a laser's output on a design parameter together with
 // the model's curve over the same parameter, in display units, for overlay figures.
 type Variation struct {
-	ID        string    // "<case>/<variation>", e.g. "schwe-transfer-v1/gap"
+	ID        string    // "<case>/<variation>", e.g. "tea-transfer-88mm-v1/gap"
 	Title     string    // what is varied, in words
 	Key       string    // design key varied
 	XLabel    string    // axis label with unit
@@ -357,6 +361,20 @@ func pointChecks(c *expCase, j *job) []Check {
 		{"peak-power", "peak power", "kW", units.Power, m.PeakPower, "peak_power", Factor, 2},
 	}
 	var out []Check
+	if m.Lases != nil {
+		chk := Check{
+			ID:       "exp." + c.Name + ".lases",
+			Quantity: fmt.Sprintf("laser output above the spontaneous-emission floor: %v (%s)", *m.Lases, c.Name),
+			Mode:     True, Reference: 1, Kind: Experiment,
+			Source: fmt.Sprintf("%s; %s [stated in the text]", m.Source, m.LasesWhere),
+		}
+		if j.err != nil {
+			chk.Err = j.err
+		} else if j.sum.Lases == *m.Lases {
+			chk.Computed = 1
+		}
+		out = append(out, chk)
+	}
 	for _, it := range items {
 		if it.mv == nil {
 			continue

@@ -25,7 +25,7 @@ func TestExperimentCasesLoad(t *testing.T) {
 		t.Fatalf("%d cases, want at least 4", len(cases))
 	}
 	for _, c := range cases {
-		if c.Measured.Energy == nil && len(c.Measured.Variation) == 0 {
+		if c.Measured.Energy == nil && c.Measured.FWHM == nil && c.Measured.Lases == nil && len(c.Measured.Variation) == 0 {
 			t.Errorf("%s: nothing measured", c.Name)
 		}
 	}
@@ -170,7 +170,7 @@ func TestExperimentConvergence(t *testing.T) {
 		t.Fatal(err)
 	}
 	for _, c := range cases {
-		if c.Name != "schwe-transfer-v1" {
+		if c.Name != "tea-transfer-88mm-v1" {
 			continue
 		}
 		var e, w [2]float64
@@ -200,7 +200,7 @@ func BenchmarkExperimentCase(b *testing.B) {
 	}
 	var d *kinetics.Design
 	for _, c := range cases {
-		if c.Name == "schwe-transfer-v1" {
+		if c.Name == "tea-transfer-88mm-v1" {
 			d = c.Design
 		}
 	}
