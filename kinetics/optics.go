@@ -16,6 +16,7 @@ type medium struct {
 	lossFactor    float64 // e^(−αΔz)
 	rRear, rFront float64
 	c, b          []float64 // N_C, N_B [m⁻³]
+	gain          []float64 // small-signal gain factor e^(σ·(N_C − g·N_B)·Δz) of each cell
 	fp, fm        []float64
 	fpOld, fmOld  []float64
 	ledger        photonLedger
@@ -34,37 +35,43 @@ func newMedium(n int, dz, dt, sigma, g, spontPerC, loss, rRear, rFront float64) 
 		n: n, dz: dz, dt: dt, sigma: sigma, g: g, js: 1 / ((1 + g) * sigma), invJs: (1 + g) * sigma,
 		invDz: 1 / dz, invDt: 1 / dt,
 		spont: spontPerC * dz, lossFactor: math.Exp(-loss * dz), rRear: rRear, rFront: rFront,
-		c: make([]float64, n), b: make([]float64, n),
+		c: make([]float64, n), b: make([]float64, n), gain: make([]float64, n),
 		fp: make([]float64, n), fm: make([]float64, n),
 		fpOld: make([]float64, n), fmOld: make([]float64, n),
 	}
+	m.resync()
 	return m
 }
 
-// amplify passes a photon packet of flux in through a cell with populations *c, *b, by the
-// Frantz–Nodvik relation for the cell's small-signal gain factor G = e^(σΔN·Δz) and
-// saturation fluence J_s = 1/((1+g)σ),
-//
-//	J_out = J_s·ln(1 + G·(e^(J_in/J_s) − 1)),
-//
-// and takes the stimulated transitions (J_out − J_in)/Δz from the populations. It returns the
-// flux leaving the cell and the cell's gain factor afterwards, G·e^(−(J_out−J_in)/J_s), so
-// that the second direction needs no new exponential of the populations.
-func (m *medium) amplify(in, gain float64, c, b *float64) (out, gainAfter float64) {
-	jin := in * m.dt
-	jout := m.js * log1pSmall(gain*expm1Small(jin*m.invJs))
-	dj := jout - jin
-	stim := dj * m.invDz // transitions per volume
-	*c -= stim
-	*b += stim
-	if *c < 0 { // rounding only: Frantz–Nodvik never takes more than the inversion holds
-		*c = 0
+// resync recomputes every cell's gain factor from its populations. Between resyncs the
+// factors follow the populations multiplicatively (see shift), which needs no exponential of
+// a large argument in the hot loop.
+func (m *medium) resync() {
+	a := m.sigma * m.dz
+	for i := range m.gain {
+		m.gain[i] = math.Exp(a * (m.c[i] - m.g*m.b[i]))
 	}
-	if *b < 0 {
-		*b = 0
+}
+
+// shift applies population changes dc, db of cell i (from pump and decay) to its gain factor.
+func (m *medium) shift(i int, dc, db float64) {
+	m.gain[i] *= expSmall(m.sigma * m.dz * (dc - m.g*db))
+}
+
+// frantzNodvik returns the fluence [m⁻²] leaving a cell of small-signal gain factor
+// gain = e^(σΔN·Δz) for an entering fluence jin, by the Frantz–Nodvik relation
+//
+//	J_out = J_s·ln(1 + G·(e^(J_in/J_s) − 1)),  J_s = 1/((1+g)σ),
+//
+// with invJs = 1/J_s. Far below saturation (J_in/J_s and G·J_in/J_s under 1e-6) it uses the
+// expansion J_in·G·(1 + x(1−G)/2), exact to a relative 1e-12; cells are short, so the
+// remaining series are short too (the hot loop of a shot).
+func frantzNodvik(jin, gain, js, invJs float64) float64 {
+	x := jin * invJs
+	if x < 1e-6 && gain*x < 1e-6 {
+		return jin * gain * (1 + 0.5*x*(1-gain))
 	}
-	m.ledger.stimulated += dj
-	return jout * m.invDt, gain * expSmall(-dj*m.invJs)
+	return js * log1pSmall(gain*expm1Small(x))
 }
 
 // small bounds the arguments for which the series below are exact to rounding.
@@ -98,57 +105,76 @@ func log1pSmall(y float64) float64 {
 }
 
 // propagate moves both waves one cell, applying spontaneous emission, gain and loss in every
-// cell, and returns the fluxes leaving the front and rear ends during this step.
+// cell, and returns the fluxes leaving the front and rear ends during this step. In each
+// cell the two directions pass in turn (alternating the order from step to step); the
+// stimulated transitions (J_out − J_in)/Δz of each pass are taken from the populations, so
+// they stay non-negative at any flux and every photon gained is a transition of the medium.
 func (m *medium) propagate(step int) (front, rear float64) {
 	m.fp, m.fpOld = m.fpOld, m.fp
 	m.fm, m.fmOld = m.fmOld, m.fm
 	n := m.n
 	front = (1 - m.rFront) * m.fpOld[n-1]
 	rear = (1 - m.rRear) * m.fmOld[0]
-	dtL := m.dt
+	dt, invDt, invDz := m.dt, m.invDt, m.invDz
+	js, invJs := m.js, m.invJs
+	loss, spontHalf := m.lossFactor, 0.5*m.spont
+	fp, fm, fpOld, fmOld := m.fp, m.fm, m.fpOld, m.fmOld
+	cs, bs, gf := m.c[:n], m.b[:n], m.gain[:n]
+	var spont, stim, lost float64
+	forwardFirst := step&1 == 0
 	for i := 0; i < n; i++ {
 		var inP, inM float64
 		if i == 0 {
-			inP = m.rRear*m.fmOld[0] + m.inject
-			m.ledger.injected += m.inject * dtL
+			inP = m.rRear*fmOld[0] + m.inject
 		} else {
-			inP = m.fpOld[i-1]
+			inP = fpOld[i-1]
 		}
 		if i == n-1 {
-			inM = m.rFront * m.fpOld[n-1]
+			inM = m.rFront * fpOld[n-1]
 		} else {
-			inM = m.fmOld[i+1]
+			inM = fmOld[i+1]
 		}
-		c, b := &m.c[i], &m.b[i]
-		half := 0.5 * m.spont * *c
-		m.ledger.spontaneous += 4 * half * dtL
-		// Alternate the order of the two directions so neither sees the cell first on
-		// average.
-		gain := expSmall(m.sigma * (*c - m.g**b) * m.dz)
-		var out float64
-		if step&1 == 0 {
-			out, gain = m.amplify(inP+half, gain, c, b)
-			m.fp[i] = m.finish(out, half, dtL)
-			out, _ = m.amplify(inM+half, gain, c, b)
-			m.fm[i] = m.finish(out, half, dtL)
+		c, b := cs[i], bs[i]
+		half := spontHalf * c
+		spont += 4 * half
+		gain := gf[i]
+		first, second := inP+half, inM+half
+		if !forwardFirst {
+			first, second = second, first
+		}
+		// First pass.
+		jin := first * dt
+		dj := frantzNodvik(jin, gain, js, invJs) - jin
+		c -= dj * invDz
+		b += dj * invDz
+		stim += dj
+		out1 := (jin + dj) * invDt
+		gain *= expSmall(-dj * invJs)
+		// Second pass.
+		jin = second * dt
+		dj2 := frantzNodvik(jin, gain, js, invJs) - jin
+		c -= dj2 * invDz
+		b += dj2 * invDz
+		stim += dj2
+		out2 := (jin + dj2) * invDt
+		gf[i] = gain * expSmall(-dj2*invJs)
+		// Rounding only: Frantz–Nodvik never takes more than the inversion holds.
+		cs[i], bs[i] = max(c, 0), max(b, 0)
+		k1, k2 := out1*loss, out2*loss
+		lost += (out1 - k1) + (out2 - k2)
+		if forwardFirst {
+			fp[i], fm[i] = k1+half, k2+half
 		} else {
-			out, gain = m.amplify(inM+half, gain, c, b)
-			m.fm[i] = m.finish(out, half, dtL)
-			out, _ = m.amplify(inP+half, gain, c, b)
-			m.fp[i] = m.finish(out, half, dtL)
+			fm[i], fp[i] = k1+half, k2+half
 		}
 	}
-	m.ledger.front += front * dtL
-	m.ledger.rear += rear * dtL
+	m.ledger.injected += m.inject * dt
+	m.ledger.spontaneous += spont * dt
+	m.ledger.stimulated += stim
+	m.ledger.lost += lost * dt
+	m.ledger.front += front * dt
+	m.ledger.rear += rear * dt
 	return front, rear
-}
-
-// finish applies the distributed loss to a packet leaving a cell and adds the second half of
-// the spontaneous seed.
-func (m *medium) finish(out, half, dt float64) float64 {
-	kept := out * m.lossFactor
-	m.ledger.lost += (out - kept) * dt
-	return kept + half
 }
 
 // inFlight is the number of photons per unit area still travelling in the channel [m⁻²].

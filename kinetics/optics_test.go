@@ -14,6 +14,7 @@ func testMedium(n int, length, sigma, g, c0, b0 float64) *medium {
 	for i := range m.c {
 		m.c[i], m.b[i] = c0, b0
 	}
+	m.resync()
 	return m
 }
 

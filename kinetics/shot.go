@@ -101,26 +101,57 @@ func (sh *shot) run(res *Result) {
 		eC[k] = math.Exp(-g * dt)
 		wC[k] = -math.Expm1(-g*dt) / g
 	}
+	// The pump still to come bounds how much inversion can reappear: once every cell absorbs
+	// by more than that, the upper level decays faster than the lower one and the light has
+	// left, the channel is dark for good and the optics need not be stepped (a sweep stops).
+	maxDelay := 0
+	for _, w := range sh.delayWhole {
+		maxDelay = max(maxDelay, w+1)
+	}
+	pumpLeft := make([]float64, sh.steps+1)
+	for k := sh.steps - 1; k >= 0; k-- {
+		pumpLeft[k] = pumpLeft[k+1] + sh.wf.pumpC[k]*dt
+	}
+	canGoDark := gamma0 >= p.LowerDecayRate
+	dark := false
 	for k := 0; k < sh.steps; k++ {
+		if dark && sh.light {
+			for j := k; j < sh.steps; j++ {
+				sh.meanGain[j], sh.midC[j], sh.midB[j] = sh.meanGain[k-1], sh.midC[k-1], sh.midB[k-1]
+			}
+			break
+		}
 		for i := 0; i < n; i++ {
 			w, f := sh.delayWhole[i], sh.delayFrac[i]
 			pc := sample(sh.wf.pumpC, k, w, f)
 			pb := sample(sh.wf.pumpB, k, w, f)
 			j := max(0, min(k-w, sh.steps-1))
-			c0 := m.c[i]
+			c0, b0 := m.c[i], m.b[i]
 			c1 := c0*eC[j] + pc*wC[j]
-			m.c[i] = c1
-			m.b[i] = m.b[i]*sh.eB + (pb+a00*0.5*(c0+c1))*sh.wB
+			b1 := b0*sh.eB + (pb+a00*0.5*(c0+c1))*sh.wB
+			m.c[i], m.b[i] = c1, b1
+			m.shift(i, c1-c0, b1-b0)
 			if i == mid {
 				sh.pumpPeak = math.Max(sh.pumpPeak, pc)
 			}
 		}
-		front, rear := m.propagate(k)
-		sh.powerFront[k] = hv * front
-		sh.powerRear[k] = hv * rear
-		sum := 0.0
+		if k%64 == 0 {
+			m.resync()
+		}
+		if !dark {
+			front, rear := m.propagate(k)
+			sh.powerFront[k] = hv * front
+			sh.powerRear[k] = hv * rear
+		}
+		sum, maxInv := 0.0, math.Inf(-1)
 		for i := 0; i < n; i++ {
-			sum += m.c[i] - m.g*m.b[i]
+			inv := m.c[i] - m.g*m.b[i]
+			sum += inv
+			maxInv = math.Max(maxInv, inv)
+		}
+		if canGoDark && !dark && maxInv+pumpLeft[max(0, k-maxDelay)] < 0 {
+			led := m.ledger
+			dark = m.inFlight() < 1e-12*(led.spontaneous+led.stimulated+led.injected)
 		}
 		g := p.CrossSection * sum / float64(n)
 		sh.meanGain[k] = g
