@@ -4,6 +4,7 @@ import (
 	"encoding/json"
 	"fmt"
 	"io"
+	"math"
 	"os"
 	"strings"
 	"text/tabwriter"
@@ -176,4 +177,41 @@ func printBench(w io.Writer, name string, b *kinetics.Built) {
 		fmt.Fprintln(w, "\nno warnings")
 	}
 	fmt.Fprintln(w, "\n"+safetyNotice)
+}
+
+// PrintSensitivity writes the five keys that move the output energy most, with the direction
+// to move each for more energy: the `run --sensitivity` table. Rows come ranked from
+// kinetics.Sensitivity; keys that could not be varied are named after the table.
+func PrintSensitivity(w io.Writer, rows []kinetics.SensitivityRow) {
+	tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
+	fmt.Fprintln(tw, "key\tvalue\td ln E/d ln x\td ln P/d ln x\tfor more energy")
+	shown := 0
+	var skipped []string
+	for _, r := range rows {
+		if r.Problem != "" {
+			skipped = append(skipped, r.Key+" ("+r.Problem+")")
+			continue
+		}
+		if shown == 5 {
+			continue
+		}
+		shown++
+		dir := "raise it"
+		if r.Energy < 0 {
+			dir = "lower it"
+		}
+		if math.Abs(r.Energy) < 1e-3 {
+			dir = "no effect"
+		}
+		note := ""
+		if r.OneSided {
+			note = " (one-sided: at its range limit)"
+		}
+		fmt.Fprintf(tw, "%s\t%s\t%+.3g\t%+.3g\t%s%s\n", r.Key, units.Format(r.Value, r.Unit), r.Energy, r.PeakPower, dir, note)
+	}
+	tw.Flush()
+	fmt.Fprintln(w, "(a sensitivity s means: 1 % more of the key gives about s % more energy)")
+	if len(skipped) > 0 {
+		fmt.Fprintln(w, "not varied: "+strings.Join(skipped, "; "))
+	}
 }

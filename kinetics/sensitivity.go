@@ -1,0 +1,199 @@
+package kinetics
+
+import (
+	"fmt"
+	"math"
+	"runtime"
+	"sort"
+	"strings"
+	"sync"
+)
+
+// SensitivityRow is the logarithmic sensitivity of the output to one design key.
+type SensitivityRow struct {
+	Key       string  `json:"key"`
+	Value     float64 `json:"value"`           // the design's value, SI
+	Unit      string  `json:"unit"`            // SI unit of Value
+	Energy    float64 `json:"d_ln_energy"`     // d ln E_total / d ln x
+	PeakPower float64 `json:"d_ln_peak_power"` // d ln P_peak / d ln x
+	OneSided  bool    `json:"one_sided"`       // a range limit forced a one-sided difference
+	Problem   string  `json:"problem,omitempty"`
+}
+
+// SensitivityKeys returns the numeric keys of d whose sensitivity can be taken: non-zero and
+// finite, used by the design's switch model and gas (no oxygen constants without oxygen), and
+// not numerics.*, spectroscopy overrides left at "computed" or gas mole fractions (each of
+// those would need a swarm table solved anew).
+func SensitivityKeys(d *Design) []string {
+	unused := map[string]bool{}
+	switch d.Switch.Model {
+	case IdealSwitch:
+		for _, k := range []string{"off_resistance", "rise_time", "gap", "pressure", "spark_constant"} {
+			unused["switch."+k] = true
+		}
+	case ExponentialSwitch:
+		for _, k := range []string{"gap", "pressure", "spark_constant"} {
+			unused["switch."+k] = true
+		}
+	case RompeWeizelSwitch:
+		unused["switch.rise_time"] = true
+	}
+	if d.Gas.Oxygen == 0 {
+		unused["levels.upper_quenching_oxygen"], unused["levels.lower_removal_oxygen"] = true, true
+	}
+	if d.Gas.Helium == 0 {
+		unused["levels.upper_quenching_helium"] = true
+	}
+	var keys []string
+	for _, f := range fieldList {
+		if f.num == nil || f.integer || strings.HasPrefix(f.key, "numerics.") || strings.HasPrefix(f.key, "gas.") && f.key != "gas.pressure" && f.key != "gas.temperature" || unused[f.key] {
+			continue
+		}
+		if v := *f.num(d); v != 0 && !math.IsInf(v, 0) && !math.IsNaN(v) {
+			keys = append(keys, f.key)
+		}
+	}
+	return keys
+}
+
+// Sensitivity returns d ln E / d ln x and d ln P / d ln x of the total output energy E and the
+// peak power P to each key x (SensitivityKeys(d) when keys is empty), by central differences
+// over re-runs at x·exp(±step) (step 0.01 when ≤ 0), or one-sided ones where the key's range
+// forbids a side. Rows are ranked by |d ln E / d ln x|; a key that cannot be varied or whose
+// runs fail carries its problem. Runs go in parallel, one per CPU.
+func Sensitivity(d *Design, keys []string, step float64) ([]SensitivityRow, error) {
+	if step <= 0 {
+		step = 0.01
+	}
+	if step > 0.5 {
+		return nil, fmt.Errorf("kinetics: sensitivity step %g: allowed above 0 to 0.5 (in ln x)", step)
+	}
+	if len(keys) == 0 {
+		keys = SensitivityKeys(d)
+	}
+	for _, k := range keys {
+		f, ok := fieldIndex[k]
+		if !ok {
+			return nil, &KeyError{Key: k, Problem: "unknown key" + suggest(k)}
+		}
+		if f.num == nil || f.integer {
+			return nil, &KeyError{Key: k, Problem: "not a continuous number: no sensitivity"}
+		}
+	}
+	base, err := Run(d, &RunSettings{Light: true})
+	if err != nil {
+		return nil, err
+	}
+	e0, p0 := base.Summary.EnergyTotal, base.Summary.PeakPower
+	if !(e0 > 0) || !(p0 > 0) {
+		return nil, fmt.Errorf("kinetics: sensitivity: the design makes no output (E = %g J), so ln E has no derivative", e0)
+	}
+	type job struct {
+		row  int
+		sign float64
+	}
+	rows := make([]SensitivityRow, len(keys))
+	out := make([][2]Summary, len(keys)) // [0] at x·e^(−h), [1] at x·e^(+h)
+	ok := make([][2]bool, len(keys))
+	var jobs []job
+	for i, k := range keys {
+		f := fieldIndex[k]
+		x := *f.num(d)
+		rows[i] = SensitivityRow{Key: k, Value: x, Unit: f.unit}
+		if x == 0 || math.IsInf(x, 0) {
+			rows[i].Problem = "value is 0 or infinite: ln x undefined"
+			continue
+		}
+		for _, s := range []float64{-1, 1} {
+			jobs = append(jobs, job{i, s})
+		}
+	}
+	var mu sync.Mutex
+	problems := map[int][]string{}
+	ch := make(chan job)
+	var wg sync.WaitGroup
+	for w := 0; w < runtime.GOMAXPROCS(0); w++ {
+		wg.Add(1)
+		go func() {
+			defer wg.Done()
+			for j := range ch {
+				s, err := perturbedRun(d, keys[j.row], j.sign*step)
+				mu.Lock()
+				if err == nil {
+					out[j.row][(int(j.sign)+1)/2] = s
+					ok[j.row][(int(j.sign)+1)/2] = true
+				} else if !isRangeError(err) {
+					problems[j.row] = append(problems[j.row], err.Error())
+				}
+				mu.Unlock()
+			}
+		}()
+	}
+	for _, j := range jobs {
+		ch <- j
+	}
+	close(ch)
+	wg.Wait()
+
+	for i := range rows {
+		if rows[i].Problem != "" {
+			continue
+		}
+		lo, hi := out[i][0], out[i][1]
+		var eLo, eHi, pLo, pHi, span float64
+		switch {
+		case ok[i][0] && ok[i][1]:
+			eLo, eHi, pLo, pHi, span = lo.EnergyTotal, hi.EnergyTotal, lo.PeakPower, hi.PeakPower, 2*step
+		case ok[i][1]:
+			eLo, eHi, pLo, pHi, span = e0, hi.EnergyTotal, p0, hi.PeakPower, step
+			rows[i].OneSided = true
+		case ok[i][0]:
+			eLo, eHi, pLo, pHi, span = lo.EnergyTotal, e0, lo.PeakPower, p0, step
+			rows[i].OneSided = true
+		default:
+			rows[i].Problem = "no run possible: " + strings.Join(problems[i], "; ")
+			if len(problems[i]) == 0 {
+				rows[i].Problem = "both sides out of the key's range"
+			}
+			continue
+		}
+		if !(eLo > 0 && eHi > 0 && pLo > 0 && pHi > 0) {
+			rows[i].Problem = "no output on one side"
+			rows[i].Energy, rows[i].PeakPower = math.NaN(), math.NaN()
+			continue
+		}
+		rows[i].Energy = (math.Log(eHi) - math.Log(eLo)) / span
+		rows[i].PeakPower = (math.Log(pHi) - math.Log(pLo)) / span
+	}
+	sort.SliceStable(rows, func(a, b int) bool {
+		ra, rb := rows[a], rows[b]
+		if (ra.Problem == "") != (rb.Problem == "") {
+			return ra.Problem == ""
+		}
+		return math.Abs(ra.Energy) > math.Abs(rb.Energy)
+	})
+	return rows, nil
+}
+
+// rangeError marks a perturbed value outside its key's range.
+type rangeError struct{ error }
+
+func isRangeError(err error) bool { _, ok := err.(rangeError); return ok }
+
+// perturbedRun runs d with key multiplied by exp(h).
+func perturbedRun(d *Design, key string, h float64) (Summary, error) {
+	c := d.Clone()
+	f := fieldIndex[key]
+	x := *f.num(c) * math.Exp(h)
+	if err := f.setNumber(c, x, fmt.Sprintf("%g", x)); err != nil {
+		return Summary{}, rangeError{err}
+	}
+	if err := c.Validate(); err != nil {
+		return Summary{}, rangeError{err}
+	}
+	r, err := Run(c, &RunSettings{Light: true})
+	if err != nil {
+		return Summary{}, fmt.Errorf("%s × e^%+g: %w", key, h, err)
+	}
+	return r.Summary, nil
+}

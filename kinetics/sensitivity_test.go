@@ -1,0 +1,108 @@
+package kinetics
+
+import (
+	"errors"
+	"math"
+	"slices"
+	"testing"
+)
+
+// quickDesign is the example on a coarse grid, for fast re-runs.
+func quickDesign() *Design {
+	d := ExampleDesign()
+	d.Numerics.Cells = 50
+	return d
+}
+
+func runEnergy(t *testing.T, d *Design) float64 {
+	t.Helper()
+	r, err := Run(d, &RunSettings{Light: true})
+	if err != nil {
+		t.Fatal(err)
+	}
+	return r.Summary.EnergyTotal
+}
+
+func TestSensitivityAgainstExplicitRuns(t *testing.T) {
+	if testing.Short() {
+		t.Skip("runs the model")
+	}
+	d := quickDesign()
+	rows, err := Sensitivity(d, []string{"circuit.charge_voltage", "channel.gap"}, 0.01)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if len(rows) != 2 || math.Abs(rows[0].Energy) < math.Abs(rows[1].Energy) {
+		t.Fatalf("rows not ranked: %+v", rows)
+	}
+	for _, r := range rows {
+		// Two explicit runs at x·1.01 and x·0.99 (a finite difference in x, not in ln x).
+		up, dn := d.Clone(), d.Clone()
+		x := r.Value
+		*fieldIndex[r.Key].num(up) = 1.01 * x
+		*fieldIndex[r.Key].num(dn) = 0.99 * x
+		want := (math.Log(runEnergy(t, up)) - math.Log(runEnergy(t, dn))) / (math.Log(1.01) - math.Log(0.99))
+		if math.Abs(r.Energy-want) > 0.05*math.Abs(want) {
+			t.Errorf("%s: d ln E/d ln x = %.4g, explicit runs give %.4g", r.Key, r.Energy, want)
+		}
+	}
+}
+
+func TestSensitivityStepConvergence(t *testing.T) {
+	if testing.Short() {
+		t.Skip("runs the model")
+	}
+	// Central differences converge as h²: halving the step changes the value by little.
+	d := quickDesign()
+	a, err := Sensitivity(d, []string{"circuit.channel_capacitance"}, 0.02)
+	if err != nil {
+		t.Fatal(err)
+	}
+	b, err := Sensitivity(d, []string{"circuit.channel_capacitance"}, 0.01)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if math.Abs(a[0].Energy-b[0].Energy) > 0.05*math.Abs(b[0].Energy) {
+		t.Errorf("step 0.02 gives %.4g, step 0.01 gives %.4g", a[0].Energy, b[0].Energy)
+	}
+}
+
+func TestSensitivityOneSidedAndErrors(t *testing.T) {
+	if testing.Short() {
+		t.Skip("runs the model")
+	}
+	d := quickDesign()
+	d.Gas.Temperature = 995 // +1 % leaves the allowed 50–1000 K
+	rows, err := Sensitivity(d, []string{"gas.temperature"}, 0.01)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if !rows[0].OneSided || rows[0].Problem != "" || rows[0].Energy == 0 {
+		t.Errorf("temperature at its limit: %+v", rows[0])
+	}
+	var ke *KeyError
+	if _, err := Sensitivity(d, []string{"gas.presure"}, 0.01); !errors.As(err, &ke) || ke.Key != "gas.presure" {
+		t.Errorf("unknown key: %v", err)
+	}
+	if _, err := Sensitivity(d, []string{"circuit.topology"}, 0.01); !errors.As(err, &ke) {
+		t.Errorf("text key: %v", err)
+	}
+	if _, err := Sensitivity(d, []string{"gas.pressure"}, 0.9); err == nil {
+		t.Error("no error for a step of 0.9")
+	}
+}
+
+func TestSensitivityKeys(t *testing.T) {
+	d := ExampleDesign()
+	k := SensitivityKeys(d)
+	for _, want := range []string{"circuit.charge_voltage", "channel.gap", "gas.pressure", "switch.spark_constant"} {
+		if !slices.Contains(k, want) {
+			t.Errorf("%s missing from %v", want, k)
+		}
+	}
+	for _, not := range []string{"numerics.end_time", "gas.nitrogen", "spectroscopy.cross_section", "optics.excitation_velocity", "switch.rise_time", "levels.upper_quenching_oxygen"} {
+		if slices.Contains(k, not) {
+			t.Errorf("%s should not be varied (in %v)", not, k)
+		}
+	}
+}
