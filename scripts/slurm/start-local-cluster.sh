@@ -29,7 +29,8 @@ alive() { # pid file → running?
 stop_all() {
 	for f in "$dir/run/slurmd.pid" "$dir/run/slurmctld.pid" "$dir/run/munged.pid"; do
 		if alive "$f"; then
-			kill "$(cat "$f")" && say "stopped $(basename "$f" .pid) (pid $(cat "$f"))"
+			pid=$(cat "$f")
+			kill "$pid" && say "stopped $(basename "$f" .pid) (pid $pid)"
 		fi
 		rm -f "$f"
 	done
