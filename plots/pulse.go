@@ -1,0 +1,278 @@
+package plots
+
+import (
+	"fmt"
+	"image/color"
+	"math"
+
+	"gonum.org/v1/plot"
+	"gonum.org/v1/plot/plotter"
+	"gonum.org/v1/plot/vg"
+	"gonum.org/v1/plot/vg/draw"
+
+	"n2pulse/units"
+)
+
+// PulseData is one shot's waveforms for PulseReport, all sampled at Time. A series may be
+// empty (its curve is left out); otherwise it must have len(Time) values. NaN values break a
+// curve.
+type PulseData struct {
+	Title string
+	// Time is the sample time [s], non-decreasing, at least two samples.
+	Time []float64
+	// ChannelVoltage [V], Current [A], ReducedField E/N [V m²], ElectronDensity [m⁻³],
+	// UpperLevel and LowerLevel populations [m⁻³], PowerFront and PowerRear output power at
+	// each end [W].
+	ChannelVoltage, Current, ReducedField, ElectronDensity, UpperLevel, LowerLevel, PowerFront, PowerRear []float64
+	// FWHMStart and FWHMEnd are the half-maximum crossings of the total output [s]; 0, 0 if
+	// there are none.
+	FWHMStart, FWHMEnd float64
+}
+
+// Colours of the pulse report's curves.
+var (
+	colVoltage = color.RGBA{R: 20, G: 70, B: 190, A: 255}
+	colCurrent = color.RGBA{R: 200, G: 40, B: 30, A: 255}
+	colField   = color.RGBA{R: 20, G: 130, B: 60, A: 255}
+	colDensity = color.RGBA{R: 120, G: 40, B: 160, A: 255}
+	colUpper   = color.RGBA{R: 20, G: 70, B: 190, A: 255}
+	colLower   = color.RGBA{R: 230, G: 130, B: 0, A: 255}
+	colFront   = color.RGBA{R: 200, G: 40, B: 30, A: 255}
+	colRear    = color.RGBA{R: 20, G: 70, B: 190, A: 255}
+	colTotal   = color.RGBA{R: 110, G: 110, B: 110, A: 255}
+	colMark    = color.RGBA{A: 255}
+)
+
+// PulseReport draws the pulse report of one shot into path (.png or .svg): five panels
+// stacked on one time axis [ns]: channel voltage [kV] and current [kA]; reduced field [Td];
+// electron density [cm⁻³, log axis]; upper and lower laser-level populations [cm⁻³]; output
+// power at each end (and their sum) with the full width at half maximum marked.
+func PulseReport(path string, r PulseData) error {
+	if _, err := figureFormat(path); err != nil {
+		return err
+	}
+	if err := r.check(); err != nil {
+		return err
+	}
+	t := scaled(r.Time, 1e9)
+	panels := []*plot.Plot{
+		r.circuitPanel(t), r.fieldPanel(t), r.densityPanel(t), r.populationPanel(t), r.powerPanel(t),
+	}
+	for i, p := range panels {
+		printStyle(p)
+		p.X.Min, p.X.Max = t[0], t[len(t)-1]
+		grid := plotter.NewGrid()
+		grid.Vertical.Color = nil // the upper panels have no labelled time ticks to align with
+		p.Add(grid)
+		p.Legend.Top = true
+		p.Legend.TextStyle.Font.Size = legendSize
+		if i < len(panels)-1 {
+			p.X.Tick.Marker = unlabelled{niceTicks{}}
+		} else {
+			p.X.Label.Text = "time [ns]"
+		}
+	}
+	panels[0].Title.Text = r.Title
+	rows := make([][]*plot.Plot, len(panels))
+	for i, p := range panels {
+		rows[i] = []*plot.Plot{p}
+	}
+	tiles := draw.Tiles{Rows: len(panels), Cols: 1, PadTop: vg.Millimeter, PadBottom: vg.Millimeter,
+		PadLeft: vg.Millimeter, PadRight: 3 * vg.Millimeter, PadY: 2 * vg.Millimeter}
+	w, h := 16*vg.Centimeter, 24*vg.Centimeter
+	return saveCanvas(path, w, h, func(c draw.Canvas) {
+		canvases := plot.Align(rows, tiles, c)
+		for i, p := range panels {
+			p.Draw(canvases[i][0])
+		}
+	})
+}
+
+// check validates the lengths and values of the series.
+func (r *PulseData) check() error {
+	n := len(r.Time)
+	if n < 2 {
+		return fmt.Errorf("plots: pulse report: PulseData.Time has %d samples, want at least 2", n)
+	}
+	for i, v := range r.Time {
+		if math.IsNaN(v) || math.IsInf(v, 0) || (i > 0 && v < r.Time[i-1]) {
+			return fmt.Errorf("plots: pulse report: PulseData.Time[%d] = %g s: want finite, non-decreasing times", i, v)
+		}
+	}
+	if !(r.Time[n-1] > r.Time[0]) {
+		return fmt.Errorf("plots: pulse report: PulseData.Time spans no time (%g s to %g s)", r.Time[0], r.Time[n-1])
+	}
+	for _, s := range []struct {
+		name string
+		v    []float64
+	}{{"ChannelVoltage", r.ChannelVoltage}, {"Current", r.Current}, {"ReducedField", r.ReducedField},
+		{"ElectronDensity", r.ElectronDensity}, {"UpperLevel", r.UpperLevel}, {"LowerLevel", r.LowerLevel},
+		{"PowerFront", r.PowerFront}, {"PowerRear", r.PowerRear}} {
+		if len(s.v) != 0 && len(s.v) != n {
+			return fmt.Errorf("plots: pulse report: PulseData.%s has %d values, want 0 or len(Time) = %d", s.name, len(s.v), n)
+		}
+	}
+	if math.IsNaN(r.FWHMStart) || math.IsNaN(r.FWHMEnd) || r.FWHMEnd < r.FWHMStart {
+		return fmt.Errorf("plots: pulse report: FWHMStart = %g s, FWHMEnd = %g s: want FWHMStart ≤ FWHMEnd", r.FWHMStart, r.FWHMEnd)
+	}
+	return nil
+}
+
+func (r *PulseData) circuitPanel(t []float64) *plot.Plot {
+	p := plot.New()
+	fv, uv := siScale(maxAbs(r.ChannelVoltage), "V")
+	fi, ui := siScale(maxAbs(r.Current), "A")
+	addCurve(p, t, r.ChannelVoltage, fv, "channel voltage ["+uv+"]", colVoltage, false, false)
+	addCurve(p, t, r.Current, fi, "current ["+ui+"]", colCurrent, true, false)
+	p.Y.Label.Text = uv + ", " + ui
+	return p
+}
+
+func (r *PulseData) fieldPanel(t []float64) *plot.Plot {
+	p := plot.New()
+	addCurve(p, t, r.ReducedField, 1/units.Townsend, "", colField, false, false)
+	p.Y.Label.Text = "E/N [Td]"
+	return p
+}
+
+func (r *PulseData) densityPanel(t []float64) *plot.Plot {
+	p := plot.New()
+	if addCurve(p, t, r.ElectronDensity, 1e-6, "", colDensity, false, true) {
+		p.Y.Scale = plot.LogScale{}
+		p.Y.Tick.Marker = decadeTicks{}
+	}
+	p.Y.Label.Text = "nₑ [1" + perCm3 + "]"
+	return p
+}
+
+func (r *PulseData) populationPanel(t []float64) *plot.Plot {
+	p := plot.New()
+	f, u := powerScale(1e-6*maxAbs(r.UpperLevel, r.LowerLevel), perCm3)
+	addCurve(p, t, r.UpperLevel, 1e-6*f, "upper level C", colUpper, false, false)
+	addCurve(p, t, r.LowerLevel, 1e-6*f, "lower level B", colLower, true, false)
+	p.Y.Label.Text = "population [" + u + "]"
+	return p
+}
+
+func (r *PulseData) powerPanel(t []float64) *plot.Plot {
+	p := plot.New()
+	var total []float64
+	if len(r.PowerFront) > 0 && len(r.PowerRear) > 0 {
+		total = make([]float64, len(t))
+		for i := range total {
+			total[i] = r.PowerFront[i] + r.PowerRear[i]
+		}
+	} else if len(r.PowerFront) > 0 {
+		total = r.PowerFront
+	} else {
+		total = r.PowerRear
+	}
+	f, u := siScale(maxAbs(total), "W")
+	addCurve(p, t, r.PowerFront, f, "front end", colFront, false, false)
+	addCurve(p, t, r.PowerRear, f, "rear end", colRear, true, false)
+	if len(r.PowerFront) > 0 && len(r.PowerRear) > 0 {
+		addCurve(p, t, total, f, "total", colTotal, false, false)
+	}
+	p.Y.Label.Text = "power [" + u + "]"
+	p.Y.Min = 0
+	if r.FWHMEnd > r.FWHMStart && maxAbs(total) > 0 {
+		markFWHM(p, 1e9*r.FWHMStart, 1e9*r.FWHMEnd, 0.5*f*maxAbs(total))
+	}
+	return p
+}
+
+// markFWHM draws dashed verticals at the half-maximum crossings a and b [ns], a bar between
+// them at the half-maximum level half, and the label "FWHM … ns".
+func markFWHM(p *plot.Plot, a, b, half float64) {
+	dash := []vg.Length{vg.Points(3), vg.Points(2)}
+	for _, x := range []float64{a, b} {
+		l, err := plotter.NewLine(plotter.XYs{{X: x, Y: 0}, {X: x, Y: 2 * half}})
+		if err != nil {
+			continue
+		}
+		l.Color, l.Dashes, l.Width = colMark, dash, vg.Points(0.7)
+		p.Add(l)
+	}
+	bar, err := plotter.NewLine(plotter.XYs{{X: a, Y: half}, {X: b, Y: half}})
+	if err == nil {
+		bar.Color, bar.Width = colMark, vg.Points(1.2)
+		p.Add(bar)
+	}
+	width := b - a
+	text := fmt.Sprintf("FWHM %.3g ns", width)
+	if width < 1 {
+		text = fmt.Sprintf("FWHM %.3g ps", 1e3*width)
+	}
+	lab, err := plotter.NewLabels(plotter.XYLabels{XYs: plotter.XYs{{X: b, Y: half}}, Labels: []string{text}})
+	if err == nil {
+		for i := range lab.TextStyle {
+			lab.TextStyle[i].Font.Size = legendSize
+			lab.TextStyle[i].YAlign = -0.5
+		}
+		lab.Offset = vg.Point{X: vg.Points(3)}
+		p.Add(lab)
+	}
+}
+
+// addCurve adds v·factor against t as a line, broken at NaN values (and at non-positive ones
+// for a log axis), with a legend entry if name is not empty. It reports whether any point was
+// drawn.
+func addCurve(p *plot.Plot, t, v []float64, factor float64, name string, col color.Color, dashed, logY bool) bool {
+	if len(v) == 0 {
+		return false
+	}
+	var segments []plotter.XYs
+	var cur plotter.XYs
+	for i, x := range v {
+		y := x * factor
+		if math.IsNaN(y) || math.IsInf(y, 0) || (logY && y <= 0) {
+			if len(cur) > 0 {
+				segments, cur = append(segments, cur), nil
+			}
+			continue
+		}
+		cur = append(cur, plotter.XY{X: t[i], Y: y})
+	}
+	if len(cur) > 0 {
+		segments = append(segments, cur)
+	}
+	var first *plotter.Line
+	for _, s := range segments {
+		l, err := plotter.NewLine(s)
+		if err != nil {
+			continue
+		}
+		l.Color, l.Width = col, vg.Points(1.2)
+		if dashed {
+			l.Dashes = []vg.Length{vg.Points(4), vg.Points(2)}
+		}
+		p.Add(l)
+		if first == nil {
+			first = l
+		}
+	}
+	if first != nil && name != "" {
+		p.Legend.Add(name, first)
+	}
+	return first != nil
+}
+
+// scaled returns v·f as a new slice.
+func scaled(v []float64, f float64) []float64 {
+	out := make([]float64, len(v))
+	for i, x := range v {
+		out[i] = x * f
+	}
+	return out
+}
+
+// unlabelled keeps a ticker's marks but drops their labels (for panels above the shared axis).
+type unlabelled struct{ plot.Ticker }
+
+func (u unlabelled) Ticks(min, max float64) []plot.Tick {
+	ts := u.Ticker.Ticks(min, max)
+	for i := range ts {
+		ts[i].Label = ""
+	}
+	return ts
+}
