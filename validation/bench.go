@@ -1,8 +1,10 @@
 package validation
 
 import (
+	"errors"
 	"math"
 
+	"n2pulse/kinetics"
 	"n2pulse/kinetics/build"
 	"n2pulse/units"
 )
@@ -12,6 +14,47 @@ const torrCM = units.Torr * 0.01
 
 func init() {
 	Register("bench", benchChecks)
+	Register("sensitivity", sensitivityChecks)
+}
+
+// sensitivityChecks compares Sensitivity with explicit runs and the bench's stored energy with
+// the run's.
+func sensitivityChecks() ([]Check, error) {
+	d := kinetics.ExampleDesign()
+	rows, err := kinetics.Sensitivity(d, []string{"circuit.charge_voltage"}, 0.01)
+	if err != nil {
+		return nil, err
+	}
+	energy := func(v float64) (float64, *kinetics.Result, error) {
+		c := d.Clone()
+		c.Circuit.ChargeVoltage = v
+		r, err := kinetics.Run(c, &kinetics.RunSettings{Light: true})
+		if err != nil {
+			return 0, nil, err
+		}
+		return r.Summary.EnergyTotal, r, nil
+	}
+	v0 := d.Circuit.ChargeVoltage
+	up, _, err1 := energy(1.01 * v0)
+	dn, _, err2 := energy(0.99 * v0)
+	_, base, err3 := energy(v0)
+	err = errors.Join(err1, err2, err3)
+	explicit := (math.Log(up) - math.Log(dn)) / (math.Log(1.01) - math.Log(0.99))
+	cs := []Check{{
+		ID: "sensitivity.energy.charge_voltage", Quantity: "d ln E/d ln V₀ of the example against two explicit runs at V₀ ± 1 %",
+		Computed: rows[0].Energy, Reference: explicit, Tolerance: 0.05, Mode: Relative, Kind: Analytic, Err: err,
+		Source: "finite-difference identity: (ln E(1.01V₀) − ln E(0.99V₀)) / (ln 1.01 − ln 0.99)",
+	}}
+	b, berr := d.Bench()
+	c := Check{
+		ID: "sensitivity.bench.stored_energy", Quantity: "stored energy, bench against run (example)", Unit: "J",
+		Tolerance: 1e-9, Mode: Relative, Kind: Analytic, Err: errors.Join(berr, err3),
+		Source: "½(C₁ + C₂)V₀² of a Blumlein both of whose capacitors charge to V₀",
+	}
+	if berr == nil && err3 == nil {
+		c.Computed, c.Reference = b.StoredEnergy, base.Summary.StoredEnergy
+	}
+	return append(cs, c), nil
 }
 
 // benchChecks compares the bench formulas of package build with textbook formulas, worked
