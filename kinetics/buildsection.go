@@ -300,3 +300,14 @@ func (d *Design) EffectiveUpperLifetime() float64 {
 	}
 	return 1 / d.Levels.UpperDecayRate(tau, d.Gas)
 }
+
+// hasBuild reports whether a flattened design has a [build] section: the hook by which
+// ParseDesign hands such a design to parseBuilt.
+func hasBuild(flat map[string]any) bool {
+	for k := range flat {
+		if strings.HasPrefix(k, "build.") {
+			return true
+		}
+	}
+	return false
+}

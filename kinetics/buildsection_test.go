@@ -140,3 +140,9 @@ func TestEffectiveUpperLifetime(t *testing.T) {
 		t.Errorf("τ_eff = %g, want τ/(1+p/p_q) = %g", got, 40e-9/(1+101325/pq))
 	}
 }
+
+func TestHasBuild(t *testing.T) {
+	if hasBuild(map[string]any{"channel.length": 0.2}) || !hasBuild(map[string]any{"build.rail_height": "5 mm"}) {
+		t.Error("hasBuild misreads the section")
+	}
+}
