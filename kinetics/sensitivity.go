@@ -158,8 +158,7 @@ func Sensitivity(d *Design, keys []string, step float64) ([]SensitivityRow, erro
 			continue
 		}
 		if !(eLo > 0 && eHi > 0 && pLo > 0 && pHi > 0) {
-			rows[i].Problem = "no output on one side"
-			rows[i].Energy, rows[i].PeakPower = math.NaN(), math.NaN()
+			rows[i].Problem = "no output on one side" // values stay 0: JSON has no NaN
 			continue
 		}
 		rows[i].Energy = (math.Log(eHi) - math.Log(eLo)) / span
