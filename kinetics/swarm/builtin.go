@@ -18,7 +18,7 @@ import (
 
 // SolverVersion changes whenever the solver or the shipped cross sections change in a way that
 // changes results; cached tables carry it in their key.
-const SolverVersion = "hp2t-1"
+const SolverVersion = "hp2t-2"
 
 // Air is the composition used for the built-in "air" table and recognised by ForMixture: dry
 // air with argon and CO₂ counted as N₂, N₂ 0.79 / O₂ 0.21 (common practice, no source).

@@ -553,9 +553,10 @@ func (s *Solver) Solve(reducedField float64) (*Result, error) {
 	emax := s.set.MaxEnergy / units.ElectronVolt
 	adaptive := emax == 0
 	if adaptive {
+		guess := 8 * math.Pow(td/10, 0.55) // [eV], a rough fit of the N₂ results
 		emax = s.lastMax
-		if emax == 0 {
-			emax = 8 * math.Pow(td/10, 0.55)
+		if emax == 0 || emax > 4*guess || emax < guess/4 {
+			emax = guess
 		}
 	}
 	nu := s.lastNu
@@ -573,19 +574,25 @@ func (s *Solver) Solve(reducedField float64) (*Result, error) {
 		if iter >= 25 {
 			return nil, fmt.Errorf("swarm: energy grid did not settle at E/N = %.4g Td (tail ratio %.3g at %.4g eV)", td, r, emax)
 		}
-		if r > tailHi || r <= 0 || math.IsNaN(r) {
-			loB = emax
+		if math.IsNaN(r) {
+			return nil, fmt.Errorf("swarm: EEDF not finite at E/N = %.4g Td", td)
+		}
+		if r > tailHi {
+			loB = emax // the grid is too short: the tail has not decayed
 		} else {
-			hiB = emax
+			hiB = emax // the tail decayed too far (possibly to zero)
 		}
 		if loB > 0 && hiB > 0 {
 			emax = math.Sqrt(loB * hiB)
 			continue
 		}
 		var f float64
-		if r <= 0 || r >= 1 || math.IsNaN(r) {
+		switch {
+		case r >= 1:
 			f = 2.5
-		} else {
+		case r <= 1e-300:
+			f = 0.5
+		default:
 			f = math.Log(tailTarget) / math.Log(r)
 		}
 		emax *= math.Max(0.5, math.Min(2.5, f))

@@ -4,7 +4,6 @@ import (
 	"errors"
 	"fmt"
 	"math"
-	"sort"
 	"sync/atomic"
 )
 
@@ -48,9 +47,9 @@ func fromValues(en float64, v *[nfields]float64) Coefficients {
 //   - above the last row every coefficient is the last row's;
 //   - below the first row the drift velocity follows constant mobility, v = v₁·(E/N)/(E/N)₁, so
 //     it goes to zero smoothly at E/N = 0, and the mean energy and rate coefficients are held at
-//     the first row's values (they are tiny there for the excitation and ionisation rates);
-//     α/N and η/N are recomputed from the held rates and the scaled velocity would diverge,
-//     so they too are held at the first row's values.
+//     the first row's values (they are tiny there for the excitation and ionisation rates),
+//     and so are α/N and η/N (recomputing them from held rates and a vanishing velocity
+//     would diverge).
 //
 // E/N = 0 returns zero drift velocity and the first row's other values; it is counted as below.
 type Table struct {
@@ -58,6 +57,7 @@ type Table struct {
 	logx  []float64          // ln E/N of the rows
 	logv  [][nfields]float64 // ln of each value (or NaN where the value is not positive)
 	lin   [][nfields]float64 // the values themselves
+	slope [][nfields]float64 // d ln v / d ln(E/N) on each interval, or linearMark
 	below atomic.Int64
 	above atomic.Int64
 }
@@ -96,8 +96,22 @@ func NewTable(rows []Coefficients) (*Table, error) {
 		}
 		t.logx[i] = math.Log(r.ReducedField)
 	}
+	t.slope = make([][nfields]float64, len(rows)-1)
+	for i := range t.slope {
+		for k := 0; k < nfields; k++ {
+			a, b := t.logv[i][k], t.logv[i+1][k]
+			if math.IsNaN(a) || math.IsNaN(b) {
+				t.slope[i][k] = linearMark
+				continue
+			}
+			t.slope[i][k] = (b - a) / (t.logx[i+1] - t.logx[i])
+		}
+	}
 	return t, nil
 }
+
+// linearMark flags an interval where a value is zero at one end and is interpolated linearly.
+var linearMark = math.Inf(1)
 
 var fieldNames = [nfields]string{"mean energy", "drift velocity", "alpha/N", "eta/N", "k_ion", "k_att", "k_A", "k_B", "k_C"}
 
@@ -126,24 +140,28 @@ func (t *Table) At(reducedField float64) Coefficients {
 		return c
 	}
 	x := math.Log(en)
-	// index of the first row with logx > x, minus one, within [0, n-2]
-	i := sort.SearchFloat64s(t.logx, x) - 1
-	if i < 0 {
-		i = 0
+	// binary search: the last row i with logx[i] <= x, within [0, n-2]
+	lo2, hi2 := 0, n-1
+	for hi2-lo2 > 1 {
+		m := int(uint(lo2+hi2) >> 1)
+		if t.logx[m] <= x {
+			lo2 = m
+		} else {
+			hi2 = m
+		}
 	}
-	if i > n-2 {
-		i = n - 2
-	}
-	s := (x - t.logx[i]) / (t.logx[i+1] - t.logx[i])
+	i := lo2
+	dx := x - t.logx[i]
+	sl := &t.slope[i]
+	a := &t.logv[i]
 	var v [nfields]float64
-	a, b := &t.logv[i], &t.logv[i+1]
 	for k := range v {
-		if math.IsNaN(a[k]) || math.IsNaN(b[k]) {
+		if sl[k] == linearMark {
 			f := (en - t.rows[i].ReducedField) / (t.rows[i+1].ReducedField - t.rows[i].ReducedField)
 			v[k] = t.lin[i][k] + f*(t.lin[i+1][k]-t.lin[i][k])
 			continue
 		}
-		v[k] = math.Exp(a[k] + s*(b[k]-a[k]))
+		v[k] = math.Exp(a[k] + sl[k]*dx)
 	}
 	return fromValues(en, &v)
 }

@@ -1,0 +1,250 @@
+package validation
+
+import (
+	"fmt"
+	"math"
+
+	"n2pulse/kinetics/swarm"
+	"n2pulse/units"
+)
+
+func init() {
+	Register("swarm", swarmChecks)
+}
+
+// Sources of the swarm references.
+const (
+	srcMorrowLowke = "J.M. Morrow & J.J. Lowke, J. Phys. D 30, 614 (1997), appendix: fits to measured swarm data in air, as transcribed in public streamer-simulation files (seen)"
+	srcNasser      = "α/p = A exp(−B p/E), A = 12.0 cm⁻¹Torr⁻¹, B = 342.6 V cm⁻¹Torr⁻¹ for N₂ (E. Nasser, Fundamentals of Gaseous Ionization and Plasma Electronics, Wiley 1971, transcribed in a public Paschen-law module, seen; Raizer, Gas Discharge Physics 1991, Table 4.1 gives 12 and 342); valid for E/p 100–600 V cm⁻¹Torr⁻¹; T = 293.15 K (physics-data.md §5a–b)"
+	srcAirE0       = "air breakdown field E₀ ≈ 30 kV/cm at 1 atm, as quoted in a public lightning-simulation source (physics-data.md §5d, seen), i.e. E/N = 120 Td at 101325 Pa, 293 K"
+)
+
+// morrowLowke returns the Morrow–Lowke air fits at E/N [V m²]: drift velocity [m/s], α/N and
+// two-body η/N [m²], and characteristic energy D/μ [eV].
+func morrowLowke(en float64) (w, alphaN, etaN, charE float64) {
+	x := en * 1e4 // V cm²
+	switch {
+	case x > 2e-15:
+		w = 7.4e21*x + 7.1e6
+	case x > 1e-16:
+		w = 1.03e22*x + 1.3e6
+	case x > 2.6e-17:
+		w = 7.2973e21*x + 1.63e6
+	default:
+		w = 6.87e22*x + 3.38e4
+	}
+	w *= 1e-2
+	if x > 1.5e-15 {
+		alphaN = 2e-16 * math.Exp(-7.248e-15/x)
+	} else {
+		alphaN = 6.619e-17 * math.Exp(-5.593e-15/x)
+	}
+	if x > 1.05e-15 {
+		etaN = 8.889e-5*x + 2.567e-19
+	} else {
+		etaN = 6.089e-4*x - 2.893e-19
+	}
+	alphaN *= 1e-4
+	etaN = math.Max(etaN, 0) * 1e-4
+	charE = 0.3341e9 * math.Pow(x, 0.54069)
+	return
+}
+
+// crossing finds the E/N [V m²] in [lo, hi] where f changes sign, by bisection in log E/N.
+func crossing(f func(en float64) (float64, error), lo, hi float64) (float64, error) {
+	flo, err := f(lo)
+	if err != nil {
+		return 0, err
+	}
+	fhi, err := f(hi)
+	if err != nil {
+		return 0, err
+	}
+	if flo*fhi > 0 {
+		return 0, fmt.Errorf("no sign change between %.4g and %.4g Td", lo/units.Townsend, hi/units.Townsend)
+	}
+	for i := 0; i < 16; i++ { // the bracket shrinks to ~1e-5 of E/N
+		mid := math.Sqrt(lo * hi)
+		fm, err := f(mid)
+		if err != nil {
+			return 0, err
+		}
+		if fm*flo > 0 {
+			lo, flo = mid, fm
+		} else {
+			hi = mid
+		}
+	}
+	return math.Sqrt(lo * hi), nil
+}
+
+func swarmChecks() ([]Check, error) {
+	n2mix, err := swarm.Mixture(1, 0, 0)
+	if err != nil {
+		return nil, err
+	}
+	airmix, err := swarm.Mixture(swarm.Air.Nitrogen, swarm.Air.Oxygen, 0)
+	if err != nil {
+		return nil, err
+	}
+	n2, err := swarm.NewSolver(n2mix, nil)
+	if err != nil {
+		return nil, err
+	}
+	air, err := swarm.NewSolver(airmix, nil)
+	if err != nil {
+		return nil, err
+	}
+	var cs []Check
+	td := func(x float64) string { return fmt.Sprintf("%gTd", x) }
+
+	// Drift velocity in air against the Morrow–Lowke fit, 10–500 Td (below the strong-ionisation
+	// range where the measured bulk velocity exceeds the two-term flux velocity).
+	for _, x := range []float64{10, 30, 100, 200, 300, 500} {
+		r, err := air.Solve(x * units.Townsend)
+		w, _, _, _ := morrowLowke(x * units.Townsend)
+		c := Check{ID: "swarm.drift.air." + td(x), Quantity: fmt.Sprintf("electron drift velocity in air at %g Td", x),
+			Unit: "m/s", Reference: w, Tolerance: 0.10, Mode: Relative, Kind: Published, Source: srcMorrowLowke, Err: err}
+		if err == nil {
+			c.Computed = r.DriftVelocity
+		}
+		cs = append(cs, c)
+	}
+	// Drift velocity in N₂: no measured table was found; recalled anchors, soft.
+	for _, m := range []struct{ td, w float64 }{{100, 1.1e5}, {300, 2.9e5}} {
+		r, err := n2.Solve(m.td * units.Townsend)
+		c := Check{ID: "swarm.drift.n2." + td(m.td), Quantity: fmt.Sprintf("electron drift velocity in N₂ at %g Td", m.td),
+			Unit: "m/s", Reference: m.w, Tolerance: 0.20, Mode: Relative, Kind: FromMemory,
+			Source: "from memory (order of the measured N₂ drift velocities compiled by Dutton, J. Phys. Chem. Ref. Data 4, 577 (1975)); soft, ±20 %", Err: err}
+		if err == nil {
+			c.Computed = r.DriftVelocity
+		}
+		cs = append(cs, c)
+	}
+	// Townsend ionisation coefficient in N₂ against the Nasser/Raizer fit, 300–1000 Td.
+	for _, x := range []float64{300, 400, 500, 700, 1000} {
+		r, err := n2.Solve(x * units.Townsend)
+		ep := x / 3.036                                      // E/p [V cm⁻¹ Torr⁻¹] at 293.15 K (physics-data.md §8)
+		ref := 12.0 * math.Exp(-342.6/ep) * 100 / 3.29402e22 // α/N [m²]: α/p [cm⁻¹Torr⁻¹]·100 / N(1 Torr, 293.15 K)
+		c := Check{ID: "swarm.alpha.n2." + td(x), Quantity: fmt.Sprintf("α/N in N₂ at %g Td", x), Unit: "m²",
+			Reference: ref, Tolerance: 0.30, Mode: Relative, Kind: Published, Source: srcNasser, Err: err}
+		if err == nil {
+			c.Computed = r.AlphaN
+		}
+		cs = append(cs, c)
+	}
+	// α/N in air against Morrow–Lowke (steep near threshold: factor 1.5).
+	for _, x := range []float64{200, 300, 500} {
+		r, err := air.Solve(x * units.Townsend)
+		_, a, _, _ := morrowLowke(x * units.Townsend)
+		c := Check{ID: "swarm.alpha.air." + td(x), Quantity: fmt.Sprintf("α/N in air at %g Td", x), Unit: "m²",
+			Reference: a, Tolerance: 1.5, Mode: Factor, Kind: Published, Source: srcMorrowLowke, Err: err}
+		if err == nil {
+			c.Computed = r.AlphaN
+		}
+		cs = append(cs, c)
+	}
+	// Two-body attachment in air near threshold.
+	for _, x := range []float64{100, 150} {
+		r, err := air.Solve(x * units.Townsend)
+		_, _, e, _ := morrowLowke(x * units.Townsend)
+		c := Check{ID: "swarm.eta.air." + td(x), Quantity: fmt.Sprintf("two-body η/N in air at %g Td", x), Unit: "m²",
+			Reference: e, Tolerance: 0.30, Mode: Relative, Kind: Published, Source: srcMorrowLowke, Err: err}
+		if err == nil {
+			c.Computed = r.EtaN - r.ThreeBodyAttachment/r.DriftVelocity
+		}
+		cs = append(cs, c)
+	}
+	// Effective ionisation threshold of air, α = η (two-body attachment only, as in the fits).
+	netAir := func(en float64) (float64, error) {
+		r, err := air.Solve(en)
+		if err != nil {
+			return 0, err
+		}
+		return r.Ionisation - (r.Attachment - r.ThreeBodyAttachment), nil
+	}
+	crit, err := crossing(netAir, 100*units.Townsend, 150*units.Townsend)
+	cs = append(cs, Check{ID: "swarm.critical.air", Quantity: "effective ionisation threshold of air (α = η)", Unit: "Td",
+		Computed: crit / units.Townsend, Reference: 120, Tolerance: 0.08, Mode: Relative, Kind: Published, Source: srcAirE0, Err: err})
+	mlNet := func(en float64) (float64, error) { _, a, e, _ := morrowLowke(en); return a - e, nil }
+	mlCrit, _ := crossing(mlNet, 80*units.Townsend, 200*units.Townsend)
+	cs = append(cs, Check{ID: "swarm.critical.air.ml", Quantity: "effective ionisation threshold of air against the crossing of the Morrow–Lowke α and η fits",
+		Unit: "Td", Computed: crit / units.Townsend, Reference: mlCrit / units.Townsend, Tolerance: 0.15, Mode: Relative, Kind: Published,
+		Source: srcMorrowLowke + "; crossing derived here", Err: err})
+	// Characteristic energy D/μ in air against Morrow–Lowke.
+	for _, x := range []float64{20, 100, 200, 300} {
+		r, err := air.Solve(x * units.Townsend)
+		_, _, _, ek := morrowLowke(x * units.Townsend)
+		c := Check{ID: "swarm.charenergy.air." + td(x), Quantity: fmt.Sprintf("characteristic energy D/μ in air at %g Td", x), Unit: "eV",
+			Reference: ek, Tolerance: 0.20, Mode: Relative, Kind: Published, Source: srcMorrowLowke + " (D/μ = 0.3341e9 (E/N[V cm²])^0.54069 V)", Err: err}
+		if err == nil {
+			c.Computed = r.Characteristic / units.ElectronVolt
+		}
+		cs = append(cs, c)
+	}
+	cs = append(cs, analyticSwarmChecks()...)
+	// Conservation on the shipped grid: power balance and normalisation over 10–3000 Td.
+	worstP, worstN := 0.0, 0.0
+	for _, en := range []float64{10, 100, 1000, 3000} {
+		for _, s := range []*swarm.Solver{n2, air} {
+			r, err := s.Solve(en * units.Townsend)
+			if err != nil {
+				return nil, err
+			}
+			worstP = math.Max(worstP, math.Abs(r.PowerBalance()))
+			worstN = math.Max(worstN, math.Abs(r.Normalisation-1))
+		}
+	}
+	cs = append(cs,
+		Check{ID: "swarm.powerbalance", Quantity: "largest |power balance residual| of the Boltzmann solution, N₂ and air, 10–3000 Td",
+			Computed: worstP, Reference: 0, Tolerance: 1e-3, Mode: Absolute, Kind: Analytic,
+			Source: "energy conservation: (E/N)·w = elastic + inelastic + attachment + growth powers (Hagelaar & Pitchford, PSST 14, 722 (2005))"},
+		Check{ID: "swarm.normalisation", Quantity: "largest |∫ε^½F0 dε − 1|, N₂ and air, 10–3000 Td",
+			Computed: worstN, Reference: 0, Tolerance: 1e-9, Mode: Absolute, Kind: Analytic, Source: "EEDF normalisation (definition)"})
+	return cs, nil
+}
+
+// analyticSwarmChecks are the Maxwell and Druyvesteyn limits of the solver.
+func analyticSwarmChecks() []Check {
+	model := func(sigma func(eV float64) float64) *swarm.Species {
+		p := swarm.Process{Kind: swarm.Elastic, Name: "model", Source: "analytic model"}
+		for i := 0; i <= 1200; i++ {
+			e := 1e-4 * math.Pow(1e8, float64(i)/1200)
+			p.Energy = append(p.Energy, e*units.ElectronVolt)
+			p.Sigma = append(p.Sigma, sigma(e))
+		}
+		return &swarm.Species{Name: "model", Mass: 28 * units.AtomicMass, Processes: []swarm.Process{p}}
+	}
+	ratio := 28 * units.AtomicMass / units.ElectronMass
+	var cs []Check
+	// constant collision frequency: Maxwellian with kTe = kTg + (M/6m)(E/N/C)²
+	const C = 1e-20
+	en := 0.1 * units.Townsend
+	kTe := units.Boltzmann*300/units.ElementaryCharge + en*en*ratio/(6*C*C)
+	c := Check{ID: "swarm.analytic.maxwell", Quantity: "mean energy, elastic only with constant collision frequency (Maxwellian limit)",
+		Unit: "eV", Reference: 1.5 * kTe, Tolerance: 0.01, Mode: Relative, Kind: Analytic,
+		Source: "Maxwellian at kT_e = kT_g + (M/6m)(eE/(m ν_m))²·m… in swarm form kT_e = kT_g + (M/6m)(E/N)²/C², σ_m = C ε^-½ (e.g. Raizer, Gas Discharge Physics, 1991, §2.4)"}
+	if s, err := swarm.NewSolver([]swarm.Component{{Species: model(func(e float64) float64 { return C / math.Sqrt(e) }), Fraction: 1}}, &swarm.Settings{Cells: 400}); err != nil {
+		c.Err = err
+	} else if r, err := s.Solve(en); err != nil {
+		c.Err = err
+	} else {
+		c.Computed = r.MeanEnergy / units.ElectronVolt
+	}
+	cs = append(cs, c)
+	// constant cross section, cold gas: Druyvesteyn
+	const sig = 1e-19
+	en = 4 * units.Townsend
+	a := en / sig * math.Sqrt(ratio/3)
+	c = Check{ID: "swarm.analytic.druyvesteyn", Quantity: "mean energy, elastic only with constant cross section, cold gas (Druyvesteyn limit)",
+		Unit: "eV", Reference: a * math.Gamma(1.25) / math.Gamma(0.75), Tolerance: 0.01, Mode: Relative, Kind: Analytic,
+		Source: "Druyvesteyn distribution F0 ∝ exp(−ε²/a²), a² = (M/3m)(E/N/σ)², ⟨ε⟩ = a Γ(5/4)/Γ(3/4) (Druyvesteyn 1930; e.g. Raizer, Gas Discharge Physics, 1991, §2.5)"}
+	if s, err := swarm.NewSolver([]swarm.Component{{Species: model(func(float64) float64 { return sig }), Fraction: 1}}, &swarm.Settings{Cells: 400, ColdGas: true}); err != nil {
+		c.Err = err
+	} else if r, err := s.Solve(en); err != nil {
+		c.Err = err
+	} else {
+		c.Computed = r.MeanEnergy / units.ElectronVolt
+	}
+	return append(cs, c)
+}
