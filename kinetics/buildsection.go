@@ -36,7 +36,7 @@ var buildFields = []buildField{
 	{key: "build.dielectric_thickness", dim: units.Length, num: func(s *build.Spec) *float64 { return &s.DielectricThickness }, min: 1e-6, max: 0.05, help: "dielectric thickness between the plates"},
 	{key: "build.permittivity", dim: units.Dimensionless, num: func(s *build.Spec) *float64 { return &s.Permittivity }, min: 1, max: 1e4, help: "relative permittivity (overrides the preset)"},
 	{key: "build.dielectric_strength", dim: units.ElectricField, num: func(s *build.Spec) *float64 { return &s.DielectricStrength }, min: 1e5, max: 1e10, help: "short-time dielectric strength (overrides the preset)"},
-	{key: "build.fringe_correction", str: func(s *build.Spec) *string { return (*string)(&s.Fringe) }, choices: func() []string { return []string{string(build.NoFringe), string(build.Palmer)} }, help: "edge-field correction of the plate capacitance"},
+	{key: "build.fringe_correction", str: func(s *build.Spec) *string { return (*string)(&s.Fringe) }, choices: func() []string { return []string{string(build.NoFringe), string(build.Palmer)} }, help: "edge-field correction of the plate capacitance: \"none\" or \"palmer\" (true means palmer)"},
 	{key: "build.rail_length", dim: units.Length, num: func(s *build.Spec) *float64 { return &s.RailLength }, min: 1e-3, max: 10, help: "electrode rail length (default: channel.length)"},
 	{key: "build.rail_height", dim: units.Length, num: func(s *build.Spec) *float64 { return &s.RailHeight }, min: 0, max: 0.5, help: "rail height from the plate to the discharge"},
 	{key: "build.rail_gap", dim: units.Length, num: func(s *build.Spec) *float64 { return &s.RailGap }, min: 1e-4, max: 0.2, help: "rail separation (default: channel.gap)"},
@@ -86,6 +86,13 @@ func setBuild(s *build.Spec, key string, v any) error {
 			p += fmt.Sprintf(" (did you mean %s?)", best)
 		}
 		return &KeyError{Key: key, Problem: p}
+	}
+	if on, isBool := v.(bool); isBool && key == "build.fringe_correction" {
+		*f.str(s) = string(build.NoFringe)
+		if on {
+			*f.str(s) = string(build.Palmer)
+		}
+		return nil
 	}
 	if f.str != nil {
 		t, ok := v.(string)

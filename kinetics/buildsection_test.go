@@ -146,3 +146,22 @@ func TestHasBuild(t *testing.T) {
 		t.Error("hasBuild misreads the section")
 	}
 }
+
+func TestFringeCorrectionKey(t *testing.T) {
+	for _, v := range []string{"true", `"palmer"`, `"Palmer"`} {
+		b, err := ParseBuiltDesign([]byte(boardDesign+"fringe_correction = "+v+"\n"), "board.toml")
+		if err != nil {
+			t.Fatal(err)
+		}
+		if b.Bench.Fringe != "palmer" {
+			t.Errorf("fringe_correction = %s: %q", v, b.Bench.Fringe)
+		}
+	}
+	b, err := ParseBuiltDesign([]byte(boardDesign+"fringe_correction = false\n"), "board.toml")
+	if err != nil || b.Bench.Fringe != "none" {
+		t.Errorf("fringe_correction = false: %v %v", err, b)
+	}
+	if _, err := ParseBuiltDesign([]byte(boardDesign+`fringe_correction = "kirchhoff"`+"\n"), "board.toml"); err == nil || !strings.Contains(err.Error(), "allowed: none, palmer") {
+		t.Errorf("kirchhoff: %v", err)
+	}
+}
