@@ -15,9 +15,11 @@ type stepper interface {
 	// accepted is called after a step has been accepted.
 	accepted()
 	// order is the order used for the initial step estimate; exponent the step-size
-	// controller exponent 1/(q+1).
+	// controller exponent 1/(q+1); predictive whether to use Gustafsson's predictive
+	// controller on accepted steps.
 	order() int
 	exponent() float64
+	predictive() bool
 }
 
 // core holds what all integrators share: the state, the interpolant of the last step, stop
@@ -44,6 +46,8 @@ type core struct {
 
 	nextStop int
 	facMax   float64 // growth bound of the next accepted step (1 after a rejection)
+	hAcc     float64 // last accepted step size [s] (0 before the first), for the predictive controller
+	errAcc   float64 // its error norm (floored at 1e-2)
 	stats    Stats
 }
 
@@ -77,6 +81,7 @@ func (c *core) init(sys System, t0 float64, y0 []float64, s *Settings) error {
 	c.hasPrev = false
 	c.nextStop = 0
 	c.facMax = 6
+	c.hAcc, c.errAcc = 0, 0
 	c.stats = Stats{}
 	if err := c.eval(t0, c.y, c.f); err != nil {
 		return fmt.Errorf("ode: right-hand side at t0 = %g s: %w", t0, err)
@@ -198,6 +203,16 @@ func (c *core) step(s stepper, tlimit float64) error {
 		if errNorm > 0 {
 			fac = math.Min(c.facMax, math.Max(0.2, 0.9*math.Pow(errNorm, -s.exponent())))
 		}
+		if s.predictive() && c.hAcc > 0 && !clipped {
+			// Gustafsson's predictive controller (Hairer & Wanner, Solving ODEs II, 2nd ed.,
+			// Sect. IV.8, eq. (8.21)) as in their code RODAS: take the smaller of the two
+			// proposals, which damps the oscillation between acceptance and rejection on
+			// stiff problems.
+			e := math.Max(errNorm, 1e-10)
+			gus := 0.9 * (h / c.hAcc) * math.Pow(c.errAcc/(e*e), s.exponent())
+			fac = math.Min(fac, math.Min(c.facMax, math.Max(0.2, gus)))
+		}
+		c.hAcc, c.errAcc = h, math.Max(errNorm, 1e-2)
 		c.h, c.facMax = fac*h, 6
 		if clipped {
 			// A step shortened to hit a target says little about the free step size.

@@ -61,6 +61,7 @@ func (d *DormandPrince) AdvanceTo(t float64) error { return d.advanceTo(d, t) }
 func (d *DormandPrince) order() int        { return 5 }
 func (d *DormandPrince) exponent() float64 { return 1.0 / 5 }
 func (d *DormandPrince) accepted()         {}
+func (d *DormandPrince) predictive() bool  { return false }
 
 func (d *DormandPrince) try(h float64) (float64, error) {
 	copy(d.k[0], d.f)

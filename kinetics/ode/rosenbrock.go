@@ -77,6 +77,7 @@ func (r *Rosenbrock) AdvanceTo(t float64) error { return r.advanceTo(r, t) }
 func (r *Rosenbrock) order() int        { return r.tab.Order }
 func (r *Rosenbrock) exponent() float64 { return 1 / float64(min(r.tab.Order, r.tab.EmbeddedOrder)+1) }
 func (r *Rosenbrock) accepted()         { r.jacValid = false }
+func (r *Rosenbrock) predictive() bool  { return true }
 
 // tStart is the time at which the step start is evaluated: just after t when t is a stop.
 func (r *Rosenbrock) tStart() float64 {
