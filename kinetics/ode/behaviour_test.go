@@ -222,8 +222,17 @@ func TestTypedErrors(t *testing.T) {
 		}
 	}
 	var d ode.DormandPrince
-	if _, err := d.Step(); !errors.Is(err, ode.ErrNotStarted) {
+	if _, err := d.Step(); !errors.Is(err, ode.ErrNotStarted) || !strings.HasPrefix(err.Error(), "ode: ") {
 		t.Errorf("Step before Init: %v", err)
+	}
+	if err := d.Init(odetest.DecaySystem{}, 0, []float64{1, 1}, nil); err != nil {
+		t.Fatal(err)
+	}
+	if err := d.Interpolate(0, make([]float64, 2)); err == nil {
+		t.Error("Interpolate before any step gave no error")
+	}
+	if s := d.Stats().String(); s != "steps 0, rejected 0, f evaluations 2, Jacobians 0, factorisations 0" {
+		t.Errorf("Stats after Init: %q (f(t0) and the initial-step estimate's evaluation expected)", s)
 	}
 }
 

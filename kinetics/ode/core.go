@@ -154,7 +154,7 @@ const epsilon = 0x1p-52
 // step takes one accepted step with method s, ending at or before tlimit.
 func (c *core) step(s stepper, tlimit float64) error {
 	if !c.ready {
-		return ErrNotStarted
+		return fmt.Errorf("ode: Step: %w", ErrNotStarted)
 	}
 	var cause error
 	for {
@@ -256,7 +256,7 @@ func (c *core) accept(h, target float64, clipped, landing bool) {
 // advanceTo steps with s until it lands on tout; a tout inside the last step is interpolated.
 func (c *core) advanceTo(s stepper, tout float64) error {
 	if !c.ready {
-		return ErrNotStarted
+		return fmt.Errorf("ode: AdvanceTo: %w", ErrNotStarted)
 	}
 	if math.IsNaN(tout) || tout < c.tPrev {
 		return fmt.Errorf("ode: AdvanceTo(%g s) is before the last step [%g, %g] s", tout, c.tPrev, c.t)
@@ -292,8 +292,11 @@ func (c *core) interpolate(t float64, dst []float64) {
 // Interpolate stores the solution at time t in dst, by cubic Hermite interpolation within the
 // last accepted step [tPrev, t]. It returns an error if t lies outside that step.
 func (c *core) Interpolate(t float64, dst []float64) error {
-	if !c.ready || !c.hasPrev {
-		return ErrNotStarted
+	if !c.ready {
+		return fmt.Errorf("ode: Interpolate: %w", ErrNotStarted)
+	}
+	if !c.hasPrev {
+		return fmt.Errorf("ode: Interpolate(%g s): no step taken yet", t)
 	}
 	if len(dst) != c.n {
 		panic("ode: Interpolate: wrong destination length")

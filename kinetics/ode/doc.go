@@ -26,8 +26,12 @@
 // and a step is accepted when ‖e‖ ≤ 1. Times are in seconds (any consistent unit works; error
 // messages print "s"). Integration runs forward in time only.
 //
-// Between steps the solution is available by cubic Hermite interpolation (AdvanceTo), which
-// costs no function evaluations: sampling a solution on a fine uniform grid is cheap.
+// AdvanceTo(t) ends a step exactly on t (shortening the step that would pass it; the step
+// size proposal is kept for the next step), so its result carries the method's full accuracy.
+// Within the last accepted step, Interpolate evaluates the cubic Hermite interpolant through
+// both ends' values and derivatives (error O(h⁴), not controlled) at no cost: to sample a
+// solution on a grid much finer than the steps, call Step and Interpolate each grid time it
+// covers, and bound MaxStep so the interpolant resolves the solution.
 // Times listed in Settings.Stops are hit exactly by a step end; the right-hand side may change
 // there (a switch closing), and the step after a stop evaluates it just after the stop time, so a
 // system that changes its equations for t > stop sees the old equations up to and at the stop.

@@ -55,7 +55,8 @@ func (d *DormandPrince) Step() (float64, error) {
 	return d.t, err
 }
 
-// AdvanceTo steps until t [s] is covered and sets the state to y(t).
+// AdvanceTo sets the state to y(t) [s]: interpolated within the last step, otherwise by
+// stepping with the last step ending exactly on t.
 func (d *DormandPrince) AdvanceTo(t float64) error { return d.advanceTo(d, t) }
 
 func (d *DormandPrince) order() int        { return 5 }

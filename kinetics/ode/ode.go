@@ -69,6 +69,12 @@ type Stats struct {
 	Factorizations int // LU factorisations of the iteration matrix
 }
 
+// String formats the counters for a statistics block.
+func (s Stats) String() string {
+	return fmt.Sprintf("steps %d, rejected %d, f evaluations %d, Jacobians %d, factorisations %d",
+		s.Steps, s.Rejected, s.FuncEvals, s.JacEvals, s.Factorizations)
+}
+
 // Integrator is the interface shared by the integrators of this package.
 type Integrator interface {
 	// Init starts an integration of sys from (t0, y0). It may be called again to restart,
@@ -76,8 +82,8 @@ type Integrator interface {
 	Init(sys System, t0 float64, y0 []float64, s *Settings) error
 	// Step takes one accepted step and returns the new time.
 	Step() (t float64, err error)
-	// AdvanceTo steps until t is covered and sets the state to y(t), interpolated within the
-	// last step unless t is a step end.
+	// AdvanceTo sets the state to y(t): interpolated if t lies within the last step,
+	// otherwise by stepping, the last step shortened to end exactly on t.
 	AdvanceTo(t float64) error
 	// State returns the time and solution of the last Step or AdvanceTo. The slice is owned by
 	// the integrator and overwritten by the next call.

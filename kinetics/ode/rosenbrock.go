@@ -71,7 +71,8 @@ func (r *Rosenbrock) Step() (float64, error) {
 	return r.t, err
 }
 
-// AdvanceTo steps until t [s] is covered and sets the state to y(t).
+// AdvanceTo sets the state to y(t) [s]: interpolated within the last step, otherwise by
+// stepping with the last step ending exactly on t.
 func (r *Rosenbrock) AdvanceTo(t float64) error { return r.advanceTo(r, t) }
 
 func (r *Rosenbrock) order() int        { return r.tab.Order }
