@@ -83,7 +83,7 @@ func swarmChecks() ([]Check, error) {
 	if err != nil {
 		return nil, err
 	}
-	airmix, err := swarm.Mixture(swarm.Air.Nitrogen, swarm.Air.Oxygen, 0)
+	airmix, err := swarm.Mixture(swarm.AirNitrogen, swarm.AirOxygen, 0)
 	if err != nil {
 		return nil, err
 	}

@@ -53,7 +53,7 @@ func runSwarm(args []string, stdout, stderr io.Writer) error {
 		case "n2":
 			xn = 1
 		case "air":
-			xn, xo = swarm.Air.Nitrogen, swarm.Air.Oxygen
+			xn, xo = swarm.AirNitrogen, swarm.AirOxygen
 		default:
 			return usagef("swarm: --gas %q: want n2 or air", *gas)
 		}

@@ -20,9 +20,13 @@ import (
 // changes results; cached tables carry it in their key.
 const SolverVersion = "hp2t-2"
 
-// Air is the composition used for the built-in "air" table and recognised by ForMixture: dry
-// air with argon and CO₂ counted as N₂, N₂ 0.79 / O₂ 0.21 (common practice, no source).
-var Air = struct{ Nitrogen, Oxygen float64 }{0.79, 0.21}
+// AirNitrogen and AirOxygen are the mole fractions of the built-in "air" table, recognised by
+// ForMixture: dry air with its argon and CO₂ (about 1 %) counted as N₂ (common practice, no
+// source).
+const (
+	AirNitrogen = 0.79
+	AirOxygen   = 0.21
+)
 
 // TableFields are the reduced fields [V m²] of the shipped and cached tables: 64 points
 // log-spaced from 10 to 3000 Td.
@@ -232,7 +236,7 @@ func ForMixture(nitrogen, oxygen, helium float64, cacheDir string) (*Table, erro
 	if near(nitrogen, 1) && near(oxygen, 0) && near(helium, 0) {
 		return Builtin("n2")
 	}
-	if near(nitrogen, Air.Nitrogen) && near(oxygen, Air.Oxygen) && near(helium, 0) {
+	if near(nitrogen, AirNitrogen) && near(oxygen, AirOxygen) && near(helium, 0) {
 		return Builtin("air")
 	}
 	if cacheDir == "" {

@@ -20,7 +20,7 @@ func TestShippedTables(t *testing.T) {
 	for _, c := range []struct {
 		gas    string
 		xn, xo float64
-	}{{"n2", 1, 0}, {"air", Air.Nitrogen, Air.Oxygen}} {
+	}{{"n2", 1, 0}, {"air", AirNitrogen, AirOxygen}} {
 		mix, err := Mixture(c.xn, c.xo, 0)
 		if err != nil {
 			t.Fatal(err)

@@ -97,7 +97,7 @@ func n2Solver(t testing.TB, cells int) *Solver {
 // ~1e-5), EEDF normalised to 1e-9, growth rate self-consistent, in N₂ and air from 10 to
 // 3000 Td (conservation test of the discretisation).
 func TestBalances(t *testing.T) {
-	for _, x := range []struct{ n, o float64 }{{1, 0}, {Air.Nitrogen, Air.Oxygen}} {
+	for _, x := range []struct{ n, o float64 }{{1, 0}, {AirNitrogen, AirOxygen}} {
 		mix, _ := Mixture(x.n, x.o, 0)
 		s, err := NewSolver(mix, nil)
 		if err != nil {
@@ -125,7 +125,7 @@ func TestBalances(t *testing.T) {
 // TestNumberConservation: each column of the inelastic operator removes exactly the electrons
 // lost by attachment and adds one per ionisation (both sharing rules).
 func TestNumberConservation(t *testing.T) {
-	mix, _ := Mixture(Air.Nitrogen, Air.Oxygen, 0)
+	mix, _ := Mixture(AirNitrogen, AirOxygen, 0)
 	for _, sh := range []Sharing{EqualSharing, OneTakesAll} {
 		s, err := NewSolver(mix, &Settings{Sharing: sh})
 		if err != nil {
