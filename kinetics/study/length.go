@@ -19,7 +19,11 @@ type LengthScan struct {
 	// TravellingWave, when non-zero, adds a second curve with optics.excitation_velocity set to
 	// it [m/s] (units.SpeedOfLight for a front at light speed).
 	TravellingWave float64
-	Runner         Runner // nil means ModelRunner
+	// ScaleCapacitors grows both circuit capacitors in proportion to the channel length, as
+	// for a Blumlein whose plates run along the channel: the stored energy per unit length
+	// stays that of the design. Without it the circuit is the design's at every length.
+	ScaleCapacitors bool
+	Runner          Runner // nil means ModelRunner
 	Workers        int    // ≤ 0 means runtime.NumCPU()
 }
 
@@ -101,6 +105,11 @@ func (s *LengthScan) Run(ctx context.Context) (*LengthResult, error) {
 		d := s.Design.Clone()
 		d.Channel.Length = lengths[i%len(lengths)]
 		d.Optics.ExcitationVelocity = velocities[i/len(lengths)]
+		if s.ScaleCapacitors {
+			f := d.Channel.Length / s.Design.Channel.Length
+			d.Circuit.SwitchCapacitance *= f
+			d.Circuit.ChannelCapacitance *= f
+		}
 		return d, d.Validate()
 	}
 	err := evaluate(ctx, idx, s.Workers, design, run, func(o outcome) error {

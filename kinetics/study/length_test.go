@@ -85,6 +85,19 @@ func TestLengthScan(t *testing.T) {
 	if got := tab.Float(49, tab.Column("energy_total_J")); math.Abs(got-2e-4*(1-math.Exp(-10))) > 1e-15 {
 		t.Errorf("energy_total_J at 1 m: %g", got)
 	}
+	// With ScaleCapacitors each length gets the design's capacitance per unit length.
+	perLength := s.Design.Circuit.SwitchCapacitance / s.Design.Channel.Length
+	scaled := &LengthScan{Design: s.Design, From: 0.1, To: 0.5, Points: 3, ScaleCapacitors: true, Workers: 1,
+		Runner: func(d *kinetics.Design) (kinetics.Summary, error) {
+			if got := d.Circuit.SwitchCapacitance / d.Channel.Length; math.Abs(got-perLength) > 1e-12*perLength ||
+				d.Circuit.ChannelCapacitance != d.Circuit.SwitchCapacitance*s.Design.Circuit.ChannelCapacitance/s.Design.Circuit.SwitchCapacitance {
+				t.Errorf("at %g m: capacitances %g F, %g F", d.Channel.Length, d.Circuit.SwitchCapacitance, d.Circuit.ChannelCapacitance)
+			}
+			return saturatingRunner(d)
+		}}
+	if _, err := scaled.Run(context.Background()); err != nil {
+		t.Fatal(err)
+	}
 	for _, bad := range []*LengthScan{
 		{Design: s.Design, From: 0.3, To: 0.1, Points: 5},
 		{Design: s.Design, From: 0.1, To: 0.3, Points: 2},
