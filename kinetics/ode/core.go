@@ -187,6 +187,7 @@ func (c *core) step(s stepper, tlimit float64) error {
 			}
 			cause = err
 			c.stats.Rejected++
+			c.stats.Failures++
 			c.h, c.facMax = 0.25*h, 1
 			continue
 		}

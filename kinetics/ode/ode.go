@@ -64,6 +64,7 @@ const (
 type Stats struct {
 	Steps          int // accepted steps
 	Rejected       int // rejected step attempts (error too large, failed evaluation, singular matrix)
+	Failures       int // of Rejected, those rejected because an evaluation failed or the matrix was singular
 	FuncEvals      int // evaluations of f, including those for difference Jacobians
 	JacEvals       int // Jacobian evaluations (analytic or by differences)
 	Factorizations int // LU factorisations of the iteration matrix
@@ -71,8 +72,8 @@ type Stats struct {
 
 // String formats the counters for a statistics block.
 func (s Stats) String() string {
-	return fmt.Sprintf("steps %d, rejected %d, f evaluations %d, Jacobians %d, factorisations %d",
-		s.Steps, s.Rejected, s.FuncEvals, s.JacEvals, s.Factorizations)
+	return fmt.Sprintf("steps %d, rejected %d (%d failed evaluations), f evaluations %d, Jacobians %d, factorisations %d",
+		s.Steps, s.Rejected, s.Failures, s.FuncEvals, s.JacEvals, s.Factorizations)
 }
 
 // Integrator is the interface shared by the integrators of this package.
