@@ -24,7 +24,7 @@ type LengthScan struct {
 	// stays that of the design. Without it the circuit is the design's at every length.
 	ScaleCapacitors bool
 	Runner          Runner // nil means ModelRunner
-	Workers        int    // ≤ 0 means runtime.NumCPU()
+	Workers         int    // ≤ 0 means runtime.NumCPU()
 }
 
 // LengthPoint is one channel length of a curve.
