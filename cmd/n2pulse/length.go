@@ -35,6 +35,7 @@ func runLength(args []string, stdout, stderr io.Writer) error {
 	out := fs.String("out", "", "write length.csv and the figure length.png/.svg to this directory")
 	sets := fs.StringArray("set", nil, `override a design key, e.g. --set gas.pressure="100 Torr" (repeatable)`)
 	workers := fs.Int("workers", runtime.NumCPU(), "lengths computed at once")
+	scale := fs.Bool("scale-capacitors", true, "grow both capacitors in proportion to the channel length (Blumlein plates running along the channel); --scale-capacitors=false keeps the design's circuit at every length")
 	if help, err := parseFlags(fs, args); help || err != nil {
 		return err
 	}
@@ -42,7 +43,7 @@ func runLength(args []string, stdout, stderr io.Writer) error {
 	if err != nil {
 		return err
 	}
-	s := &study.LengthScan{Design: d, Points: *points, Workers: *workers}
+	s := &study.LengthScan{Design: d, Points: *points, Workers: *workers, ScaleCapacitors: *scale}
 	if s.From, err = units.Parse(*from, units.Length); err != nil {
 		return usagef("length: --from %q: %v", *from, err)
 	}
@@ -64,6 +65,12 @@ func runLength(args []string, stdout, stderr io.Writer) error {
 	}
 	if err != nil {
 		return err
+	}
+	if *scale {
+		fmt.Fprintf(stdout, "capacitors scaled with the length: %s and %s per %s of channel\n",
+			units.Format(d.Circuit.SwitchCapacitance, "F"), units.Format(d.Circuit.ChannelCapacitance, "F"), units.Format(d.Channel.Length, "m"))
+	} else {
+		fmt.Fprintln(stdout, "circuit as designed at every length")
 	}
 	printLength(stdout, r)
 	if *out == "" {
