@@ -53,7 +53,9 @@
 // The drift velocity and α/N are the flux (two-term, temporal-growth) values. Measured
 // drift velocities are bulk values, which exceed the flux value where ionisation is strong
 // (above about 1000 Td in N₂), and measured α is a steady-state Townsend value; the
-// validation compares below that range.
+// validation compares below that range. In helium-rich mixtures at the top of the range the
+// mean energy reaches hundreds of eV (near runaway, beyond the 3 keV end of the data, where
+// cross sections are held at their last value): the two-term results there are indicative.
 //
 // # Cross sections
 //
@@ -70,7 +72,7 @@
 // # Attachment
 //
 // Dissociative attachment to O₂ is a cross section in data/xsec-o2.txt. Three-body attachment
-// e + O₂ + M → O₂⁻ + M (M = O₂, N₂) is not part of the Boltzmann equation: it is added to k_att
+// e + O₂ + M → O₂⁻ + M (M = O₂, N₂; He as third body is neglected) is not part of the Boltzmann equation: it is added to k_att
 // after the solve as a two-body rate at the reference density N_ref (default 2.446e25 m⁻³,
 // 101325 Pa and 300 K), from the expressions of I.A. Kossyi, A.Yu. Kostinsky, A.A. Matveyev &
 // V.P. Silakov, Plasma Sources Sci. Technol. 1, 207 (1992), as quoted in public air-plasma

@@ -5,7 +5,6 @@ import (
 	"fmt"
 	"math"
 	"sort"
-	"strings"
 
 	"gonum.org/v1/gonum/mat"
 
@@ -58,13 +57,12 @@ var gamma = math.Sqrt(2 * units.ElementaryCharge / units.ElectronMass)
 // Solver solves the steady two-term Boltzmann equation for one gas mixture.
 // A Solver is not safe for concurrent use; make one per goroutine.
 type Solver struct {
-	mix   []component
-	set   Settings
-	hasN2 bool
-	xO2   float64
-	xN2   float64
+	mix []component
+	set Settings
+	xO2 float64
+	xN2 float64
 
-	// work space, reused between solves
+	// warm start: grid top [eV] and growth rate of the previous solve
 	lastMax float64
 	lastNu  float64
 }
@@ -80,11 +78,10 @@ type component struct {
 
 // proc is a process with its cross section in eV units and a cumulative integral of ε·σ.
 type proc struct {
-	p      *Process
-	u      float64 // threshold [eV]
-	t      table1
-	isN2   bool
-	target string
+	p    *Process
+	u    float64 // threshold [eV]
+	t    table1
+	isN2 bool
 }
 
 // table1 is a piecewise linear σ(ε), ε in eV, with C[k] = ∫_{E0}^{E_k} ε σ dε.
@@ -203,14 +200,13 @@ func NewSolver(mix []Component, s *Settings) (*Solver, error) {
 				continue
 			}
 			cm.procs = append(cm.procs, proc{p: p, u: p.Threshold / units.ElectronVolt, t: newTable1(p),
-				isN2: sp.Name == "N2", target: sp.Name})
+				isN2: sp.Name == "N2"})
 		}
 		if cm.el.E == nil {
 			return nil, fmt.Errorf("swarm: species %s has no elastic process", sp.Name)
 		}
 		switch sp.Name {
 		case "N2":
-			sv.hasN2 = true
 			sv.xN2 = cm.x
 		case "O2":
 			sv.xO2 = cm.x
@@ -736,16 +732,4 @@ func (s *Solver) threeBody(meanEV float64) float64 {
 	kN2 := 1.1e-43 * (300 / te) * (300 / te) * math.Exp(-70/tg) * math.Exp(1500*(te-tg)/(te*tg))
 	nref := s.set.ReferenceDensity
 	return s.xO2 * nref * (s.xO2*kO2 + s.xN2*kN2)
-}
-
-// describe lists the mixture for messages and cache keys.
-func (s *Solver) describe() string {
-	var b strings.Builder
-	for i, c := range s.mix {
-		if i > 0 {
-			b.WriteString(" ")
-		}
-		fmt.Fprintf(&b, "%s:%.6f", c.name, c.x)
-	}
-	return b.String()
 }
