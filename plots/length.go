@@ -91,9 +91,11 @@ func LengthFigure(r *study.LengthResult, base string) ([]string, error) {
 					p.Legend.Add(fmt.Sprintf("%s %.3g cm (%s)", m.name, 100*m.x, velocityName(cur.Velocity)), l)
 				}
 			}
+			// Lower left: the curves rise from there, leaving it empty.
 			p.Legend.Top = false
-			p.Legend.Left = false
-			p.Legend.YOffs = vg.Points(8)
+			p.Legend.Left = true
+			p.Legend.XOffs = vg.Points(60)
+			p.Legend.YOffs = vg.Points(6)
 			p.Title.Text = "channel length scan"
 		}
 		rows[k] = []*plot.Plot{p}
