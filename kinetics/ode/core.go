@@ -206,7 +206,7 @@ func (c *core) step(s stepper, tlimit float64) error {
 		}
 		if s.predictive() && c.hAcc > 0 && !clipped {
 			// Gustafsson's predictive controller (Hairer & Wanner, Solving ODEs II, 2nd ed.,
-			// Sect. IV.8, eq. (8.21)) as in their code RODAS: take the smaller of the two
+			// Sect. IV.8) as in their code RODAS: take the smaller of the two
 			// proposals, which damps the oscillation between acceptance and rejection on
 			// stiff problems.
 			e := math.Max(errNorm, 1e-10)

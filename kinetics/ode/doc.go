@@ -12,7 +12,7 @@
 //
 //     (I/(hγ) − J)·U_i = f(t + α_i·h, y + Σ_j a_ij·U_j) + Σ_j (c_ij/h)·U_j + h·γ_i·∂f/∂t
 //
-//     with y₁ = y + Σ m_i·U_i (the implementation form of Hairer & Wanner, eq. IV.7.25).
+//     with y₁ = y + Σ m_i·U_i (the implementation form of Hairer & Wanner, Sect. IV.7).
 //     The Jacobian J comes from the system when it implements Jacobian, otherwise from
 //     column-wise forward differences; the iteration matrix is factorised with gonum/mat LU.
 //

@@ -3,8 +3,9 @@ package ode
 import "math"
 
 // Dormand–Prince 5(4) coefficients: Dormand & Prince, "A family of embedded Runge–Kutta
-// formulae", J. Comput. Appl. Math. 6, 19–26 (1980), Table 2 (also Hairer, Nørsett & Wanner,
-// Solving ODEs I, 2nd ed., Table II.5.2). The seventh stage is the first of the next step.
+// formulae", J. Comput. Appl. Math. 6, 19–26 (1980) (also Hairer, Nørsett & Wanner, Solving
+// ODEs I, 2nd ed., Sect. II.5); recalled from memory and verified by the order-condition tests.
+// The seventh stage is the first of the next step.
 var (
 	dpC = [7]float64{0, 1.0 / 5, 3.0 / 10, 4.0 / 5, 8.0 / 9, 1, 1}
 	dpA = [7][6]float64{

@@ -115,7 +115,7 @@ func maxAbs(v []float64) float64 {
 }
 
 // stability returns R(z) = 1 + z·wᵀ(I − zB)⁻¹·1 with B = (α_ij + γ_ij), diagonal γ (Hairer &
-// Wanner Sect. IV.7, eq. (7.14)), by forward substitution.
+// Wanner Sect. IV.7), by forward substitution.
 func stability(tb *RosenbrockTableau, w []float64, z complex128) complex128 {
 	alpha, gam, _, _ := tb.Standard()
 	s := len(w)

@@ -167,7 +167,7 @@ func Oscillator() Problem {
 }
 
 // RobertsonSystem is Robertson's chemical kinetics (Robertson 1966; Hairer & Wanner, Solving
-// ODEs II, Sect. IV.1, eq. (1.3)):
+// ODEs II, Sect. IV.1):
 //
 //	y₁′ = −0.04·y₁ + 1e4·y₂·y₃
 //	y₂′ =  0.04·y₁ − 1e4·y₂·y₃ − 3e7·y₂²
@@ -207,7 +207,7 @@ func Robertson() Problem {
 }
 
 // VanDerPolSystem is the Van der Pol oscillator in the stiff scaling of Hairer & Wanner
-// (Solving ODEs II, eq. IV.1.5'): y₁′ = y₂, y₂′ = ((1 − y₁²)·y₂ − y₁)/ε, ε = 1e-6.
+// (Solving ODEs II, Sect. IV.1): y₁′ = y₂, y₂′ = ((1 − y₁²)·y₂ − y₁)/ε, ε = 1e-6.
 type VanDerPolSystem struct{ Eps float64 }
 
 func (VanDerPolSystem) Dim() int { return 2 }
