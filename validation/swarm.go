@@ -182,6 +182,20 @@ func swarmChecks() ([]Check, error) {
 		}
 		cs = append(cs, c)
 	}
+	// Data check: total vibrational cross section of N₂ at 2.2 eV (the shipped set sums v = 1…7).
+	if sp, err := swarm.BuiltinSpecies("N2"); err == nil {
+		tot := 0.0
+		for i := range sp.Processes {
+			if p := &sp.Processes[i]; len(p.Label) > 3 && p.Label[:3] == "vib" {
+				tot += p.At(2.2 * units.ElectronVolt)
+			}
+		}
+		cs = append(cs, Check{ID: "swarm.xsec.n2.vib2.2eV", Quantity: "total vibrational excitation cross section of N₂ at 2.2 eV (data file)",
+			Unit: "m²", Computed: tot, Reference: 5.5e-20, Tolerance: 1.5, Mode: Factor, Kind: Published,
+			Source: "A.G. Engelhardt, A.V. Phelps & C.G. Risk, Phys. Rev. 135, A1566 (1964): total normalised to 5.5e-16 cm² at 2.2 eV (abstract, seen); later beam data put the resonance peaks higher"})
+	} else {
+		return nil, err
+	}
 	cs = append(cs, analyticSwarmChecks()...)
 	// Conservation on the shipped grid: power balance and normalisation over 10–3000 Td.
 	worstP, worstN := 0.0, 0.0
