@@ -18,6 +18,10 @@ type Design struct {
 	Optics       Optics
 	Spectroscopy Spectroscopy
 	Numerics     Numerics
+
+	// Derived lists the circuit keys computed from the file's [build] section rather than
+	// given (see ParseBuiltDesign).
+	Derived []string
 }
 
 // Channel is the laser channel between the two electrode rails.

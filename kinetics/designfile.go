@@ -54,6 +54,14 @@ func ParseDesign(b []byte, name string) (*Design, error) {
 	}
 	flat := map[string]any{}
 	flatten("", raw, flat)
+	if hasBuild(flat) {
+		b, err := parseBuilt(flat)
+		if err != nil {
+			return nil, fmt.Errorf("%s: %w", name, err)
+		}
+		b.Design.Derived = b.Derived
+		return b.Design, nil
+	}
 	keys := make([]string, 0, len(flat))
 	for k := range flat {
 		keys = append(keys, k)
@@ -149,6 +157,7 @@ func (d *Design) Validate() error {
 // Clone returns an independent copy of the design.
 func (d *Design) Clone() *Design {
 	c := *d
+	c.Derived = append([]string(nil), d.Derived...)
 	return &c
 }
 

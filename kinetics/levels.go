@@ -28,8 +28,12 @@ func defaultLevels() Levels {
 		// of B(v=0): used so, it drains the lower level faster than C is quenched and removes
 		// the self-termination that every practical nitrogen laser shows.
 		LowerRemovalNitrogen: 2e-18,
-		// N2(B) + O2 → N2 + O + O: 3e-10 cm³/s, Kossyi et al. 1992 (seen, secondary).
-		LowerRemovalOxygen: 3e-16,
+		// Removal of B(v=0) by O2: no value for the level itself was found. The 3e-10 cm³/s
+		// of Kossyi et al. 1992 (N2(B) + O2 → N2 + O + O, seen, secondary) describes the B
+		// manifold; used for B(v=0) it drains the lower level so fast that adding air raises
+		// the output, the opposite of what builders see (found against the experiment cases
+		// in validation/testdata/experiments). Zero until a measured value is found.
+		LowerRemovalOxygen: 0,
 	}
 }
 

@@ -67,6 +67,9 @@ func Run(d *Design, s *RunSettings) (*Result, error) {
 			"E/N reached %.0f Td, above the swarm table (%.0f–%.0f Td): coefficients were clamped at the top row",
 			wf.peakField/units.Townsend, lo/units.Townsend, hi/units.Townsend))
 	}
+	res.Summary.Derived = append([]string(nil), d.Derived...)
+	v := Verdict(d, res)
+	res.Summary.Lases, res.Summary.Verdict, res.Summary.Advice = v.Lases, v.Summary, v.Advice
 	if s.Light {
 		res.Time, res.ChannelVoltage, res.Current, res.ReducedField = nil, nil, nil, nil
 		res.ElectronDensity, res.UpperLevel, res.LowerLevel = nil, nil, nil

@@ -57,6 +57,7 @@ func runRun(args []string, stdout, stderr io.Writer) error {
 	asJSON := fs.Bool("json", false, "print the summary as JSON on stdout")
 	sets := fs.StringArray("set", nil, "override a design key, e.g. --set gas.pressure=\"40 Torr\" (repeatable)")
 	stats := fs.Bool("stats", false, "print solver statistics")
+	sensitivity := fs.Bool("sensitivity", false, "rank the design keys by d ln E / d ln x (re-runs the design twice per key)")
 	if help, err := parseFlags(fs, args); help || err != nil {
 		return err
 	}
@@ -85,6 +86,14 @@ func runRun(args []string, stdout, stderr io.Writer) error {
 		fmt.Fprintf(stderr, "circuit: %d steps, %d rejected, %d evaluations; optics: %d steps × %d cells; swarm lookups clamped: %d below, %d above\n",
 			s.CircuitSteps, s.CircuitRejected, s.CircuitEvals, s.OpticalSteps, s.Cells, s.TableBelow, s.TableAbove)
 	}
+	if *sensitivity {
+		rows, err := kinetics.Sensitivity(d, nil, 0.01)
+		if err != nil {
+			return err
+		}
+		fmt.Fprintln(stdout, "\nwhat to change (logarithmic sensitivity of the pulse energy and peak power):")
+		PrintSensitivity(stdout, rows)
+	}
 	if *out != "" {
 		if err := writeRunOutputs(*out, d, res); err != nil {
 			return err
@@ -106,7 +115,8 @@ func printSummary(w io.Writer, d *kinetics.Design, r *kinetics.Result) {
 	row("pulse energy, output end", units.Format(s.EnergyFront, "J"))
 	row("pulse energy, rear end", units.Format(s.EnergyRear, "J"))
 	row("peak power, output end", units.Format(s.PeakPower, "W"))
-	row("FWHM", units.Format(s.FWHM, "s"))
+	row("FWHM (from the rms width)", units.Format(s.FWHM, "s"))
+	row("first to last half maximum", units.Format(s.HalfMaxWidth, "s"))
 	row("rise 10–90 %", units.Format(s.Rise, "s"))
 	row("delay from switch closure", units.Format(s.Delay, "s"))
 	row("efficiency", fmt.Sprintf("%.3g %% of %s stored", 100*s.Efficiency, units.Format(s.StoredEnergy, "J")))
@@ -117,14 +127,16 @@ func printSummary(w io.Writer, d *kinetics.Design, r *kinetics.Result) {
 	row("peak gain", fmt.Sprintf("%.3g cm⁻¹ (gain × length %.3g)", s.PeakGain/100, s.GainLength))
 	row("inversion duration", units.Format(s.InversionDuration, "s"))
 	row("self-termination", fmt.Sprintf("%s at %s", s.TerminationCause, units.Format(s.TerminationTime, "s")))
-	lases := "yes"
-	if !s.Lases {
-		lases = "no (spontaneous emission is not amplified tenfold)"
+	row("verdict", s.Verdict)
+	if s.Advice != "" {
+		row("what to change", s.Advice)
 	}
-	row("lases", lases)
 	row("energy / photon balance", fmt.Sprintf("%.1e / %.1e", s.EnergyBalanceResidual, s.PhotonBalanceResidual))
 	p := r.Parameters
 	row("σ, g_C/g_B, A₀₀, τ_C", fmt.Sprintf("%.3g cm², %.3g, %.3g s⁻¹, %s", p.CrossSection*1e4, p.DegeneracyRatio, p.EinsteinA00, units.Format(p.UpperLifetime, "s")))
+	if len(s.Derived) > 0 {
+		row("derived from [build]", strings.Join(s.Derived, ", "))
+	}
 	if len(s.Overridden) > 0 {
 		row("taken from the design", strings.Join(s.Overridden, ", "))
 	}

@@ -22,8 +22,8 @@ func writeRunFigures(dir string, d *kinetics.Design, r *kinetics.Result) error {
 		PowerRear:       r.PowerRear,
 	}
 	if s := r.Summary; s.FWHM > 0 {
-		pd.FWHMStart = s.Delay
-		pd.FWHMEnd = s.Delay + s.FWHM
+		pd.FWHMStart = s.PulseCentre - s.FWHM/2
+		pd.FWHMEnd = s.PulseCentre + s.FWHM/2
 	}
 	for _, ext := range []string{".png", ".svg"} {
 		if err := plots.PulseReport(filepath.Join(dir, "pulse-report"+ext), pd); err != nil {
