@@ -192,6 +192,36 @@ func (blowUp) Eval(_ float64, y, dydt []float64) error {
 	return nil
 }
 
+// alwaysFails fails (recoverably) for every t > 0.
+type alwaysFails struct{}
+
+func (alwaysFails) Dim() int { return 1 }
+func (alwaysFails) Eval(t float64, y, dydt []float64) error {
+	if t > 0 {
+		return errors.New("outside the domain")
+	}
+	dydt[0] = 1
+	return nil
+}
+
+// TestPersistentFailure checks that a right-hand side failing everywhere after t0 = 0 ends in
+// a step size underflow that names the last failure, rather than looping.
+func TestPersistentFailure(t *testing.T) {
+	for _, ic := range integrators {
+		in := ic.new()
+		if err := in.Init(alwaysFails{}, 0, []float64{0}, nil); err != nil {
+			t.Fatal(err)
+		}
+		err := in.AdvanceTo(1)
+		if !errors.Is(err, ode.ErrStepUnderflow) || !strings.Contains(err.Error(), "outside the domain") {
+			t.Errorf("%s: %v", ic.name, err)
+		}
+		if st := in.Stats(); st.Rejected > 2000 {
+			t.Errorf("%s: %d rejections before giving up", ic.name, st.Rejected)
+		}
+	}
+}
+
 // TestTypedErrors checks that a fatal failure aborts at once, that a singular solution ends
 // in a step size underflow near t = 1 with the documented message, and that MaxSteps is obeyed.
 func TestTypedErrors(t *testing.T) {

@@ -144,9 +144,10 @@ func (c *core) initialStep(p int) float64 {
 	return math.Min(math.Min(100*h0, h1), hmax)
 }
 
-// minStep is the smallest step allowed at time t.
+// minStep is the smallest step allowed at time t: a few rounding units of t, and never so
+// small that 1/h overflows (near t = 0).
 func (c *core) minStep() float64 {
-	return math.Max(c.cfg.minStep, 8*epsilon*math.Abs(c.t))
+	return math.Max(c.cfg.minStep, math.Max(8*epsilon*math.Abs(c.t), 1e-280))
 }
 
 const epsilon = 0x1p-52
@@ -173,7 +174,7 @@ func (c *core) step(s stepper, tlimit float64) error {
 		} else {
 			landing = false
 		}
-		if h < c.minStep() {
+		if !(h > 0) || h < c.minStep() {
 			err := ErrStepUnderflow
 			if cause != nil {
 				err = fmt.Errorf("%w (last failure: %w)", ErrStepUnderflow, cause)
