@@ -42,6 +42,7 @@ func LengthFigure(r *study.LengthResult, base string) ([]string, error) {
 	rows := make([][]*plot.Plot, len(lengthPanels))
 	for k, pan := range lengthPanels {
 		p := plot.New()
+		printStyle(p)
 		p.Y.Label.Text = pan.label
 		if k == len(lengthPanels)-1 {
 			p.X.Label.Text = "channel length [cm]"

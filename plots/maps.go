@@ -1,10 +1,8 @@
 package plots
 
 import (
-	"bytes"
 	"fmt"
 	"image/color"
-	"io"
 	"math"
 	"path/filepath"
 	"strconv"
@@ -15,8 +13,6 @@ import (
 	"gonum.org/v1/plot/plotter"
 	"gonum.org/v1/plot/vg"
 	"gonum.org/v1/plot/vg/draw"
-	"gonum.org/v1/plot/vg/vgimg"
-	"gonum.org/v1/plot/vg/vgsvg"
 
 	"n2pulse/kinetics/study"
 )
@@ -129,6 +125,7 @@ func sweepCurve(t *study.Table, a study.Axis, metric string, col int, base strin
 		p.X.Scale = plot.LogScale{}
 		p.X.Tick.Marker = plot.LogTicks{Prec: -1}
 	}
+	printStyle(p)
 	var seg plotter.XYs
 	flush := func() error {
 		if len(seg) == 0 {
@@ -315,6 +312,7 @@ func sweepMap(t *study.Table, axes []study.Axis, metric string, col int, base st
 			ax.Tick.Marker = plot.TickerFunc(logLabels)
 		}
 	}
+	printStyle(p)
 	h := plotter.NewHeatMap(g, cmap.Palette(255))
 	h.Min, h.Max = lo, hi
 	h.NaN = color.Gray{Y: 200}
@@ -352,6 +350,7 @@ func sweepMap(t *study.Table, axes []study.Axis, metric string, col int, base st
 	bar.HideX()
 	bar.X.Padding = 0
 	bar.Title.Text = " "
+	printStyle(bar)
 	w, ht := 18*vg.Centimeter, 13*vg.Centimeter
 	return studySave(base, w, ht, func(c draw.Canvas) {
 		p.Draw(draw.Crop(c, 0, -3*vg.Centimeter, 0, 0))
@@ -366,26 +365,14 @@ func (studyGrey) Colors() []color.Color { return []color.Color{color.White} }
 
 var _ palette.Palette = studyGrey{}
 
-// studySave renders a figure as base.png and base.svg, each written atomically, and returns
+// studySave renders a figure as base.png and base.svg (saveCanvas: atomic writes) and returns
 // the two paths.
 func studySave(base string, w, h vg.Length, render func(c draw.Canvas)) ([]string, error) {
-	png := vgimg.PngCanvas{Canvas: vgimg.New(w, h)}
-	render(draw.New(png))
-	svg := vgsvg.New(w, h)
-	render(draw.New(svg))
-	var files []string
-	for _, out := range []struct {
-		ext string
-		c   io.WriterTo
-	}{{".png", png}, {".svg", svg}} {
-		var b bytes.Buffer
-		if _, err := out.c.WriteTo(&b); err != nil {
-			return files, fmt.Errorf("plots: %s%s: %w", base, out.ext, err)
+	files := []string{base + ".png", base + ".svg"}
+	for _, f := range files {
+		if err := saveCanvas(f, w, h, render); err != nil {
+			return nil, err
 		}
-		if err := study.WriteFileAtomic(base+out.ext, b.Bytes()); err != nil {
-			return files, err
-		}
-		files = append(files, base+out.ext)
 	}
 	return files, nil
 }
