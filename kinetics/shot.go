@@ -114,6 +114,13 @@ func (sh *shot) run(res *Result) {
 	}
 	canGoDark := gamma0 >= p.LowerDecayRate
 	dark := false
+	// Before the discharge the channel neither amplifies nor holds an upper level worth its
+	// spontaneous emission; the optics start ("dawn") once any cell's inversion would amplify
+	// by 1e-3 over the channel length. Spontaneous photons not emitted before then would have
+	// left the channel unamplified, a part in 1e9 of a lasing pulse; the photon balance
+	// counts only what is emitted, so it stays exact.
+	lit := false
+	dawn := 1e-3 / (p.CrossSection * sh.d.Channel.Length)
 	for k := 0; k < sh.steps; k++ {
 		if dark && sh.light {
 			for j := k; j < sh.steps; j++ {
@@ -138,7 +145,15 @@ func (sh *shot) run(res *Result) {
 		if k%64 == 0 {
 			m.resync()
 		}
-		if !dark {
+		if !lit {
+			for i := 0; i < n; i++ {
+				if m.c[i]-m.g*m.b[i] > dawn {
+					lit = true
+					break
+				}
+			}
+		}
+		if lit && !dark {
 			front, rear := m.propagate(k)
 			sh.powerFront[k] = hv * front
 			sh.powerRear[k] = hv * rear
