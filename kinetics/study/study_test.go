@@ -399,3 +399,33 @@ func TestProgressLine(t *testing.T) {
 		t.Errorf("progress line %q", got)
 	}
 }
+
+// TestWorkersRunConcurrently checks that nothing serialises the points: with W workers, W runs
+// are in flight at once (each waits until all W have started).
+func TestWorkersRunConcurrently(t *testing.T) {
+	const w = 4
+	var inFlight atomic.Int32
+	all := make(chan struct{})
+	s := testSweep(t, t.TempDir())
+	s.Workers = w
+	s.Runner = func(d *kinetics.Design) (kinetics.Summary, error) {
+		if inFlight.Add(1) == w {
+			close(all)
+		}
+		select {
+		case <-all:
+		case <-time.After(10 * time.Second):
+			return kinetics.Summary{}, errors.New("fewer than 4 points ran at once")
+		}
+		return fakeRunner(d)
+	}
+	tab, err := s.Run(context.Background())
+	if err != nil {
+		t.Fatal(err)
+	}
+	for r := range tab.Rows {
+		if st := tab.Rows[r][tab.Column(StatusColumn)]; strings.Contains(st, "at once") {
+			t.Fatalf("point %d: %s", r, st)
+		}
+	}
+}
