@@ -5,7 +5,7 @@ import (
 	"fmt"
 	"io"
 	"math"
-	"os"
+	"n2pulse/internal/atomicfile"
 	"path/filepath"
 	"strconv"
 	"strings"
@@ -81,34 +81,15 @@ func saveCanvas(path string, w, h vg.Length, render func(c draw.Canvas)) error {
 	if _, err := wt.WriteTo(&b); err != nil {
 		return fmt.Errorf("plots: rendering %s: %w", path, err)
 	}
-	return writeAtomic(path, b.Bytes())
+	if err := atomicfile.WriteFile(path, b.Bytes()); err != nil {
+		return fmt.Errorf("plots: %w", err)
+	}
+	return nil
 }
 
 // savePlot writes one plot of size w×h atomically to path.
 func savePlot(path string, p *plot.Plot, w, h vg.Length) error {
 	return saveCanvas(path, w, h, p.Draw)
-}
-
-// writeAtomic writes data to a temporary file in path's folder and renames it to path.
-func writeAtomic(path string, data []byte) error {
-	tmp, err := os.CreateTemp(filepath.Dir(path), "."+filepath.Base(path)+".tmp-*")
-	if err != nil {
-		return fmt.Errorf("plots: %w", err)
-	}
-	name := tmp.Name()
-	_, werr := tmp.Write(data)
-	cerr := tmp.Close()
-	if werr == nil {
-		werr = cerr
-	}
-	if werr == nil {
-		werr = os.Rename(name, path)
-	}
-	if werr != nil {
-		os.Remove(name)
-		return fmt.Errorf("plots: writing %s: %w", path, werr)
-	}
-	return nil
 }
 
 // siPrefixes are the prefixes offered for display units, largest first.

@@ -4,7 +4,7 @@ import (
 	"fmt"
 	"image/color"
 	"math"
-	"os"
+	"n2pulse/internal/atomicfile"
 	"path/filepath"
 	"strings"
 
@@ -87,21 +87,7 @@ func Overlay(path string, d OverlayData) error {
 	if err != nil {
 		return fmt.Errorf("plots: overlay: %w", err)
 	}
-	tmp, err := os.CreateTemp(filepath.Dir(path), ".overlay-*."+ext)
-	if err != nil {
-		return fmt.Errorf("plots: overlay: %w", err)
-	}
-	if _, err := wt.WriteTo(tmp); err != nil {
-		tmp.Close()
-		os.Remove(tmp.Name())
-		return fmt.Errorf("plots: overlay: %s: %w", path, err)
-	}
-	if err := tmp.Close(); err != nil {
-		os.Remove(tmp.Name())
-		return fmt.Errorf("plots: overlay: %s: %w", path, err)
-	}
-	if err := os.Rename(tmp.Name(), path); err != nil {
-		os.Remove(tmp.Name())
+	if err := atomicfile.WriteTo(path, wt); err != nil {
 		return fmt.Errorf("plots: overlay: %w", err)
 	}
 	return nil

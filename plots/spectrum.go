@@ -3,7 +3,7 @@ package plots
 import (
 	"fmt"
 	"image/color"
-	"os"
+	"n2pulse/internal/atomicfile"
 	"path/filepath"
 	"strings"
 
@@ -76,21 +76,7 @@ func Spectrum(path string, d SpectrumData) error {
 	if err != nil {
 		return fmt.Errorf("plots: spectrum: %w", err)
 	}
-	tmp, err := os.CreateTemp(filepath.Dir(path), ".spectrum-*."+ext)
-	if err != nil {
-		return fmt.Errorf("plots: spectrum: %w", err)
-	}
-	if _, err := w.WriteTo(tmp); err != nil {
-		tmp.Close()
-		os.Remove(tmp.Name())
-		return fmt.Errorf("plots: spectrum: writing %s: %w", path, err)
-	}
-	if err := tmp.Close(); err != nil {
-		os.Remove(tmp.Name())
-		return fmt.Errorf("plots: spectrum: writing %s: %w", path, err)
-	}
-	if err := os.Rename(tmp.Name(), path); err != nil {
-		os.Remove(tmp.Name())
+	if err := atomicfile.WriteTo(path, w); err != nil {
 		return fmt.Errorf("plots: spectrum: %w", err)
 	}
 	return nil

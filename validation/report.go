@@ -5,6 +5,7 @@ import (
 	"encoding/csv"
 	"fmt"
 	"math"
+	"n2pulse/internal/atomicfile"
 	"os"
 	"path/filepath"
 	"strings"
@@ -37,14 +38,14 @@ func WriteReport(dir string, checks []Check) error {
 	}
 	var md bytes.Buffer
 	writeMarkdown(&md, checks, vars, figs, verr)
-	if err := writeFileAtomic(filepath.Join(dir, "checks.md"), md.Bytes()); err != nil {
+	if err := reportWrite(filepath.Join(dir, "checks.md"), md.Bytes()); err != nil {
 		return err
 	}
 	var cb bytes.Buffer
 	if err := writeCSV(&cb, checks); err != nil {
 		return err
 	}
-	return writeFileAtomic(filepath.Join(dir, "checks.csv"), cb.Bytes())
+	return reportWrite(filepath.Join(dir, "checks.csv"), cb.Bytes())
 }
 
 // Result returns the word the check table prints: pass, FAIL, or DISCREPANCY for an
@@ -160,23 +161,9 @@ func writeCSV(w *bytes.Buffer, checks []Check) error {
 	return nil
 }
 
-// writeFileAtomic writes b to a temporary file beside path and renames it into place.
-func writeFileAtomic(path string, b []byte) error {
-	tmp, err := os.CreateTemp(filepath.Dir(path), "."+filepath.Base(path)+".*")
-	if err != nil {
-		return fmt.Errorf("validation: report: %w", err)
-	}
-	if _, err := tmp.Write(b); err != nil {
-		tmp.Close()
-		os.Remove(tmp.Name())
-		return fmt.Errorf("validation: report: %s: %w", path, err)
-	}
-	if err := tmp.Close(); err != nil {
-		os.Remove(tmp.Name())
-		return fmt.Errorf("validation: report: %s: %w", path, err)
-	}
-	if err := os.Rename(tmp.Name(), path); err != nil {
-		os.Remove(tmp.Name())
+// reportWrite writes one file of the report atomically.
+func reportWrite(path string, b []byte) error {
+	if err := atomicfile.WriteFile(path, b); err != nil {
 		return fmt.Errorf("validation: report: %w", err)
 	}
 	return nil

@@ -3,6 +3,7 @@ package main
 import (
 	"fmt"
 	"io"
+	"n2pulse/internal/atomicfile"
 	"os"
 
 	"n2pulse/data"
@@ -40,7 +41,7 @@ func runInit(args []string, stdout, stderr io.Writer) error {
 	if _, err := os.Stat(path); err == nil && !*force {
 		return fmt.Errorf("init: %s exists; use --force to overwrite", path)
 	}
-	if err := writeFileAtomic(path, text); err != nil {
+	if err := atomicfile.WriteFile(path, text); err != nil {
 		return fmt.Errorf("init: %w", err)
 	}
 	fmt.Fprintf(stderr, "wrote %s\n", path)

@@ -6,6 +6,7 @@ import (
 	"encoding/json"
 	"fmt"
 	"io"
+	"n2pulse/internal/atomicfile"
 	"os"
 	"path/filepath"
 	"strings"
@@ -176,37 +177,15 @@ func writeRunOutputs(dir string, d *kinetics.Design, r *kinetics.Result) error {
 			r.PowerFront[k], r.PowerRear[k], r.MeanGain[k])
 	}
 	bw.Flush()
-	if err := writeFileAtomic(filepath.Join(dir, "waveforms.csv"), csv.Bytes()); err != nil {
+	if err := atomicfile.WriteFile(filepath.Join(dir, "waveforms.csv"), csv.Bytes()); err != nil {
 		return err
 	}
 	js, err := json.MarshalIndent(r.Summary, "", "  ")
 	if err != nil {
 		return err
 	}
-	if err := writeFileAtomic(filepath.Join(dir, "summary.json"), append(js, '\n')); err != nil {
+	if err := atomicfile.WriteFile(filepath.Join(dir, "summary.json"), append(js, '\n')); err != nil {
 		return err
 	}
 	return writeRunFigures(dir, d, r)
-}
-
-// writeFileAtomic writes b to a temporary file beside path and renames it into place.
-func writeFileAtomic(path string, b []byte) error {
-	f, err := os.CreateTemp(filepath.Dir(path), "."+filepath.Base(path)+".tmp*")
-	if err != nil {
-		return err
-	}
-	if _, err := f.Write(b); err != nil {
-		f.Close()
-		os.Remove(f.Name())
-		return err
-	}
-	if err := f.Close(); err != nil {
-		os.Remove(f.Name())
-		return err
-	}
-	if err := os.Rename(f.Name(), path); err != nil {
-		os.Remove(f.Name())
-		return err
-	}
-	return nil
 }

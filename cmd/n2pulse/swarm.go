@@ -4,6 +4,7 @@ import (
 	"bytes"
 	"fmt"
 	"io"
+	"n2pulse/internal/atomicfile"
 	"path/filepath"
 	"strings"
 
@@ -84,7 +85,7 @@ func runSwarm(args []string, stdout, stderr io.Writer) error {
 		if _, err := stdout.Write(buf.Bytes()); err != nil {
 			return err
 		}
-	} else if err := swarm.WriteFileAtomic(*out, buf.Bytes()); err != nil {
+	} else if err := atomicfile.WriteFile(*out, buf.Bytes()); err != nil {
 		return fmt.Errorf("swarm: %w", err)
 	}
 	if *plotFile != "" {
@@ -145,5 +146,5 @@ func plotSwarm(t *swarm.Table, title, file string) error {
 	if _, err := wt.WriteTo(&buf); err != nil {
 		return err
 	}
-	return swarm.WriteFileAtomic(file, buf.Bytes())
+	return atomicfile.WriteFile(file, buf.Bytes())
 }

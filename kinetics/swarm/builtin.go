@@ -8,6 +8,7 @@ import (
 	"io"
 	"io/fs"
 	"math"
+	"n2pulse/internal/atomicfile"
 	"os"
 	"path/filepath"
 	"sync"
@@ -266,31 +267,8 @@ func ForMixture(nitrogen, oxygen, helium float64, cacheDir string) (*Table, erro
 	if err := os.MkdirAll(cacheDir, 0o755); err != nil {
 		return nil, fmt.Errorf("swarm: cache: %w", err)
 	}
-	if err := WriteFileAtomic(path, buf.Bytes()); err != nil {
+	if err := atomicfile.WriteFile(path, buf.Bytes()); err != nil {
 		return nil, fmt.Errorf("swarm: cache: %w", err)
 	}
 	return t, nil
-}
-
-// WriteFileAtomic writes b to a temporary file in path's directory and renames it to path.
-func WriteFileAtomic(path string, b []byte) error {
-	f, err := os.CreateTemp(filepath.Dir(path), "."+filepath.Base(path)+".tmp*")
-	if err != nil {
-		return err
-	}
-	tmp := f.Name()
-	if _, err := f.Write(b); err != nil {
-		f.Close()
-		os.Remove(tmp)
-		return err
-	}
-	if err := f.Close(); err != nil {
-		os.Remove(tmp)
-		return err
-	}
-	if err := os.Rename(tmp, path); err != nil {
-		os.Remove(tmp)
-		return err
-	}
-	return nil
 }

@@ -4,6 +4,7 @@ import (
 	"bytes"
 	"flag"
 	"math"
+	"n2pulse/internal/atomicfile"
 	"os"
 	"testing"
 
@@ -35,7 +36,7 @@ func TestShippedTables(t *testing.T) {
 			if err := WriteResultsCSV(&buf, TableComments(mix, nil), res); err != nil {
 				t.Fatal(err)
 			}
-			if err := WriteFileAtomic(file, buf.Bytes()); err != nil {
+			if err := atomicfile.WriteFile(file, buf.Bytes()); err != nil {
 				t.Fatal(err)
 			}
 			continue
