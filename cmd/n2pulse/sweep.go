@@ -77,7 +77,11 @@ func runSweep(args []string, stdout, stderr io.Writer) error {
 		return err
 	}
 	if !*quiet {
-		fmt.Fprintf(stderr, "%s: %s\n", s.Shard, tableCounts(tab))
+		who := "sweep"
+		if !s.Shard.Whole() {
+			who = "shard " + s.Shard.String()
+		}
+		fmt.Fprintf(stderr, "%s: %s\n", who, tableCounts(tab))
 	}
 	if !s.Shard.Whole() {
 		fmt.Fprintf(stdout, "shard %s: wrote %s; join the shards with `n2pulse merge`\n", s.Shard, filepath.Join(*out, study.ResultsFile))
