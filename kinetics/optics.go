@@ -44,7 +44,7 @@ func newMedium(n int, dz, dt, sigma, g, spontPerC, loss, rRear, rFront float64) 
 }
 
 // resync recomputes every cell's gain factor from its populations. Between resyncs the
-// factors follow the populations multiplicatively (see shift), which needs no exponential of
+// factors follow the populations multiplicatively (shot.run), which needs no exponential of
 // a large argument in the hot loop.
 func (m *medium) resync() {
 	a := m.sigma * m.dz
@@ -53,10 +53,6 @@ func (m *medium) resync() {
 	}
 }
 
-// shift applies population changes dc, db of cell i (from pump and decay) to its gain factor.
-func (m *medium) shift(i int, dc, db float64) {
-	m.gain[i] *= expSmall(m.sigma * m.dz * (dc - m.g*db))
-}
 
 // frantzNodvik returns the fluence [m⁻²] leaving a cell of small-signal gain factor
 // gain = e^(σΔN·Δz) for an entering fluence jin, by the Frantz–Nodvik relation
@@ -77,8 +73,18 @@ func frantzNodvik(jin, gain, js, invJs float64) float64 {
 // small bounds the arguments for which the series below are exact to rounding.
 const small = 1.0 / 64
 
-// expSmall is e^x; for |x| ≤ 1/64 a Taylor series to x⁶ (truncation below 1e-16).
+// expSmall is e^x: 1 + x + x²/2 for |x| < 2⁻¹⁸ (truncation below 1e-16), short enough for
+// the compiler to inline into the hot loop where the arguments are almost always that small;
+// else expMedium.
 func expSmall(x float64) float64 {
+	if x2 := x * x; x2 < 0x1p-36 {
+		return 1 + x + 0.5*x2
+	}
+	return expMedium(x)
+}
+
+// expMedium is e^x; for |x| ≤ 1/64 a Taylor series to x⁶ (truncation below 1e-16).
+func expMedium(x float64) float64 {
 	if x > small || x < -small {
 		return math.Exp(x)
 	}

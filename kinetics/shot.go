@@ -128,30 +128,37 @@ func (sh *shot) run(res *Result) {
 			}
 			break
 		}
+		// Pump and decay of every cell; while the optics run, each cell's gain factor follows
+		// its populations.
+		follow := lit && !dark
+		sdz, gB := m.sigma*m.dz, m.g
+		cs, bs, gf := m.c[:n], m.b[:n], m.gain[:n]
 		for i := 0; i < n; i++ {
 			w, f := sh.delayWhole[i], sh.delayFrac[i]
 			pc := sample(sh.wf.pumpC, k, w, f)
 			pb := sample(sh.wf.pumpB, k, w, f)
 			j := max(0, min(k-w, sh.steps-1))
-			c0, b0 := m.c[i], m.b[i]
+			c0, b0 := cs[i], bs[i]
 			c1 := c0*eC[j] + pc*wC[j]
 			b1 := b0*sh.eB + (pb+a00*0.5*(c0+c1))*sh.wB
-			m.c[i], m.b[i] = c1, b1
-			m.shift(i, c1-c0, b1-b0)
-			if i == mid {
-				sh.pumpPeak = math.Max(sh.pumpPeak, pc)
+			cs[i], bs[i] = c1, b1
+			if follow {
+				gf[i] *= expSmall(sdz * ((c1 - c0) - gB*(b1-b0)))
 			}
-		}
-		if k%64 == 0 {
-			m.resync()
+			if i == mid {
+				sh.pumpPeak = max(sh.pumpPeak, pc)
+			}
 		}
 		if !lit {
 			for i := 0; i < n; i++ {
-				if m.c[i]-m.g*m.b[i] > dawn {
+				if cs[i]-gB*bs[i] > dawn {
 					lit = true
 					break
 				}
 			}
+		}
+		if lit && (k%64 == 0 || !follow) {
+			m.resync()
 		}
 		if lit && !dark {
 			front, rear := m.propagate(k)
@@ -162,7 +169,7 @@ func (sh *shot) run(res *Result) {
 		for i := 0; i < n; i++ {
 			inv := m.c[i] - m.g*m.b[i]
 			sum += inv
-			maxInv = math.Max(maxInv, inv)
+			maxInv = max(maxInv, inv)
 		}
 		if canGoDark && !dark && maxInv+pumpLeft[max(0, k-maxDelay)] < 0 {
 			led := m.ledger
@@ -175,7 +182,7 @@ func (sh *shot) run(res *Result) {
 		if gm > sh.peakGain {
 			sh.peakGain = gm
 		}
-		sh.peakGainLength = math.Max(sh.peakGainLength, g*sh.d.Channel.Length)
+		sh.peakGainLength = max(sh.peakGainLength, g*sh.d.Channel.Length)
 		if !sh.light && k%colEvery == 0 {
 			res.GainTime = append(res.GainTime, (float64(k)+1)*dt)
 			for i := 0; i < n; i++ {
