@@ -53,7 +53,6 @@ func (m *medium) resync() {
 	}
 }
 
-
 // frantzNodvik returns the fluence [m⁻²] leaving a cell of small-signal gain factor
 // gain = e^(σΔN·Δz) for an entering fluence jin, by the Frantz–Nodvik relation
 //
