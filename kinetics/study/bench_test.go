@@ -3,6 +3,7 @@ package study
 import (
 	"context"
 	"fmt"
+	"syscall"
 	"testing"
 
 	"n2pulse/kinetics"
@@ -23,6 +24,7 @@ func BenchmarkSweep20x12(b *testing.B) {
 	}
 	for _, w := range []int{1, 2} {
 		b.Run(fmt.Sprintf("workers=%d", w), func(b *testing.B) {
+			cpu0 := cpuSeconds()
 			for b.Loop() {
 				s := &Sweep{Design: d, Axes: []Axis{p, v}, Workers: w, Dir: b.TempDir()}
 				t, err := s.Run(context.Background())
@@ -34,6 +36,20 @@ func BenchmarkSweep20x12(b *testing.B) {
 				}
 			}
 			b.ReportMetric(240*float64(b.N)/b.Elapsed().Seconds(), "points/s")
+			// CPU time per point: equal for 1 and 2 workers when the points share nothing; a
+			// rise with 2 workers means contention, a speed-up short of 2 at equal CPU time
+			// means the second core was busy with something else.
+			b.ReportMetric((cpuSeconds()-cpu0)/(240*float64(b.N)), "cpu-s/point")
 		})
 	}
+}
+
+// cpuSeconds is the user plus system CPU time of this process so far [s].
+func cpuSeconds() float64 {
+	var ru syscall.Rusage
+	if err := syscall.Getrusage(syscall.RUSAGE_SELF, &ru); err != nil {
+		return 0
+	}
+	tv := func(t syscall.Timeval) float64 { return float64(t.Sec) + 1e-6*float64(t.Usec) }
+	return tv(ru.Utime) + tv(ru.Stime)
 }
