@@ -73,13 +73,20 @@ func frantzNodvik(jin, gain, js, invJs float64) float64 {
 const small = 1.0 / 64
 
 // expSmall is e^x: 1 + x + x²/2 for |x| < 2⁻¹⁸ (truncation below 1e-16), short enough for
-// the compiler to inline into the hot loop where the arguments are almost always that small;
-// else expMedium.
+// the compiler to inline; else expMedium.
 func expSmall(x float64) float64 {
 	if x2 := x * x; x2 < 0x1p-36 {
 		return 1 + x + 0.5*x2
 	}
 	return expMedium(x)
+}
+
+// expTiny returns 1 + x + x²/2 + x³/6 and whether |x| < 2⁻¹⁰, where that series is e^x to a
+// relative 5e-14. It is the inlined exponential of the gain-factor updates in the hot loop;
+// those factors are recomputed exactly every 64 steps, so such errors cannot build up.
+func expTiny(x float64) (float64, bool) {
+	x2 := x * x
+	return 1 + x + x2*(0.5+x*(1.0/6)), x2 < 0x1p-20
 }
 
 // expMedium is e^x; for |x| ≤ 1/64 a Taylor series to x⁶ (truncation below 1e-16).
@@ -154,7 +161,11 @@ func (m *medium) propagate(step int) (front, rear float64) {
 		b += dj * invDz
 		stim += dj
 		out1 := (jin + dj) * invDt
-		gain *= expSmall(-dj * invJs)
+		if f, ok := expTiny(-dj * invJs); ok {
+			gain *= f
+		} else {
+			gain *= expMedium(-dj * invJs)
+		}
 		// Second pass.
 		jin = second * dt
 		dj2 := frantzNodvik(jin, gain, js, invJs) - jin
@@ -162,7 +173,11 @@ func (m *medium) propagate(step int) (front, rear float64) {
 		b += dj2 * invDz
 		stim += dj2
 		out2 := (jin + dj2) * invDt
-		gf[i] = gain * expSmall(-dj2*invJs)
+		if f, ok := expTiny(-dj2 * invJs); ok {
+			gf[i] = gain * f
+		} else {
+			gf[i] = gain * expMedium(-dj2*invJs)
+		}
 		// Rounding only: Frantz–Nodvik never takes more than the inversion holds.
 		cs[i], bs[i] = max(c, 0), max(b, 0)
 		k1, k2 := out1*loss, out2*loss

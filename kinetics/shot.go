@@ -120,6 +120,10 @@ func (sh *shot) run(res *Result) {
 	// left the channel unamplified, a part in 1e9 of a lasing pulse; the photon balance
 	// counts only what is emitted, so it stays exact.
 	lit := false
+	uniform := true
+	for i := range sh.delayWhole {
+		uniform = uniform && sh.delayWhole[i] == 0 && sh.delayFrac[i] == 0
+	}
 	dawn := 1e-3 / (p.CrossSection * sh.d.Channel.Length)
 	for k := 0; k < sh.steps; k++ {
 		if dark && sh.light {
@@ -133,7 +137,12 @@ func (sh *shot) run(res *Result) {
 		follow := lit && !dark
 		sdz, gB := m.sigma*m.dz, m.g
 		cs, bs, gf := m.c[:n], m.b[:n], m.gain[:n]
-		for i := 0; i < n; i++ {
+		// Before dawn a simultaneous discharge keeps every cell alike: step one, copy it.
+		cells := n
+		if uniform && !lit {
+			cells = 1
+		}
+		for i := 0; i < cells; i++ {
 			w, f := sh.delayWhole[i], sh.delayFrac[i]
 			pc := sample(sh.wf.pumpC, k, w, f)
 			pb := sample(sh.wf.pumpB, k, w, f)
@@ -143,11 +152,19 @@ func (sh *shot) run(res *Result) {
 			b1 := b0*sh.eB + (pb+a00*0.5*(c0+c1))*sh.wB
 			cs[i], bs[i] = c1, b1
 			if follow {
-				gf[i] *= expSmall(sdz * ((c1 - c0) - gB*(b1-b0)))
+				x := sdz * ((c1 - c0) - gB*(b1-b0))
+				if f, ok := expTiny(x); ok {
+					gf[i] *= f
+				} else {
+					gf[i] *= expMedium(x)
+				}
 			}
-			if i == mid {
+			if i == mid || cells == 1 {
 				sh.pumpPeak = max(sh.pumpPeak, pc)
 			}
+		}
+		for i := cells; i < n; i++ {
+			cs[i], bs[i] = cs[0], bs[0]
 		}
 		if !lit {
 			for i := 0; i < n; i++ {
