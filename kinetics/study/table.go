@@ -140,15 +140,3 @@ func (t *Table) CSV() []byte {
 
 // WriteCSV writes the table to path, atomically.
 func (t *Table) WriteCSV(path string) error { return WriteFileAtomic(path, t.CSV()) }
-
-// ReadTable parses a results table written by CSV.
-func ReadTable(b []byte) (*Table, error) {
-	recs, err := csv.NewReader(bytes.NewReader(b)).ReadAll()
-	if err != nil {
-		return nil, fmt.Errorf("study: results table: %w", err)
-	}
-	if len(recs) == 0 {
-		return nil, fmt.Errorf("study: results table is empty")
-	}
-	return &Table{Columns: recs[0], Rows: recs[1:]}, nil
-}
