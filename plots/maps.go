@@ -160,7 +160,7 @@ func sweepCurve(t *study.Table, a study.Axis, metric string, col int, base strin
 	return studySave(base, 16*vg.Centimeter, 11*vg.Centimeter, func(c draw.Canvas) { p.Draw(c) })
 }
 
-// markOptimum adds a ring and a label at (x, y).
+// markOptimum adds a ring at (x, y), and a label unless text is empty.
 func markOptimum(p *plot.Plot, x, y float64, text string) error {
 	s, err := plotter.NewScatter(plotter.XYs{{X: x, Y: y}})
 	if err != nil {
@@ -169,12 +169,16 @@ func markOptimum(p *plot.Plot, x, y float64, text string) error {
 	s.GlyphStyle = draw.GlyphStyle{Shape: draw.RingGlyph{}, Radius: vg.Points(6), Color: color.Black}
 	inner, _ := plotter.NewScatter(plotter.XYs{{X: x, Y: y}})
 	inner.GlyphStyle = draw.GlyphStyle{Shape: draw.CrossGlyph{}, Radius: vg.Points(4), Color: color.White}
+	p.Add(inner, s)
+	if text == "" {
+		return nil
+	}
 	l, err := plotter.NewLabels(plotter.XYLabels{XYs: []plotter.XY{{X: x, Y: y}}, Labels: []string{"  " + text}})
 	if err != nil {
 		return fmt.Errorf("plots: %w", err)
 	}
 	l.Offset = vg.Point{X: vg.Points(6), Y: vg.Points(4)}
-	p.Add(inner, s, l)
+	p.Add(l)
 	return nil
 }
 
@@ -326,23 +330,13 @@ func sweepMap(t *study.Table, axes []study.Axis, metric string, col int, base st
 		cont.LineStyles = []draw.LineStyle{{Color: color.White, Width: vg.Points(0.8)}}
 		p.Add(cont)
 	}
-	var best [2]int
-	bestV := math.NaN()
-	flat := make([]float64, 0, len(g.x)*len(g.y))
-	for c := range g.z {
-		flat = append(flat, g.z[c]...)
-	}
-	if b := optimum(flat, metric); b >= 0 {
-		best = [2]int{b / len(g.y), b % len(g.y)}
-		bestV = flat[b]
-		xs := axes[0].Values()[best[0]]
-		ys := axes[1].Values()[best[1]]
-		txt := fmt.Sprintf("%s %s at %s, %s", optimumWord(metric), strconv.FormatFloat(bestV, 'g', 4, 64),
-			strconv.FormatFloat(xs, 'g', 4, 64), strconv.FormatFloat(ys, 'g', 4, 64))
-		if err := markOptimum(p, g.x[best[0]], g.y[best[1]], ""); err != nil {
+	if b, word := Optimum(t, metric); b >= 0 {
+		c, r := b/axes[1].N, b%axes[1].N
+		if err := markOptimum(p, g.x[c], g.y[r], ""); err != nil {
 			return nil, err
 		}
-		p.Title.Text = metric + " (" + txt + ")"
+		p.Title.Text = fmt.Sprintf("%s (%s %s at %s, %s)", metric, word, t.Rows[b][col],
+			strconv.FormatFloat(axes[0].Values()[c], 'g', 4, 64), strconv.FormatFloat(axes[1].Values()[r], 'g', 4, 64))
 	}
 
 	bar := plot.New()
