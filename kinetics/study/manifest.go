@@ -7,6 +7,8 @@ import (
 	"path/filepath"
 	"slices"
 	"strings"
+
+	"n2pulse/internal/atomicfile"
 )
 
 // manifestVersion is the format of sweep.json.
@@ -63,7 +65,10 @@ func (m *Manifest) Write(path string) error {
 	if err != nil {
 		return fmt.Errorf("study: %w", err)
 	}
-	return WriteFileAtomic(path, append(b, '\n'))
+	if err := atomicfile.WriteFile(path, append(b, '\n')); err != nil {
+		return fmt.Errorf("study: %w", err)
+	}
+	return nil
 }
 
 // Differs describes how two manifests sweep different things (design, grid or columns), or

@@ -9,6 +9,7 @@ import (
 	"strconv"
 	"strings"
 
+	"n2pulse/internal/atomicfile"
 	"n2pulse/kinetics"
 )
 
@@ -139,4 +140,9 @@ func (t *Table) CSV() []byte {
 }
 
 // WriteCSV writes the table to path, atomically.
-func (t *Table) WriteCSV(path string) error { return WriteFileAtomic(path, t.CSV()) }
+func (t *Table) WriteCSV(path string) error {
+	if err := atomicfile.WriteFile(path, t.CSV()); err != nil {
+		return fmt.Errorf("study: %w", err)
+	}
+	return nil
+}
