@@ -30,7 +30,7 @@ func Defaults() *Design {
 		},
 		Numerics: Numerics{
 			Cells:     200,
-			EndTime:   20e-9,
+			EndTime:   40e-9,
 			Tolerance: 1e-6,
 		},
 	}

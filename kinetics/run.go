@@ -67,6 +67,11 @@ func Run(d *Design, s *RunSettings) (*Result, error) {
 			"E/N reached %.0f Td, above the swarm table (%.0f–%.0f Td): coefficients were clamped at the top row",
 			wf.peakField/units.Townsend, lo/units.Townsend, hi/units.Townsend))
 	}
+	if sh.unfinished() {
+		res.Warnings = append(res.Warnings, fmt.Sprintf(
+			"the pulse had not ended at numerics.end_time = %s (output or gain still above a tenth of its peak): raise numerics.end_time",
+			units.Format(d.Numerics.EndTime, "s")))
+	}
 	res.Summary.Derived = append([]string(nil), d.Derived...)
 	v := Verdict(d, res)
 	res.Summary.Lases, res.Summary.Verdict, res.Summary.Advice = v.Lases, v.Summary, v.Advice

@@ -88,3 +88,23 @@ func TestSternVolmer(t *testing.T) {
 		t.Errorf("C(0) decay rate %.6g s⁻¹, Stern–Volmer %.6g s⁻¹", got, want)
 	}
 }
+
+// TestRunWarnsWhenCutShort: a run that ends mid-pulse says so.
+func TestRunWarnsWhenCutShort(t *testing.T) {
+	d := ExampleDesign()
+	d.Numerics.EndTime = 12.5e-9
+	r, err := Run(d, &RunSettings{Light: true})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if len(r.Warnings) == 0 {
+		t.Fatalf("no warning for a run cut at 12.5 ns (delay %.3g s)", r.Summary.Delay)
+	}
+	full, err := Run(ExampleDesign(), &RunSettings{Light: true})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if len(full.Warnings) != 0 {
+		t.Errorf("warnings on the full example: %v", full.Warnings)
+	}
+}

@@ -378,3 +378,15 @@ func pulseWidth(p []float64, dt float64) (centre, fwhm float64) {
 	}
 	return centre, 2 * math.Sqrt(2*math.Ln2) * math.Sqrt(s2/s0)
 }
+
+// unfinished reports whether the run ended while the output-end power or the channel-mean
+// gain was still above a tenth of its peak.
+func (sh *shot) unfinished() bool {
+	last := sh.steps - 1
+	if last < 0 {
+		return false
+	}
+	pk, _ := peak(sh.powerFront)
+	gp, _ := peak(sh.meanGain)
+	return (pk > 0 && sh.powerFront[last] > 0.1*pk) || (gp > 0 && sh.meanGain[last] > 0.1*gp)
+}
