@@ -429,3 +429,33 @@ func TestWorkersRunConcurrently(t *testing.T) {
 		}
 	}
 }
+
+// TestJournalThatIsNotThisSweep: a damaged line inside the journal, a point outside the grid or
+// another shard's point make resume refuse, naming the line.
+func TestJournalThatIsNotThisSweep(t *testing.T) {
+	for _, c := range []struct{ line, want string }{
+		{`{"point":1,"row":[` + "\n", "journal.jsonl:1"},
+		{`{"point":99,"row":[]}` + "\n", "outside the grid"},
+		{`{"point":1,"row":["1"]}` + "\n", "1 fields"},
+	} {
+		s := testSweep(t, t.TempDir())
+		interrupt(t, s, 3)
+		path := filepath.Join(s.Dir, JournalFile)
+		good, _ := os.ReadFile(path)
+		os.WriteFile(path, append([]byte(c.line), good...), 0o644)
+		s.Resume = true
+		if _, err := s.Run(context.Background()); err == nil || !strings.Contains(err.Error(), c.want) {
+			t.Errorf("journal starting %q: %v, want %q", c.line, err, c.want)
+		}
+	}
+	s := testSweep(t, t.TempDir())
+	s.Shard = Shard{K: 2, N: 2}
+	interrupt(t, s, 3)
+	path := filepath.Join(s.Dir, JournalFile)
+	good, _ := os.ReadFile(path)
+	os.WriteFile(path, append([]byte(`{"point":0,"row":[]}`+"\n"), good...), 0o644)
+	s.Resume = true
+	if _, err := s.Run(context.Background()); err == nil || !strings.Contains(err.Error(), "not in shard 2/2") {
+		t.Errorf("another shard's point: %v", err)
+	}
+}
