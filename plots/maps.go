@@ -123,7 +123,13 @@ func sweepCurve(t *study.Table, a study.Axis, metric string, col int, base strin
 	p.Y.Label.Text = metric
 	if a.Log {
 		p.X.Scale = plot.LogScale{}
-		p.X.Tick.Marker = plot.LogTicks{Prec: -1}
+		p.X.Tick.Marker = plot.TickerFunc(func(min, max float64) []plot.Tick {
+			ticks := logLabels(math.Log10(min), math.Log10(max)) // 1, 2, 5 per decade
+			for i := range ticks {
+				ticks[i].Value = math.Pow(10, ticks[i].Value)
+			}
+			return ticks
+		})
 	}
 	printStyle(p)
 	var seg plotter.XYs
