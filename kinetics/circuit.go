@@ -39,6 +39,11 @@ type circuit struct {
 	// conductance [S] and the electron density is frozen.
 	fixed       bool
 	conductance float64
+
+	// Swarm lookups of this run outside the table (the table's own counters are shared by
+	// every run in the process).
+	lo, hi       float64 // table range [V m²]
+	below, above int64
 }
 
 func newCircuit(d *Design, table *swarm.Table) *circuit {
@@ -57,6 +62,7 @@ func newCircuit(d *Design, table *swarm.Table) *circuit {
 		density: gasDensity(d.Gas), gap: ch.Gap, area: ch.Length * ch.Width,
 		beta: d.Discharge.Recombination, table: table,
 	}
+	c.lo, c.hi = table.Range()
 	if c.sw.Model == RompeWeizelSwitch {
 		// R(0) = d_g / sqrt((2a/p_g)·q0) = R_off.
 		r := c.sw.Gap / c.sw.OffResistance
@@ -102,7 +108,14 @@ func (c *circuit) reducedField(vg float64) float64 { return math.Abs(vg) / (c.ga
 
 // plasmaCurrent is e·n_e·v_d(E/N)·A with the sign of vg [A].
 func (c *circuit) plasmaCurrent(vg, ne float64) (current float64, k swarm.Coefficients) {
-	k = c.table.At(c.reducedField(vg))
+	en := c.reducedField(vg)
+	switch {
+	case en > c.hi:
+		c.above++
+	case en < c.lo:
+		c.below++
+	}
+	k = c.table.At(en)
 	return math.Copysign(units.ElementaryCharge*ne*k.DriftVelocity*c.area, vg), k
 }
 

@@ -17,7 +17,7 @@ type Summary struct {
 	DepositedEnergy       float64  `json:"deposited_energy_J"`        // energy delivered to the plasma [J]
 	PeakGain              float64  `json:"peak_gain_per_m"`           // highest small-signal gain σ·(N_C − g·N_B) [m⁻¹]
 	GainLength            float64  `json:"gain_length"`               // highest channel-integrated gain ∫g dz
-	InversionDuration     float64  `json:"inversion_duration_s"`      // FWHM of the channel-mean gain [s]
+	InversionDuration     float64  `json:"inversion_duration_s"`      // duration of the gain: equivalent width ∫g⁺dt / g_max of the channel-mean gain [s]
 	TerminationTime       float64  `json:"termination_time_s"`        // when the mid-channel gain falls below 10 % of its peak after it [s]
 	TerminationCause      string   `json:"termination_cause"`         // "lower-level bottleneck", "pump collapse", "quenching", "extraction by the pulse" or "no gain"
 	PeakReducedField      float64  `json:"peak_reduced_field_Td"`     // highest |E/N| [Td]

@@ -28,7 +28,6 @@ func Run(d *Design, s *RunSettings) (*Result, error) {
 	if err != nil {
 		return nil, err
 	}
-	below0, above0 := table.OutOfRange()
 
 	circ := newCircuit(d, table)
 	par.GapCapacitance = circ.cg
@@ -59,8 +58,7 @@ func Run(d *Design, s *RunSettings) (*Result, error) {
 	if wf.stored > 0 {
 		res.Summary.Efficiency = res.Summary.EnergyTotal / wf.stored
 	}
-	below1, above1 := table.OutOfRange()
-	res.Stats.TableBelow, res.Stats.TableAbove = below1-below0, above1-above0
+	res.Stats.TableBelow, res.Stats.TableAbove = circ.below, circ.above
 	if wf.fieldAbove {
 		lo, hi := table.Range()
 		res.Warnings = append(res.Warnings, fmt.Sprintf(

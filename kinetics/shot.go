@@ -234,10 +234,15 @@ func (sh *shot) summarise(res *Result) {
 	}
 	s.PeakGain = sh.peakGain
 	s.GainLength = sh.peakGainLength
-	gp, kg := peak(sh.meanGain)
-	if gp > 0 {
-		a, b := crossings(sh.meanGain, kg, 0.5*gp)
-		s.InversionDuration = (b - a) * dt
+	// The gain duration as the equivalent width of the positive channel-mean gain, ∫g⁺dt / g_max
+	// (as E/P_peak is the equivalent width of a pulse): unlike a half-maximum width it follows
+	// a gain curve of one or several humps smoothly as a design value changes.
+	if gp, _ := peak(sh.meanGain); gp > 0 {
+		area := 0.0
+		for _, g := range sh.meanGain {
+			area += max(g, 0) * dt
+		}
+		s.InversionDuration = area / gp
 	}
 	sh.termination(s)
 	led := sh.med.ledger
