@@ -31,7 +31,7 @@ func Defaults() *Design {
 		Numerics: Numerics{
 			Cells:     200,
 			EndTime:   40e-9,
-			Tolerance: 1e-6,
+			Tolerance: 1e-5,
 		},
 	}
 }

@@ -104,6 +104,9 @@ func expm1Small(x float64) float64 {
 		return math.Expm1(x)
 	}
 	const c2, c3, c4, c5, c6, c7 = 1.0 / 2, 1.0 / 6, 1.0 / 24, 1.0 / 120, 1.0 / 720, 1.0 / 5040
+	if x < 0x1p-13 { // to x⁵: truncation x⁵/720 below 1e-21 of the result
+		return x * (1 + x*(c2+x*(c3+x*(c4+x*c5))))
+	}
 	return x * (1 + x*(c2+x*(c3+x*(c4+x*(c5+x*(c6+x*c7))))))
 }
 
@@ -113,6 +116,9 @@ func log1pSmall(y float64) float64 {
 		return math.Log1p(y)
 	}
 	const c2, c3, c4, c5, c6, c7, c8, c9 = -1.0 / 2, 1.0 / 3, -1.0 / 4, 1.0 / 5, -1.0 / 6, 1.0 / 7, -1.0 / 8, 1.0 / 9
+	if y < 0x1p-13 { // to y⁵: truncation y⁵/6 below 1e-20 of the result
+		return y * (1 + y*(c2+y*(c3+y*(c4+y*c5))))
+	}
 	return y * (1 + y*(c2+y*(c3+y*(c4+y*(c5+y*(c6+y*(c7+y*(c8+y*c9))))))))
 }
 

@@ -17,7 +17,7 @@ func TestSmallSeries(t *testing.T) {
 	if _, ok := expTiny(0.002); ok {
 		t.Error("expTiny claims 0.002 is tiny")
 	}
-	for _, x := range []float64{0, 1e-300, 1e-12, 1e-6, 1e-3, 0.01, 1.0 / 64, 0.02, 0.5, 3} {
+	for _, x := range []float64{0, 1e-300, 1e-12, 1e-6, 1e-4, 0x1p-13, 1.3e-4, 1e-3, 0.01, 1.0 / 64, 0.02, 0.5, 3} {
 		for _, c := range []struct {
 			name      string
 			got, want float64

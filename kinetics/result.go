@@ -82,7 +82,7 @@ type Parameters struct {
 // Stats counts the work of one run.
 type Stats struct {
 	CircuitSteps, CircuitRejected, CircuitEvals int
-	OpticalSteps, Cells                         int
+	OpticalSteps, Cells                         int   // optical steps propagated (dawn to dark) and cells
 	TableBelow, TableAbove                      int64 // swarm lookups clamped below or above the table
 }
 

@@ -26,6 +26,7 @@ type shot struct {
 	peakGain, peakGainLength        float64
 
 	pumpPeak float64 // highest C pump rate at mid-channel [m⁻³ s⁻¹]
+	lit      int     // optical steps propagated (between dawn and dark)
 }
 
 func newShot(d *Design, p *Parameters, wf *waveforms, steps int, s *RunSettings) *shot {
@@ -101,17 +102,24 @@ func (sh *shot) run(res *Result) {
 		eC[k] = math.Exp(-g * dt)
 		wC[k] = -math.Expm1(-g*dt) / g
 	}
-	// The pump still to come bounds how much inversion can reappear: once every cell absorbs
-	// by more than that, the upper level decays faster than the lower one and the light has
-	// left, the channel is dark for good and the optics need not be stepped (a sweep stops).
+	// The pump still to come bounds how much inversion can reappear: with the upper level
+	// decaying at least as fast as the lower one, a cell can regain at most
+	// ∫ max(0, P_C − g·P_B) dt from now on. Once that cannot lift any cell's gain-length over
+	// the channel above 0.1, what the channel can still emit is its spontaneous emission
+	// (amplified by at most 10 %) and the light in flight; when those are below 1e-6 of the
+	// light already out, the channel is dark for good: the optics stop, and a sweep's run ends.
+	// Photons in flight stay counted as such, so the photon balance stays exact.
 	maxDelay := 0
 	for _, w := range sh.delayWhole {
 		maxDelay = max(maxDelay, w+1)
 	}
-	pumpLeft := make([]float64, sh.steps+1)
+	invLeft := make([]float64, sh.steps+1)  // ∫ max(0, P_C − g·P_B) dt from step k on
+	pumpLeft := make([]float64, sh.steps+1) // ∫ P_C dt from step k on
 	for k := sh.steps - 1; k >= 0; k-- {
+		invLeft[k] = invLeft[k+1] + max(0, sh.wf.pumpC[k]-p.DegeneracyRatio*sh.wf.pumpB[k])*dt
 		pumpLeft[k] = pumpLeft[k+1] + sh.wf.pumpC[k]*dt
 	}
+	darkInversion := 0.1 / (p.CrossSection * sh.d.Channel.Length)
 	canGoDark := gamma0 >= p.LowerDecayRate
 	dark := false
 	// Before the discharge the channel neither amplifies nor holds an upper level worth its
@@ -142,25 +150,46 @@ func (sh *shot) run(res *Result) {
 		if uniform && !lit {
 			cells = 1
 		}
-		for i := 0; i < cells; i++ {
-			w, f := sh.delayWhole[i], sh.delayFrac[i]
-			pc := sample(sh.wf.pumpC, k, w, f)
-			pb := sample(sh.wf.pumpB, k, w, f)
-			j := max(0, min(k-w, sh.steps-1))
-			c0, b0 := cs[i], bs[i]
-			c1 := c0*eC[j] + pc*wC[j]
-			b1 := b0*sh.eB + (pb+a00*0.5*(c0+c1))*sh.wB
-			cs[i], bs[i] = c1, b1
-			if follow {
-				x := sdz * ((c1 - c0) - gB*(b1-b0))
-				if f, ok := expTiny(x); ok {
-					gf[i] *= f
-				} else {
-					gf[i] *= expMedium(x)
+		if uniform {
+			// A simultaneous discharge: one pump and one decay factor for every cell.
+			pc, pb, e, w := sh.wf.pumpC[k], sh.wf.pumpB[k], eC[k], wC[k]
+			sh.pumpPeak = max(sh.pumpPeak, pc)
+			pcw, pbw, eB, wBh := pc*w, pb*sh.wB, sh.eB, 0.5*a00*sh.wB
+			for i := 0; i < cells; i++ {
+				c0, b0 := cs[i], bs[i]
+				c1 := c0*e + pcw
+				b1 := b0*eB + pbw + wBh*(c0+c1)
+				cs[i], bs[i] = c1, b1
+				if follow {
+					x := sdz * ((c1 - c0) - gB*(b1-b0))
+					if f, ok := expTiny(x); ok {
+						gf[i] *= f
+					} else {
+						gf[i] *= expMedium(x)
+					}
 				}
 			}
-			if i == mid || cells == 1 {
-				sh.pumpPeak = max(sh.pumpPeak, pc)
+		} else {
+			for i := 0; i < cells; i++ {
+				w, f := sh.delayWhole[i], sh.delayFrac[i]
+				pc := sample(sh.wf.pumpC, k, w, f)
+				pb := sample(sh.wf.pumpB, k, w, f)
+				j := max(0, min(k-w, sh.steps-1))
+				c0, b0 := cs[i], bs[i]
+				c1 := c0*eC[j] + pc*wC[j]
+				b1 := b0*sh.eB + (pb+a00*0.5*(c0+c1))*sh.wB
+				cs[i], bs[i] = c1, b1
+				if follow {
+					x := sdz * ((c1 - c0) - gB*(b1-b0))
+					if f, ok := expTiny(x); ok {
+						gf[i] *= f
+					} else {
+						gf[i] *= expMedium(x)
+					}
+				}
+				if i == mid {
+					sh.pumpPeak = max(sh.pumpPeak, pc)
+				}
 			}
 		}
 		for i := cells; i < n; i++ {
@@ -178,6 +207,7 @@ func (sh *shot) run(res *Result) {
 			m.resync()
 		}
 		if lit && !dark {
+			sh.lit++
 			front, rear := m.propagate(k)
 			sh.powerFront[k] = hv * front
 			sh.powerRear[k] = hv * rear
@@ -188,9 +218,15 @@ func (sh *shot) run(res *Result) {
 			sum += inv
 			maxInv = max(maxInv, inv)
 		}
-		if canGoDark && !dark && maxInv+pumpLeft[max(0, k-maxDelay)] < 0 {
-			led := m.ledger
-			dark = m.inFlight() < 1e-12*(led.spontaneous+led.stimulated+led.injected)
+		if canGoDark && lit && !dark && maxInv+invLeft[max(0, k-maxDelay)] < darkInversion {
+			sumC := 0.0
+			for _, c := range cs {
+				sumC += c
+			}
+			// Spontaneous photons per area still to come, both directions, amplified ≤ 10 %.
+			future := 1.1 * 2 * m.spont * (sumC + float64(n)*pumpLeft[max(0, k-maxDelay)]) / gamma0
+			out := m.ledger.front + m.ledger.rear
+			dark = out > 0 && m.inFlight()+future < 1e-6*out
 		}
 		g := p.CrossSection * sum / float64(n)
 		sh.meanGain[k] = g
@@ -207,7 +243,7 @@ func (sh *shot) run(res *Result) {
 			}
 		}
 	}
-	res.Stats.OpticalSteps = sh.steps
+	res.Stats.OpticalSteps = sh.lit
 	res.Stats.Cells = n
 }
 
