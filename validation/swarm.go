@@ -16,6 +16,7 @@ func init() {
 const (
 	srcMorrowLowke = "J.M. Morrow & J.J. Lowke, J. Phys. D 30, 614 (1997), appendix: fits to measured swarm data in air, as transcribed in public streamer-simulation files (seen)"
 	srcNasser      = "α/p = A exp(−B p/E), A = 12.0 cm⁻¹Torr⁻¹, B = 342.6 V cm⁻¹Torr⁻¹ for N₂ (E. Nasser, Fundamentals of Gaseous Ionization and Plasma Electronics, Wiley 1971, transcribed in a public Paschen-law module, seen; Raizer, Gas Discharge Physics 1991, Table 4.1 gives 12 and 342); valid for E/p 100–600 V cm⁻¹Torr⁻¹; T = 293.15 K (physics-data.md §5a–b)"
+	srcKayeLabyEta = "Kaye & Laby, Tables of Physical and Chemical Constants (NPL online edition, version 1.0), §4.4.5 Electron diffusion: measured Townsend energy factor η of N₂ against E/p, with D/μ = η·p/(N e), N the molecular density at s.t.p. (seen at kayelaby.npl.co.uk/atomic_and_nuclear_physics/4_4/4_4_5.html); read here as eD_T/μ = η·k_B·273.15 K and E/N = (E/p)·k_B·273.15 K (taking 288 K instead moves the comparison by about 3 %)"
 	srcAirE0       = "air breakdown field E₀ ≈ 30 kV/cm at 1 atm, as quoted in a public lightning-simulation source (physics-data.md §5d, seen), i.e. E/N = 120 Td at 101325 Pa, 293 K"
 )
 
@@ -171,6 +172,20 @@ func swarmChecks() ([]Check, error) {
 	cs = append(cs, Check{ID: "swarm.critical.air.ml", Quantity: "effective ionisation threshold of air against the crossing of the Morrow–Lowke α and η fits",
 		Unit: "Td", Computed: crit / units.Townsend, Reference: mlCrit / units.Townsend, Tolerance: 0.15, Mode: Relative, Kind: Published,
 		Source: srcMorrowLowke + "; crossing derived here", Err: err})
+	// Characteristic energy D_T/μ in N₂ against the measured Townsend energy factor (Kaye & Laby).
+	// Columns of the table: E/p [V m⁻¹ Pa⁻¹] and η.
+	kT0 := units.Boltzmann * 273.15 // s.t.p. [J]
+	for _, m := range []struct{ ep, eta float64 }{{2, 34}, {5, 44}, {10, 52}, {20, 68}, {30, 89}, {40, 114}} {
+		en := m.ep * kT0 // E/N [V m²]
+		r, err := n2.Solve(en)
+		c := Check{ID: fmt.Sprintf("swarm.charenergy.n2.Ep%g", m.ep),
+			Quantity: fmt.Sprintf("characteristic energy D_T/μ in N₂ at E/p = %g V m⁻¹ Pa⁻¹ (%.3g Td)", m.ep, en/units.Townsend), Unit: "eV",
+			Reference: m.eta * kT0 / units.ElementaryCharge, Tolerance: 0.20, Mode: Relative, Kind: Published, Source: srcKayeLabyEta, Err: err}
+		if err == nil {
+			c.Computed = r.Characteristic / units.ElectronVolt
+		}
+		cs = append(cs, c)
+	}
 	// Characteristic energy D/μ in air against Morrow–Lowke.
 	for _, x := range []float64{20, 100, 200, 300} {
 		r, err := air.Solve(x * units.Townsend)
