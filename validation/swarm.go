@@ -113,7 +113,9 @@ func swarmChecks() ([]Check, error) {
 		}
 		cs = append(cs, c)
 	}
-	// Drift velocity in N₂: no measured table was found; recalled anchors, soft.
+	// Drift velocity in N₂: no measured table could be read (looked for: LXCat swarm exports,
+	// Dutton 1975, Nakamura 1987, Hasegawa et al. 1996, Roznerski & Leja 1984, Lowke 1963,
+	// Kaye & Laby §4.4); recalled anchors, soft.
 	for _, m := range []struct{ td, w float64 }{{100, 1.1e5}, {300, 2.9e5}} {
 		r, err := n2.Solve(m.td * units.Townsend)
 		c := Check{ID: "swarm.drift.n2." + td(m.td), Quantity: fmt.Sprintf("electron drift velocity in N₂ at %g Td", m.td),
