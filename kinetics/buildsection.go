@@ -1,15 +1,11 @@
 package kinetics
 
 import (
-	"bytes"
-	"errors"
 	"fmt"
 	"math"
 	"sort"
 	"strconv"
 	"strings"
-
-	"github.com/BurntSushi/toml"
 
 	"n2pulse/kinetics/build"
 	"n2pulse/kinetics/spectro"
@@ -143,16 +139,10 @@ type Built struct {
 // out (explicit circuit values win). Without a [build] section it reads the design like
 // ParseDesign and rates the stresses the circuit values allow.
 func ParseBuiltDesign(b []byte, name string) (*Built, error) {
-	var raw map[string]any
-	if _, err := toml.NewDecoder(bytes.NewReader(b)).Decode(&raw); err != nil {
-		var pe toml.ParseError
-		if errors.As(err, &pe) {
-			return nil, fmt.Errorf("design: %s:%d: %s", name, pe.Position.Line, pe.Message)
-		}
-		return nil, fmt.Errorf("design: %s: %w", name, err)
+	flat, err := decodeFlat(b, name)
+	if err != nil {
+		return nil, err
 	}
-	flat := map[string]any{}
-	flatten("", raw, flat)
 	out, err := parseBuilt(flat)
 	if err != nil {
 		return nil, fmt.Errorf("%s: %w", name, err)

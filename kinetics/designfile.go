@@ -44,16 +44,10 @@ func ExampleDesign() *Design {
 // ParseDesign decodes a TOML design, rejecting unknown keys, wrong units and impossible
 // values; name is used in messages. Keys absent from the file take the defaults of Defaults.
 func ParseDesign(b []byte, name string) (*Design, error) {
-	var raw map[string]any
-	if _, err := toml.NewDecoder(bytes.NewReader(b)).Decode(&raw); err != nil {
-		var pe toml.ParseError
-		if errors.As(err, &pe) {
-			return nil, fmt.Errorf("design: %s:%d: %s", name, pe.Position.Line, pe.Message)
-		}
-		return nil, fmt.Errorf("design: %s: %w", name, err)
+	flat, err := decodeFlat(b, name)
+	if err != nil {
+		return nil, err
 	}
-	flat := map[string]any{}
-	flatten("", raw, flat)
 	if hasBuild(flat) {
 		b, err := parseBuilt(flat)
 		if err != nil {
@@ -85,6 +79,22 @@ func ParseDesign(b []byte, name string) (*Design, error) {
 		return nil, fmt.Errorf("%s: %w", name, err)
 	}
 	return d, nil
+}
+
+// decodeFlat decodes TOML text into dotted keys ("channel.length") and their values; syntax
+// errors carry the file name and line.
+func decodeFlat(b []byte, name string) (map[string]any, error) {
+	var raw map[string]any
+	if _, err := toml.NewDecoder(bytes.NewReader(b)).Decode(&raw); err != nil {
+		var pe toml.ParseError
+		if errors.As(err, &pe) {
+			return nil, fmt.Errorf("design: %s:%d: %s", name, pe.Position.Line, pe.Message)
+		}
+		return nil, fmt.Errorf("design: %s: %w", name, err)
+	}
+	flat := map[string]any{}
+	flatten("", raw, flat)
+	return flat, nil
 }
 
 func flatten(prefix string, m map[string]any, out map[string]any) {

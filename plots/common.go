@@ -43,6 +43,15 @@ func figureFormat(path string) (string, error) {
 	return ext, nil
 }
 
+// labelledPlot returns a new plot with its title and axis labels.
+func labelledPlot(title, x, y string) *plot.Plot {
+	p := plot.New()
+	p.Title.Text = title
+	p.X.Label.Text = x
+	p.Y.Label.Text = y
+	return p
+}
+
 // printStyle sets the text sizes of p for print and, on axes still using gonum's default
 // ticker, the niceTicks ticker.
 func printStyle(p *plot.Plot) {

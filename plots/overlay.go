@@ -4,11 +4,7 @@ import (
 	"fmt"
 	"image/color"
 	"math"
-	"n2pulse/internal/atomicfile"
-	"path/filepath"
-	"strings"
 
-	"gonum.org/v1/plot"
 	"gonum.org/v1/plot/plotter"
 	"gonum.org/v1/plot/vg"
 	"gonum.org/v1/plot/vg/draw"
@@ -36,14 +32,10 @@ func Overlay(path string, d OverlayData) error {
 		return fmt.Errorf("plots: overlay: %d/%d model and %d/%d measured values do not pair",
 			len(d.ModelX), len(d.ModelY), len(d.MeasuredX), len(d.MeasuredY))
 	}
-	ext := strings.ToLower(strings.TrimPrefix(filepath.Ext(path), "."))
-	if ext != "png" && ext != "svg" {
-		return fmt.Errorf("plots: overlay: %q: want a .png or .svg file name", path)
+	if _, err := figureFormat(path); err != nil {
+		return err
 	}
-	p := plot.New()
-	p.Title.Text = d.Title
-	p.X.Label.Text = d.XLabel
-	p.Y.Label.Text = d.YLabel
+	p := labelledPlot(d.Title, d.XLabel, d.YLabel)
 	p.Legend.Top = true
 
 	var model plotter.XYs
@@ -83,14 +75,7 @@ func Overlay(path string, d OverlayData) error {
 	p.Add(plotter.NewGrid())
 	p.Y.Min = math.Min(p.Y.Min, 0)
 
-	wt, err := p.WriterTo(16*vg.Centimeter, 11*vg.Centimeter, ext)
-	if err != nil {
-		return fmt.Errorf("plots: overlay: %w", err)
-	}
-	if err := atomicfile.WriteTo(path, wt); err != nil {
-		return fmt.Errorf("plots: overlay: %w", err)
-	}
-	return nil
+	return savePlot(path, p, 16*vg.Centimeter, 11*vg.Centimeter)
 }
 
 func labelOr(s, def string) string {

@@ -27,7 +27,7 @@ func TestOverlayWritesPNG(t *testing.T) {
 	if !bytes.HasPrefix(b, []byte("\x89PNG\r\n\x1a\n")) {
 		t.Errorf("not a PNG file")
 	}
-	left, _ := filepath.Glob(filepath.Join(dir, ".overlay-*"))
+	left, _ := filepath.Glob(filepath.Join(dir, ".*"))
 	if len(left) != 0 {
 		t.Errorf("temporary files left: %v", left)
 	}

@@ -3,11 +3,7 @@ package plots
 import (
 	"fmt"
 	"image/color"
-	"n2pulse/internal/atomicfile"
-	"path/filepath"
-	"strings"
 
-	"gonum.org/v1/plot"
 	"gonum.org/v1/plot/plotter"
 	"gonum.org/v1/plot/vg"
 )
@@ -31,14 +27,10 @@ func Spectrum(path string, d SpectrumData) error {
 		return fmt.Errorf("plots: spectrum: %d/%d stick and %d/%d profile points do not pair",
 			len(d.StickX), len(d.StickY), len(d.ProfileX), len(d.ProfileY))
 	}
-	ext := strings.ToLower(strings.TrimPrefix(filepath.Ext(path), "."))
-	if ext != "png" && ext != "svg" {
-		return fmt.Errorf("plots: spectrum: %q: want a .png or .svg file name", path)
+	if _, err := figureFormat(path); err != nil {
+		return err
 	}
-	p := plot.New()
-	p.Title.Text = d.Title
-	p.X.Label.Text = d.XLabel
-	p.Y.Label.Text = d.YLabel
+	p := labelledPlot(d.Title, d.XLabel, d.YLabel)
 	p.Y.Min = 0
 	if len(d.StickX) > 0 {
 		// one polyline that rises and falls at each stick draws all sticks from the base line
@@ -72,12 +64,5 @@ func Spectrum(path string, d SpectrumData) error {
 	p.Legend.Top = true
 	p.Legend.Left = true
 	p.Add(plotter.NewGrid())
-	w, err := p.WriterTo(7*vg.Inch, 4*vg.Inch, ext)
-	if err != nil {
-		return fmt.Errorf("plots: spectrum: %w", err)
-	}
-	if err := atomicfile.WriteTo(path, w); err != nil {
-		return fmt.Errorf("plots: spectrum: %w", err)
-	}
-	return nil
+	return savePlot(path, p, 7*vg.Inch, 4*vg.Inch)
 }
