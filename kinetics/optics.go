@@ -19,8 +19,12 @@ type medium struct {
 	gain          []float64 // small-signal gain factor e^(σ·(N_C − g·N_B)·Δz) of each cell
 	fp, fm        []float64
 	fpOld, fmOld  []float64
+	in1, in2      []float64 // scratch of advance: fluxes entering each cell in its two passes
+	half          []float64 // scratch of advance: spontaneous flux added to each direction
 	ledger        photonLedger
 	inject        float64 // flux entering the forward wave at z = 0 from outside (tests) [m⁻² s⁻¹]
+	// Sum and largest value of N_C − g·N_B over the cells after the last step [m⁻³].
+	invSum, invMax float64
 }
 
 // photonLedger counts photons per unit optical area [m⁻²] for the photon balance.
@@ -38,6 +42,7 @@ func newMedium(n int, dz, dt, sigma, g, spontPerC, loss, rRear, rFront float64) 
 		c: make([]float64, n), b: make([]float64, n), gain: make([]float64, n),
 		fp: make([]float64, n), fm: make([]float64, n),
 		fpOld: make([]float64, n), fmOld: make([]float64, n),
+		in1: make([]float64, n), in2: make([]float64, n), half: make([]float64, n),
 	}
 	m.resync()
 	return m
@@ -53,20 +58,58 @@ func (m *medium) resync() {
 	}
 }
 
-// frantzNodvik returns the fluence [m⁻²] leaving a cell of small-signal gain factor
-// gain = e^(σΔN·Δz) for an entering fluence jin, by the Frantz–Nodvik relation
+// One Frantz–Nodvik pass through a cell of small-signal gain factor G = e^(σΔN·Δz) with an
+// entering fluence J_in [m⁻²] gives (Frantz & Nodvik, J. Appl. Phys. 34, 2346 (1963))
 //
-//	J_out = J_s·ln(1 + G·(e^(J_in/J_s) − 1)),  J_s = 1/((1+g)σ),
+//	J_out = J_s·ln(1 + G·(e^x − 1)),  x = J_in/J_s,  J_s = 1/((1+g)σ),
 //
-// with invJs = 1/J_s. Far below saturation (J_in/J_s and G·J_in/J_s under 1e-6) it uses the
-// expansion J_in·G·(1 + x(1−G)/2), exact to a relative 1e-12; cells are short, so the
-// remaining series are short too (the hot loop of a shot).
-func frantzNodvik(jin, gain, js, invJs float64) float64 {
-	x := jin * invJs
-	if x < 1e-6 && gain*x < 1e-6 {
-		return jin * gain * (1 + 0.5*x*(1-gain))
-	}
-	return js * log1pSmall(gain*expm1Small(x))
+// and leaves the cell with the gain factor G′ = G·e^(−(J_out−J_in)/J_s). Written with
+// r = 1 − e^(−x) and w = (G − 1)·r, the transferred fluence and the new factor are
+//
+//	ΔJ = J_out − J_in = J_s·ln(1 + w),  G′ = G/(1 + w),
+//
+// with no difference of nearly equal numbers however close G is to 1 (G − 1 is exact for
+// ½ ≤ G ≤ 2). Far below saturation the expansion of a = ln(G′/G) = −ΔJ/J_s in x,
+//
+//	a = (1−G)·x·[1 − G·x·(1/2 + (1−2G)·x/6 + (1 − 6G + 6G²)·x²/24)] + O(G(1−G)·P₅(G)·x⁵),
+//
+// (the derivatives of ln(1 + G(eˣ−1)) at x = 0; P₅ = 1 − 14G + 36G² − 24G³) is exact to a
+// relative 1e-17 when x and G·x are below tinyFluence = 2⁻¹⁴, and then G′ = G·e^a with
+// e^a to a³ (|a| < 2⁻¹⁴, truncation below 1e-18); up to x = 1/64 short series for r and
+// ln(1+w) are exact to rounding; beyond, passWide uses the library functions. The hot loop
+// (medium.pass) calls only functions that inline, except passWide in its rare regime.
+
+// tinyFluence bounds x = J_in/J_s and G·x for the expansion of a pass far below saturation.
+const tinyFluence = 0x1p-14
+
+// passTiny returns a = ln(G′/G) of a pass far below saturation and whether x and G·x are
+// below tinyFluence, where the expansion is exact to a relative 1e-17.
+func passTiny(x, g float64) (float64, bool) {
+	gx := g * x
+	return (1 - g) * x * (1 - gx*(0.5+x*((1-2*g)*(1.0/6)+x*(1+6*g*(g-1))*(1.0/24)))),
+		x < tinyFluence && gx < tinyFluence
+}
+
+// expNegSeries returns r = 1 − e^(−x) and whether 0 ≤ x ≤ 1/64, where its series to x⁷ is
+// exact to a relative 6e-18 (truncation x⁷/8!).
+func expNegSeries(x float64) (float64, bool) {
+	const c2, c3, c4, c5, c6, c7 = -1.0 / 2, 1.0 / 6, -1.0 / 24, 1.0 / 120, -1.0 / 720, 1.0 / 5040
+	return x * (1 + x*(c2+x*(c3+x*(c4+x*(c5+x*(c6+x*c7)))))), x >= 0 && x <= small
+}
+
+// log1pSeries returns ln(1+w) and whether |w| ≤ 1/64, where it is computed as 2·atanh(s),
+// s = w/(2+w), |s| ≤ 1/127, by the series to s⁷ (truncation s⁸/9 below 2e-18 relative).
+func log1pSeries(w float64) (float64, bool) {
+	s := w / (2 + w)
+	s2 := s * s
+	return 2 * s * (1 + s2*(1.0/3+s2*(1.0/5+s2*(1.0/7)))), w <= small && w >= -small
+}
+
+// passWide is a Frantz–Nodvik pass at any x = J_in/J_s ≥ 0 and gain factor g > 0: it returns
+// ΔJ = J_out − J_in [m⁻²] and G′.
+func passWide(x, g, js float64) (dj, gNew float64) {
+	w := (g - 1) * -math.Expm1(-x)
+	return js * log1pSmall(w), g / (1 + w)
 }
 
 // small bounds the arguments for which the series below are exact to rounding.
@@ -127,20 +170,42 @@ func log1pSmall(y float64) float64 {
 // cell the two directions pass in turn (alternating the order from step to step); the
 // stimulated transitions (J_out − J_in)/Δz of each pass are taken from the populations, so
 // they stay non-negative at any flux and every photon gained is a transition of the medium.
-func (m *medium) propagate(step int) (front, rear float64) {
+func (m *medium) propagate(step int) (front, rear float64) { return m.advance(step, nil, false) }
+
+// pumpStep is the pump and decay of every cell over one optical step, for constant
+// coefficients: C' = C·e[i] + cp[i], B' = B·eB + bp[i] + wBh·(C + C′).
+type pumpStep struct {
+	e, cp, bp []float64 // per cell: e^(−Γ_C Δt), P_C·(1−e^(−Γ_CΔt))/Γ_C [m⁻³], P_B·(1−e^(−Γ_BΔt))/Γ_B [m⁻³]
+	eB, wBh   float64   // e^(−Γ_B Δt) and ½·A₀₀·(1−e^(−Γ_BΔt))/Γ_B
+}
+
+// advance is one optical step of every cell: with pump non-nil, first the pump and decay of
+// the cell (its gain factor following, or recomputed when resync), then propagate's two
+// passes; it leaves the sum and the largest value of the inversions N_C − g·N_B of the cells
+// in invSum and invMax [m⁻³]. The cells are independent within a step (each pass reads the
+// fluxes of the previous step), so the step is taken in sweeps over all cells: pump and
+// entering fluxes, the first pass, the second pass, the fluxes leaving. Each sweep is short
+// and its cells independent, so the processor overlaps many cells; one sweep doing all of a
+// cell would wait on the long chain pump → pass → pass of every cell in turn.
+func (m *medium) advance(step int, pump *pumpStep, resync bool) (front, rear float64) {
 	m.fp, m.fpOld = m.fpOld, m.fp
 	m.fm, m.fmOld = m.fmOld, m.fm
 	n := m.n
 	front = (1 - m.rFront) * m.fpOld[n-1]
 	rear = (1 - m.rRear) * m.fmOld[0]
-	dt, invDt, invDz := m.dt, m.invDt, m.invDz
-	js, invJs := m.js, m.invJs
-	loss, spontHalf := m.lossFactor, 0.5*m.spont
-	fp, fm, fpOld, fmOld := m.fp, m.fm, m.fpOld, m.fmOld
-	cs, bs, gf := m.c[:n], m.b[:n], m.gain[:n]
-	var spont, stim, lost float64
+	spontHalf := 0.5 * m.spont
+	fp, fm, fpOld, fmOld := m.fp[:n], m.fm[:n], m.fpOld[:n], m.fmOld[:n]
+	cs, bs := m.c[:n], m.b[:n]
+	in1, in2, halves := m.in1[:n], m.in2[:n], m.half[:n]
 	forwardFirst := step&1 == 0
-	for i := 0; i < n; i++ {
+
+	// Pump and decay; the spontaneous emission of each cell, half into each direction; the
+	// fluence entering each cell in its first and its second pass.
+	if pump != nil {
+		m.pump(pump, resync)
+	}
+	var spont float64
+	for i := range cs {
 		var inP, inM float64
 		if i == 0 {
 			inP = m.rRear*fmOld[0] + m.inject
@@ -152,48 +217,40 @@ func (m *medium) propagate(step int) (front, rear float64) {
 		} else {
 			inM = fmOld[i+1]
 		}
-		c, b := cs[i], bs[i]
-		half := spontHalf * c
+		half := spontHalf * cs[i]
 		spont += 4 * half
-		gain := gf[i]
-		first, second := inP+half, inM+half
-		if !forwardFirst {
-			first, second = second, first
-		}
-		// First pass.
-		jin := first * dt
-		dj := frantzNodvik(jin, gain, js, invJs) - jin
-		c -= dj * invDz
-		b += dj * invDz
-		stim += dj
-		out1 := (jin + dj) * invDt
-		if f, ok := expTiny(-dj * invJs); ok {
-			gain *= f
+		halves[i] = half
+		if forwardFirst {
+			in1[i], in2[i] = inP+half, inM+half
 		} else {
-			gain *= expMedium(-dj * invJs)
+			in1[i], in2[i] = inM+half, inP+half
 		}
-		// Second pass.
-		jin = second * dt
-		dj2 := frantzNodvik(jin, gain, js, invJs) - jin
-		c -= dj2 * invDz
-		b += dj2 * invDz
-		stim += dj2
-		out2 := (jin + dj2) * invDt
-		if f, ok := expTiny(-dj2 * invJs); ok {
-			gf[i] = gain * f
-		} else {
-			gf[i] = gain * expMedium(-dj2*invJs)
-		}
-		// Rounding only: Frantz–Nodvik never takes more than the inversion holds.
-		cs[i], bs[i] = max(c, 0), max(b, 0)
+	}
+	stim := m.pass(in1)
+	stim += m.pass(in2)
+
+	// Rounding only: Frantz–Nodvik never takes more than the inversion holds.
+	loss, g := m.lossFactor, m.g
+	var lost float64
+	sum, maxInv := 0.0, math.Inf(-1)
+	for i := range cs {
+		c, b := max(cs[i], 0), max(bs[i], 0)
+		cs[i], bs[i] = c, b
+		inv := c - g*b
+		sum += inv
+		maxInv = max(maxInv, inv)
+		out1, out2 := in1[i], in2[i]
 		k1, k2 := out1*loss, out2*loss
 		lost += (out1 - k1) + (out2 - k2)
+		half := halves[i]
 		if forwardFirst {
 			fp[i], fm[i] = k1+half, k2+half
 		} else {
 			fm[i], fp[i] = k1+half, k2+half
 		}
 	}
+	m.invSum, m.invMax = sum, maxInv
+	dt := m.dt
 	m.ledger.injected += m.inject * dt
 	m.ledger.spontaneous += spont * dt
 	m.ledger.stimulated += stim
@@ -201,6 +258,69 @@ func (m *medium) propagate(step int) (front, rear float64) {
 	m.ledger.front += front * dt
 	m.ledger.rear += rear * dt
 	return front, rear
+}
+
+// pump advances every cell through the pump and decay of one step; each gain factor follows
+// its cell's populations, or is recomputed from them when resync.
+func (m *medium) pump(ps *pumpStep, resync bool) {
+	n := m.n
+	cs, bs, gf := m.c[:n], m.b[:n], m.gain[:n]
+	pe, pc, pb := ps.e[:n], ps.cp[:n], ps.bp[:n]
+	eB, wBh := ps.eB, ps.wBh
+	sdz, g := m.sigma*m.dz, m.g
+	for i := range cs {
+		c0, b0 := cs[i], bs[i]
+		c := c0*pe[i] + pc[i]
+		b := b0*eB + pb[i] + wBh*(c0+c)
+		cs[i], bs[i] = c, b
+		if resync {
+			gf[i] = math.Exp(sdz * (c - g*b))
+			continue
+		}
+		x := sdz * ((c - c0) - g*(b-b0))
+		if f, ok := expTiny(x); ok {
+			gf[i] *= f
+		} else {
+			gf[i] *= expMedium(x)
+		}
+	}
+}
+
+// pass takes every cell through one Frantz–Nodvik pass: flux[i], the flux entering cell i
+// [m⁻² s⁻¹], is replaced by the flux leaving it, before loss; the transitions are taken from
+// the cell's populations and its gain factor follows. It returns the fluence gained by the
+// beam, summed over the cells [m⁻²].
+func (m *medium) pass(flux []float64) (stim float64) {
+	n := m.n
+	cs, bs, gf, flux := m.c[:n], m.b[:n], m.gain[:n], flux[:n]
+	dt, invDt, invDz := m.dt, m.invDt, m.invDz
+	js, invJs := m.js, m.invJs
+	for i := range cs {
+		jin := flux[i] * dt
+		x := jin * invJs
+		gain := gf[i]
+		var dj float64
+		if a, ok := passTiny(x, gain); ok {
+			dj = -a * js
+			gain *= 1 + a*(1+a*(0.5+a*(1.0/6)))
+		} else if r, ok := expNegSeries(x); ok {
+			w := (gain - 1) * r
+			if l, ok := log1pSeries(w); ok {
+				dj = js * l
+				gain /= 1 + w
+			} else {
+				dj, gain = passWide(x, gain, js)
+			}
+		} else {
+			dj, gain = passWide(x, gain, js)
+		}
+		cs[i] -= dj * invDz
+		bs[i] += dj * invDz
+		gf[i] = gain
+		stim += dj
+		flux[i] = (jin + dj) * invDt
+	}
+	return stim
 }
 
 // inFlight is the number of photons per unit area still travelling in the channel [m⁻²].

@@ -25,6 +25,7 @@ type shot struct {
 	midC, midB                      []float64
 	peakGain, peakGainLength        float64
 
+	uniform  bool    // a simultaneous discharge: every cell has the same pump
 	pumpPeak float64 // highest C pump rate at mid-channel [m⁻³ s⁻¹]
 	lit      int     // optical steps propagated (between dawn and dark)
 }
@@ -59,6 +60,10 @@ func newShot(d *Design, p *Parameters, wf *waveforms, steps int, s *RunSettings)
 		s := delay / p.TimeStep
 		sh.delayWhole[i] = int(math.Floor(s))
 		sh.delayFrac[i] = s - math.Floor(s)
+	}
+	sh.uniform = true
+	for i := range sh.delayWhole {
+		sh.uniform = sh.uniform && sh.delayWhole[i] == 0 && sh.delayFrac[i] == 0
 	}
 	gb := p.LowerDecayRate
 	sh.eB = math.Exp(-gb * p.TimeStep)
@@ -128,11 +133,9 @@ func (sh *shot) run(res *Result) {
 	// left the channel unamplified, a part in 1e9 of a lasing pulse; the photon balance
 	// counts only what is emitted, so it stays exact.
 	lit := false
-	uniform := true
-	for i := range sh.delayWhole {
-		uniform = uniform && sh.delayWhole[i] == 0 && sh.delayFrac[i] == 0
-	}
 	dawn := 1e-3 / (p.CrossSection * sh.d.Channel.Length)
+	pump := &pumpStep{e: make([]float64, n), cp: make([]float64, n), bp: make([]float64, n),
+		eB: sh.eB, wBh: 0.5 * a00 * sh.wB}
 	for k := 0; k < sh.steps; k++ {
 		if dark && sh.light {
 			for j := k; j < sh.steps; j++ {
@@ -140,87 +143,45 @@ func (sh *shot) run(res *Result) {
 			}
 			break
 		}
-		// Pump and decay of every cell; while the optics run, each cell's gain factor follows
-		// its populations.
-		follow := lit && !dark
-		sdz, gB := m.sigma*m.dz, m.g
-		cs, bs, gf := m.c[:n], m.b[:n], m.gain[:n]
-		// Before dawn a simultaneous discharge keeps every cell alike: step one, copy it.
-		cells := n
-		if uniform && !lit {
-			cells = 1
-		}
-		if uniform {
-			// A simultaneous discharge: one pump and one decay factor for every cell.
-			pc, pb, e, w := sh.wf.pumpC[k], sh.wf.pumpB[k], eC[k], wC[k]
-			sh.pumpPeak = max(sh.pumpPeak, pc)
-			pcw, pbw, eB, wBh := pc*w, pb*sh.wB, sh.eB, 0.5*a00*sh.wB
-			for i := 0; i < cells; i++ {
-				c0, b0 := cs[i], bs[i]
-				c1 := c0*e + pcw
-				b1 := b0*eB + pbw + wBh*(c0+c1)
-				cs[i], bs[i] = c1, b1
-				if follow {
-					x := sdz * ((c1 - c0) - gB*(b1-b0))
-					if f, ok := expTiny(x); ok {
-						gf[i] *= f
-					} else {
-						gf[i] *= expMedium(x)
-					}
-				}
-			}
-		} else {
-			for i := 0; i < cells; i++ {
-				w, f := sh.delayWhole[i], sh.delayFrac[i]
-				pc := sample(sh.wf.pumpC, k, w, f)
-				pb := sample(sh.wf.pumpB, k, w, f)
-				j := max(0, min(k-w, sh.steps-1))
-				c0, b0 := cs[i], bs[i]
-				c1 := c0*eC[j] + pc*wC[j]
-				b1 := b0*sh.eB + (pb+a00*0.5*(c0+c1))*sh.wB
-				cs[i], bs[i] = c1, b1
-				if follow {
-					x := sdz * ((c1 - c0) - gB*(b1-b0))
-					if f, ok := expTiny(x); ok {
-						gf[i] *= f
-					} else {
-						gf[i] *= expMedium(x)
-					}
-				}
-				if i == mid {
-					sh.pumpPeak = max(sh.pumpPeak, pc)
-				}
-			}
-		}
-		for i := cells; i < n; i++ {
-			cs[i], bs[i] = cs[0], bs[0]
-		}
-		if !lit {
-			for i := 0; i < n; i++ {
-				if cs[i]-gB*bs[i] > dawn {
-					lit = true
-					break
-				}
-			}
-		}
-		if lit && (k%64 == 0 || !follow) {
-			m.resync()
-		}
+		var sum, maxInv float64
 		if lit && !dark {
+			// While the optics run: pump, decay and both passes of every cell in one sweep,
+			// each cell's gain factor following its populations (recomputed every 64 steps).
+			sh.fillPump(pump, k, eC, wC)
 			sh.lit++
-			front, rear := m.propagate(k)
+			front, rear := m.advance(k, pump, k%64 == 0)
 			sh.powerFront[k] = hv * front
 			sh.powerRear[k] = hv * rear
-		}
-		sum, maxInv := 0.0, math.Inf(-1)
-		for i := 0; i < n; i++ {
-			inv := m.c[i] - m.g*m.b[i]
-			sum += inv
-			maxInv = max(maxInv, inv)
+			sum, maxInv = m.invSum, m.invMax
+		} else {
+			sh.pumpOnly(k, eC, wC, lit)
+			if !lit {
+				for i := 0; i < n; i++ {
+					if m.c[i]-m.g*m.b[i] > dawn {
+						lit = true
+						break
+					}
+				}
+			}
+			if lit {
+				m.resync()
+			}
+			if lit && !dark {
+				sh.lit++
+				front, rear := m.propagate(k)
+				sh.powerFront[k] = hv * front
+				sh.powerRear[k] = hv * rear
+			}
+			sum, maxInv = 0.0, math.Inf(-1)
+			for i := 0; i < n; i++ {
+				inv := m.c[i] - m.g*m.b[i]
+				sum += inv
+				maxInv = max(maxInv, inv)
+			}
 		}
 		if canGoDark && lit && !dark && maxInv+invLeft[max(0, k-maxDelay)] < darkInversion {
 			sumC := 0.0
-			for _, c := range cs {
+			for _, c := range m.c {
 				sumC += c
 			}
 			// Spontaneous photons per area still to come, both directions, amplified ≤ 10 %.
@@ -245,6 +206,69 @@ func (sh *shot) run(res *Result) {
 	}
 	res.Stats.OpticalSteps = sh.lit
 	res.Stats.Cells = n
+}
+
+// fillPump sets the pump and decay factors of every cell for step k: one value for all
+// cells when the discharge is simultaneous, else each cell's delayed sample.
+func (sh *shot) fillPump(ps *pumpStep, k int, eC, wC []float64) {
+	n := sh.d.Numerics.Cells
+	pe, pc, pb := ps.e[:n], ps.cp[:n], ps.bp[:n]
+	if sh.uniform {
+		c, b := sh.wf.pumpC[k], sh.wf.pumpB[k]
+		sh.pumpPeak = max(sh.pumpPeak, c)
+		e, cw, bw := eC[k], c*wC[k], b*sh.wB
+		for i := range pe {
+			pe[i], pc[i], pb[i] = e, cw, bw
+		}
+		return
+	}
+	for i := range pe {
+		w, f := sh.delayWhole[i], sh.delayFrac[i]
+		c := sample(sh.wf.pumpC, k, w, f)
+		j := max(0, min(k-w, sh.steps-1))
+		pe[i], pc[i], pb[i] = eC[j], c*wC[j], sample(sh.wf.pumpB, k, w, f)*sh.wB
+		if i == n/2 {
+			sh.pumpPeak = max(sh.pumpPeak, c)
+		}
+	}
+}
+
+// pumpOnly advances the populations of every cell through the pump and decay of step k
+// while the optics do not run (before dawn and after dark); before dawn a simultaneous
+// discharge keeps every cell alike, so one cell is stepped and copied.
+func (sh *shot) pumpOnly(k int, eC, wC []float64, lit bool) {
+	n, m, a00 := sh.d.Numerics.Cells, sh.med, sh.p.EinsteinA00
+	cs, bs := m.c[:n], m.b[:n]
+	if sh.uniform {
+		cells := n
+		if !lit {
+			cells = 1
+		}
+		pc, pb, e, w := sh.wf.pumpC[k], sh.wf.pumpB[k], eC[k], wC[k]
+		sh.pumpPeak = max(sh.pumpPeak, pc)
+		pcw, pbw, eB, wBh := pc*w, pb*sh.wB, sh.eB, 0.5*a00*sh.wB
+		for i := 0; i < cells; i++ {
+			c0, b0 := cs[i], bs[i]
+			c1 := c0*e + pcw
+			cs[i], bs[i] = c1, b0*eB+pbw+wBh*(c0+c1)
+		}
+		for i := cells; i < n; i++ {
+			cs[i], bs[i] = cs[0], bs[0]
+		}
+		return
+	}
+	for i := 0; i < n; i++ {
+		w, f := sh.delayWhole[i], sh.delayFrac[i]
+		pc := sample(sh.wf.pumpC, k, w, f)
+		pb := sample(sh.wf.pumpB, k, w, f)
+		j := max(0, min(k-w, sh.steps-1))
+		c0, b0 := cs[i], bs[i]
+		c1 := c0*eC[j] + pc*wC[j]
+		cs[i], bs[i] = c1, b0*sh.eB+(pb+a00*0.5*(c0+c1))*sh.wB
+		if i == n/2 {
+			sh.pumpPeak = max(sh.pumpPeak, pc)
+		}
+	}
 }
 
 // summarise computes the figures of merit and, unless light, fills the waveforms.
