@@ -3,8 +3,10 @@ package kinetics
 import "math"
 
 // medium holds the C and B populations of every cell and the forward and backward photon
-// fluxes on the characteristic grid Δz = c·Δt. Fluxes are photon flux densities
-// [photons m⁻² s⁻¹]; fp[i] leaves cell i towards z = L, fm[i] leaves cell i towards z = 0.
+// fluxes on the characteristic grid Δz = c·Δt: fp[i] leaves cell i towards z = L, fm[i]
+// leaves cell i towards z = 0. The fluxes are kept as the fluence of one step over the
+// saturation fluence, x = φ·Δt/J_s (φ the photon flux density [m⁻² s⁻¹]), the variable of
+// the Frantz–Nodvik relation; fluxOf converts back.
 type medium struct {
 	n             int
 	dz, dt        float64
@@ -17,10 +19,11 @@ type medium struct {
 	rRear, rFront float64
 	c, b          []float64 // N_C, N_B [m⁻³]
 	gain          []float64 // small-signal gain factor e^(σ·(N_C − g·N_B)·Δz) of each cell
-	fp, fm        []float64
+	fp, fm        []float64 // x = φ·Δt/J_s of the fluxes leaving each cell
 	fpOld, fmOld  []float64
-	in1, in2      []float64 // scratch of advance: fluxes entering each cell in its two passes
-	half          []float64 // scratch of advance: spontaneous flux added to each direction
+	in1, in2      []float64 // scratch of advance: x entering each cell in its two passes
+	half          []float64 // scratch of advance: x of the spontaneous emission added to each direction
+	da1, da2      []float64 // scratch of advance: a = ln(G′/G) of each cell's two passes
 	ledger        photonLedger
 	inject        float64 // flux entering the forward wave at z = 0 from outside (tests) [m⁻² s⁻¹]
 	// Sum and largest value of N_C − g·N_B over the cells after the last step [m⁻³].
@@ -43,6 +46,7 @@ func newMedium(n int, dz, dt, sigma, g, spontPerC, loss, rRear, rFront float64) 
 		fp: make([]float64, n), fm: make([]float64, n),
 		fpOld: make([]float64, n), fmOld: make([]float64, n),
 		in1: make([]float64, n), in2: make([]float64, n), half: make([]float64, n),
+		da1: make([]float64, n), da2: make([]float64, n),
 	}
 	m.resync()
 	return m
@@ -86,8 +90,15 @@ const tinyFluence = 0x1p-14
 // below tinyFluence, where the expansion is exact to a relative 1e-17.
 func passTiny(x, g float64) (float64, bool) {
 	gx := g * x
-	return (1 - g) * x * (1 - gx*(0.5+x*((1-2*g)*(1.0/6)+x*(1+6*g*(g-1))*(1.0/24)))),
-		x < tinyFluence && gx < tinyFluence
+	if x >= tinyFluence || gx >= tinyFluence {
+		return 0, false
+	}
+	// (1−2G)/6 = 1/6 − G/3 and (1 − 6G + 6G²)/24 = 1/24 − G(1−G)/4; the bracket in Estrin's
+	// form, for a short chain of dependent operations.
+	q := 1 - g
+	qx := q * x
+	p := (0.5 + x*(1.0/6-g*(1.0/3))) + x*x*(1.0/24-0.25*g*q)
+	return qx - qx*gx*p, true
 }
 
 // expNegSeries returns r = 1 − e^(−x) and whether 0 ≤ x ≤ 1/64, where its series to x⁷ is
@@ -106,10 +117,10 @@ func log1pSeries(w float64) (float64, bool) {
 }
 
 // passWide is a Frantz–Nodvik pass at any x = J_in/J_s ≥ 0 and gain factor g > 0: it returns
-// ΔJ = J_out − J_in [m⁻²] and G′.
-func passWide(x, g, js float64) (dj, gNew float64) {
+// a = ln(G′/G) = −ΔJ/J_s and G′.
+func passWide(x, g float64) (a, gNew float64) {
 	w := (g - 1) * -math.Expm1(-x)
-	return js * log1pSmall(w), g / (1 + w)
+	return -log1pSmall(w), g / (1 + w)
 }
 
 // small bounds the arguments for which the series below are exact to rounding.
@@ -173,72 +184,63 @@ func log1pSmall(y float64) float64 {
 func (m *medium) propagate(step int) (front, rear float64) { return m.advance(step, nil, false) }
 
 // pumpStep is the pump and decay of every cell over one optical step, for constant
-// coefficients: C' = C·e[i] + cp[i], B' = B·eB + bp[i] + wBh·(C + C′).
+// coefficients: C' = C·e + cp, B' = B·eB + bp + wBh·(C + C′), with e, cp and bp the same for
+// every cell when uniform, else per cell.
 type pumpStep struct {
-	e, cp, bp []float64 // per cell: e^(−Γ_C Δt), P_C·(1−e^(−Γ_CΔt))/Γ_C [m⁻³], P_B·(1−e^(−Γ_BΔt))/Γ_B [m⁻³]
+	uniform   bool
+	e, cp, bp float64   // e^(−Γ_C Δt), P_C·(1−e^(−Γ_CΔt))/Γ_C [m⁻³], P_B·(1−e^(−Γ_BΔt))/Γ_B [m⁻³]
+	es, cps   []float64 // per cell when not uniform: e and cp
+	bps       []float64 // and bp
 	eB, wBh   float64   // e^(−Γ_B Δt) and ½·A₀₀·(1−e^(−Γ_BΔt))/Γ_B
 }
 
 // advance is one optical step of every cell: with pump non-nil, first the pump and decay of
 // the cell (its gain factor following, or recomputed when resync), then propagate's two
 // passes; it leaves the sum and the largest value of the inversions N_C − g·N_B of the cells
-// in invSum and invMax [m⁻³]. The cells are independent within a step (each pass reads the
-// fluxes of the previous step), so the step is taken in sweeps over all cells: pump and
-// entering fluxes, the first pass, the second pass, the fluxes leaving. Each sweep is short
-// and its cells independent, so the processor overlaps many cells; one sweep doing all of a
-// cell would wait on the long chain pump → pass → pass of every cell in turn.
+// in invSum and invMax [m⁻³].
+//
+// The cells are independent within a step (each pass reads the fluxes of the previous
+// step), so the step is taken in sweeps over all cells: pump and entering fluxes, the first
+// pass, the second pass, populations and the fluxes leaving. Each sweep is short and its
+// cells independent, so the processor overlaps many cells, where one sweep doing all of a
+// cell would wait on the long chain pump → pass → pass of every cell in turn. A pass needs
+// only the gain factor; it records a = ln(G′/G), and the populations take both passes'
+// transitions, N_C −= ΔJ/Δz = −a·J_s/Δz and N_B += ΔJ/Δz, in the last sweep.
 func (m *medium) advance(step int, pump *pumpStep, resync bool) (front, rear float64) {
 	m.fp, m.fpOld = m.fpOld, m.fp
 	m.fm, m.fmOld = m.fmOld, m.fm
 	n := m.n
-	front = (1 - m.rFront) * m.fpOld[n-1]
-	rear = (1 - m.rRear) * m.fmOld[0]
-	spontHalf := 0.5 * m.spont
-	fp, fm, fpOld, fmOld := m.fp[:n], m.fm[:n], m.fpOld[:n], m.fmOld[:n]
-	cs, bs := m.c[:n], m.b[:n]
+	fluxPerX := m.js * m.invDt
+	front = (1 - m.rFront) * m.fpOld[n-1] * fluxPerX
+	rear = (1 - m.rRear) * m.fmOld[0] * fluxPerX
 	in1, in2, halves := m.in1[:n], m.in2[:n], m.half[:n]
 	forwardFirst := step&1 == 0
+	spont := m.enter(pump, resync, forwardFirst)
+	sumA := m.pass(in1, m.da1)
+	sumA += m.pass(in2, m.da2)
 
-	// Pump and decay; the spontaneous emission of each cell, half into each direction; the
-	// fluence entering each cell in its first and its second pass.
-	if pump != nil {
-		m.pump(pump, resync)
-	}
-	var spont float64
-	for i := range cs {
-		var inP, inM float64
-		if i == 0 {
-			inP = m.rRear*fmOld[0] + m.inject
-		} else {
-			inP = fpOld[i-1]
-		}
-		if i == n-1 {
-			inM = m.rFront * fpOld[n-1]
-		} else {
-			inM = fmOld[i+1]
-		}
-		half := spontHalf * cs[i]
-		spont += 4 * half
-		halves[i] = half
-		if forwardFirst {
-			in1[i], in2[i] = inP+half, inM+half
-		} else {
-			in1[i], in2[i] = inM+half, inP+half
-		}
-	}
-	stim := m.pass(in1)
-	stim += m.pass(in2)
-
-	// Rounding only: Frantz–Nodvik never takes more than the inversion holds.
-	loss, g := m.lossFactor, m.g
+	fp, fm := m.fp[:n], m.fm[:n]
+	cs, bs := m.c[:n], m.b[:n]
+	da1, da2 := m.da1[:n], m.da2[:n]
+	loss, g, perA := m.lossFactor, m.g, m.js*m.invDz
 	var lost float64
 	sum, maxInv := 0.0, math.Inf(-1)
 	for i := range cs {
-		c, b := max(cs[i], 0), max(bs[i], 0)
+		d := (da1[i] + da2[i]) * perA
+		c, b := cs[i]+d, bs[i]-d
+		// Rounding only: Frantz–Nodvik never takes more than the inversion holds.
+		if c < 0 {
+			c = 0
+		}
+		if b < 0 {
+			b = 0
+		}
 		cs[i], bs[i] = c, b
 		inv := c - g*b
 		sum += inv
-		maxInv = max(maxInv, inv)
+		if inv > maxInv {
+			maxInv = inv
+		}
 		out1, out2 := in1[i], in2[i]
 		k1, k2 := out1*loss, out2*loss
 		lost += (out1 - k1) + (out2 - k2)
@@ -250,77 +252,118 @@ func (m *medium) advance(step int, pump *pumpStep, resync bool) (front, rear flo
 		}
 	}
 	m.invSum, m.invMax = sum, maxInv
-	dt := m.dt
+	js, dt := m.js, m.dt
 	m.ledger.injected += m.inject * dt
-	m.ledger.spontaneous += spont * dt
-	m.ledger.stimulated += stim
-	m.ledger.lost += lost * dt
+	m.ledger.spontaneous += spont * js
+	m.ledger.stimulated += -sumA * js
+	m.ledger.lost += lost * js
 	m.ledger.front += front * dt
 	m.ledger.rear += rear * dt
 	return front, rear
 }
 
-// pump advances every cell through the pump and decay of one step; each gain factor follows
-// its cell's populations, or is recomputed from them when resync.
-func (m *medium) pump(ps *pumpStep, resync bool) {
+// fluxOf is the photon flux density [m⁻² s⁻¹] of a flux kept as x = φ·Δt/J_s.
+func (m *medium) fluxOf(x float64) float64 { return x * m.js * m.invDt }
+
+// enter is the first sweep of advance: the pump and decay of every cell when ps is non-nil,
+// each gain factor following its cell's populations (or recomputed from them when resync);
+// then the spontaneous flux of each cell, half into each direction, and the fluxes entering
+// each cell in its first and second pass (in1, in2, as x = φ·Δt/J_s). It returns the
+// spontaneous emission added over all cells as x.
+func (m *medium) enter(ps *pumpStep, resync, forwardFirst bool) (spont float64) {
 	n := m.n
 	cs, bs, gf := m.c[:n], m.b[:n], m.gain[:n]
-	pe, pc, pb := ps.e[:n], ps.cp[:n], ps.bp[:n]
-	eB, wBh := ps.eB, ps.wBh
-	sdz, g := m.sigma*m.dz, m.g
-	for i := range cs {
-		c0, b0 := cs[i], bs[i]
-		c := c0*pe[i] + pc[i]
-		b := b0*eB + pb[i] + wBh*(c0+c)
-		cs[i], bs[i] = c, b
-		if resync {
-			gf[i] = math.Exp(sdz * (c - g*b))
-			continue
-		}
-		x := sdz * ((c - c0) - g*(b-b0))
-		if f, ok := expTiny(x); ok {
-			gf[i] *= f
-		} else {
-			gf[i] *= expMedium(x)
+	fpOld, fmOld := m.fpOld[:n], m.fmOld[:n]
+	in1, in2, halves := m.in1[:n], m.in2[:n], m.half[:n]
+	xPerFlux := m.dt * m.invJs
+	spontHalf, inject := 0.5*m.spont*xPerFlux, m.inject*xPerFlux
+	pumped, follow := ps != nil, ps != nil && !resync
+	var uniform bool
+	var e, pc, pb, eB, wBh float64
+	var pes, pcs, pbs []float64
+	if pumped {
+		uniform, e, pc, pb, eB, wBh = ps.uniform, ps.e, ps.cp, ps.bp, ps.eB, ps.wBh
+		if !uniform {
+			pes, pcs, pbs = ps.es[:n], ps.cps[:n], ps.bps[:n]
 		}
 	}
+	sdz, g := m.sigma*m.dz, m.g
+	for i := range cs {
+		c := cs[i]
+		if pumped {
+			if !uniform {
+				e, pc, pb = pes[i], pcs[i], pbs[i]
+			}
+			c0, b0 := c, bs[i]
+			c = c0*e + pc
+			b := b0*eB + pb + wBh*(c0+c)
+			cs[i], bs[i] = c, b
+			if follow {
+				x := sdz * ((c - c0) - g*(b-b0))
+				if f, ok := expTiny(x); ok {
+					gf[i] *= f
+				} else {
+					gf[i] *= expMedium(x)
+				}
+			}
+		}
+		var inP, inM float64
+		if i == 0 {
+			inP = m.rRear*fmOld[0] + inject
+		} else {
+			inP = fpOld[i-1]
+		}
+		if i == n-1 {
+			inM = m.rFront * fpOld[n-1]
+		} else {
+			inM = fmOld[i+1]
+		}
+		half := spontHalf * c
+		spont += 4 * half
+		halves[i] = half
+		if forwardFirst {
+			in1[i], in2[i] = inP+half, inM+half
+		} else {
+			in1[i], in2[i] = inM+half, inP+half
+		}
+	}
+	if pumped && resync {
+		m.resync()
+	}
+	return spont
 }
 
-// pass takes every cell through one Frantz–Nodvik pass: flux[i], the flux entering cell i
-// [m⁻² s⁻¹], is replaced by the flux leaving it, before loss; the transitions are taken from
-// the cell's populations and its gain factor follows. It returns the fluence gained by the
-// beam, summed over the cells [m⁻²].
-func (m *medium) pass(flux []float64) (stim float64) {
+// pass takes every cell through one Frantz–Nodvik pass: xs[i], the x = J_in/J_s entering
+// cell i, is replaced by the x leaving it, J_out/J_s = x − a, before loss; the cell's gain
+// factor G by G′; and da[i] is set to a = ln(G′/G) = −ΔJ/J_s. It returns Σa over the cells.
+func (m *medium) pass(xs, da []float64) (sumA float64) {
 	n := m.n
-	cs, bs, gf, flux := m.c[:n], m.b[:n], m.gain[:n], flux[:n]
-	dt, invDt, invDz := m.dt, m.invDt, m.invDz
-	js, invJs := m.js, m.invJs
-	for i := range cs {
-		jin := flux[i] * dt
-		x := jin * invJs
+	gf, xs, da := m.gain[:n], xs[:n], da[:n]
+	for i := range gf {
+		x := xs[i]
 		gain := gf[i]
-		var dj float64
-		if a, ok := passTiny(x, gain); ok {
-			dj = -a * js
-			gain *= 1 + a*(1+a*(0.5+a*(1.0/6)))
+		var a float64
+		if t, ok := passTiny(x, gain); ok {
+			// G′ = G·e^a to a³.
+			a = t
+			gain += gain * (a + a*a*(0.5+a*(1.0/6)))
 		} else if r, ok := expNegSeries(x); ok {
 			w := (gain - 1) * r
 			if l, ok := log1pSeries(w); ok {
-				dj = js * l
+				a = -l
 				gain /= 1 + w
 			} else {
-				dj, gain = passWide(x, gain, js)
+				a, gain = passWide(x, gain)
 			}
 		} else {
-			dj, gain = passWide(x, gain, js)
+			a, gain = passWide(x, gain)
 		}
-		cs[i] -= dj * invDz
-		bs[i] += dj * invDz
 		gf[i] = gain
-		stim += dj
-		flux[i] = (jin + dj) * invDt
+		da[i] = a
+		sumA += a
+		xs[i] = x - a
 	}
-	return stim
+	return sumA
 }
 
 // inFlight is the number of photons per unit area still travelling in the channel [m⁻²].
@@ -329,5 +372,5 @@ func (m *medium) inFlight() float64 {
 	for i := 0; i < m.n; i++ {
 		s += m.fp[i] + m.fm[i]
 	}
-	return s * m.dt
+	return s * m.js
 }

@@ -134,8 +134,10 @@ func (sh *shot) run(res *Result) {
 	// counts only what is emitted, so it stays exact.
 	lit := false
 	dawn := 1e-3 / (p.CrossSection * sh.d.Channel.Length)
-	pump := &pumpStep{e: make([]float64, n), cp: make([]float64, n), bp: make([]float64, n),
-		eB: sh.eB, wBh: 0.5 * a00 * sh.wB}
+	pump := &pumpStep{uniform: sh.uniform, eB: sh.eB, wBh: 0.5 * a00 * sh.wB}
+	if !sh.uniform {
+		pump.es, pump.cps, pump.bps = make([]float64, n), make([]float64, n), make([]float64, n)
+	}
 	for k := 0; k < sh.steps; k++ {
 		if dark && sh.light {
 			for j := k; j < sh.steps; j++ {
@@ -211,17 +213,14 @@ func (sh *shot) run(res *Result) {
 // fillPump sets the pump and decay factors of every cell for step k: one value for all
 // cells when the discharge is simultaneous, else each cell's delayed sample.
 func (sh *shot) fillPump(ps *pumpStep, k int, eC, wC []float64) {
-	n := sh.d.Numerics.Cells
-	pe, pc, pb := ps.e[:n], ps.cp[:n], ps.bp[:n]
 	if sh.uniform {
 		c, b := sh.wf.pumpC[k], sh.wf.pumpB[k]
 		sh.pumpPeak = max(sh.pumpPeak, c)
-		e, cw, bw := eC[k], c*wC[k], b*sh.wB
-		for i := range pe {
-			pe[i], pc[i], pb[i] = e, cw, bw
-		}
+		ps.e, ps.cp, ps.bp = eC[k], c*wC[k], b*sh.wB
 		return
 	}
+	n := sh.d.Numerics.Cells
+	pe, pc, pb := ps.es[:n], ps.cps[:n], ps.bps[:n]
 	for i := range pe {
 		w, f := sh.delayWhole[i], sh.delayFrac[i]
 		c := sample(sh.wf.pumpC, k, w, f)
