@@ -34,6 +34,7 @@ type circuit struct {
 	density, gap, area float64 // N [m⁻³], d [m], L·w [m²]
 	beta               float64 // recombination [m³/s]
 	table              *swarm.Table
+	rates              *swarmRates // the table's interpolation of the coefficients used here
 
 	// For tests of the circuit alone: when fixed, the plasma is replaced by a constant
 	// conductance [S] and the electron density is frozen.
@@ -63,6 +64,7 @@ func newCircuit(d *Design, table *swarm.Table) *circuit {
 		beta: d.Discharge.Recombination, table: table,
 	}
 	c.lo, c.hi = table.Range()
+	c.rates = newSwarmRates(table)
 	if c.sw.Model == RompeWeizelSwitch {
 		// R(0) = d_g / sqrt((2a/p_g)·q0) = R_off.
 		r := c.sw.Gap / c.sw.OffResistance
@@ -106,28 +108,43 @@ func (c *circuit) switchResistance(t, q float64) float64 {
 // reducedField is |E|/N for a channel voltage vg [V m²].
 func (c *circuit) reducedField(vg float64) float64 { return math.Abs(vg) / (c.gap * c.density) }
 
-// plasmaCurrent is e·n_e·v_d(E/N)·A with the sign of vg [A].
-func (c *circuit) plasmaCurrent(vg, ne float64) (current float64, k swarm.Coefficients) {
-	en := c.reducedField(vg)
+// count counts a lookup of the swarm table at E/N = en outside its rows.
+func (c *circuit) count(en float64) {
 	switch {
 	case en > c.hi:
 		c.above++
 	case en < c.lo:
 		c.below++
 	}
-	k = c.table.At(en)
-	return math.Copysign(units.ElementaryCharge*ne*k.DriftVelocity*c.area, vg), k
+}
+
+// plasmaCurrent is e·n_e·v_d(E/N)·A with the sign of vg [A], and the net ionisation rate
+// coefficient k_ion − k_att [m³/s].
+func (c *circuit) plasmaCurrent(vg, ne float64) (current, net float64) {
+	en := c.reducedField(vg)
+	c.count(en)
+	var k [nRates]float64
+	c.rates.at(en, rateDrift, rateAtt+1, &k, nil)
+	return math.Copysign(units.ElementaryCharge*ne*k[rateDrift]*c.area, vg), k[rateIon] - k[rateAtt]
+}
+
+// pumpRates are the rate coefficients for X → B³Πg and X → C³Πu [m³/s] at channel voltage vg.
+func (c *circuit) pumpRates(vg float64) (kB, kC float64) {
+	en := c.reducedField(vg)
+	c.count(en)
+	var k [nRates]float64
+	c.rates.at(en, rateExcB, nRates, &k, nil)
+	return k[rateExcB], k[rateExcC]
 }
 
 // Eval implements ode.System.
 func (c *circuit) Eval(t float64, y, dy []float64) error {
-	var ip float64
-	var k swarm.Coefficients
+	var ip, net float64
 	ne := math.Exp(y[iLnNe])
 	if c.fixed {
 		ip = c.conductance * y[iVg]
 	} else {
-		ip, k = c.plasmaCurrent(y[iVg], ne)
+		ip, net = c.plasmaCurrent(y[iVg], ne)
 	}
 	rs := c.switchResistance(t, y[iQ])
 	v1, v2, is, ic, vg := y[iV1], y[iV2], y[iIs], y[iIc], y[iVg]
@@ -169,7 +186,7 @@ func (c *circuit) Eval(t float64, y, dy []float64) error {
 	dy[iVg] = (ic - ip) / c.cg
 	dy[iLnNe] = 0
 	if !c.fixed {
-		dy[iLnNe] = (k.Ionisation-k.Attachment)*c.density - c.beta*ne
+		dy[iLnNe] = net*c.density - c.beta*ne
 	}
 	dy[iQ] = is * is
 	dy[iESwitch] = rs * is * is

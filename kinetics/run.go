@@ -188,13 +188,13 @@ func solveCircuit(c *circuit, d *Design, par *Parameters, steps int) (*waveforms
 				return nil, Stats{}, fmt.Errorf("kinetics: circuit: %w", err)
 			}
 			ne := math.Exp(y[iLnNe])
-			_, co := c.plasmaCurrent(y[iVg], ne)
+			kB, kC := c.pumpRates(y[iVg])
 			w.voltage[k] = y[iVg]
 			w.current[k] = y[iIc]
 			w.field[k] = c.reducedField(y[iVg])
 			w.density[k] = ne
-			w.pumpC[k] = co.ExciteC * ne * shareC
-			w.pumpB[k] = co.ExciteB * ne * shareB
+			w.pumpC[k] = kC * ne * shareC
+			w.pumpB[k] = kB * ne * shareB
 			w.peakField = math.Max(w.peakField, w.field[k])
 			w.peakCurrent = math.Max(w.peakCurrent, math.Abs(y[iIc]))
 			w.peakDensity = math.Max(w.peakDensity, ne)
