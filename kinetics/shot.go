@@ -104,8 +104,8 @@ func (sh *shot) run(res *Result) {
 	wC := make([]float64, sh.steps)
 	for k := range eC {
 		g := gamma0 + kE*sh.wf.density[k]
-		eC[k] = math.Exp(-g * dt)
-		wC[k] = -math.Expm1(-g*dt) / g
+		em1 := math.Expm1(-g * dt)
+		eC[k], wC[k] = 1+em1, -em1/g
 	}
 	// The pump still to come bounds how much inversion can reappear: with the upper level
 	// decaying at least as fast as the lower one, a cell can regain at most
@@ -156,12 +156,24 @@ func (sh *shot) run(res *Result) {
 			sh.powerRear[k] = hv * rear
 			sum, maxInv = m.invSum, m.invMax
 		} else {
+			// Before dawn a simultaneous discharge keeps every cell alike: cell 0 stands for
+			// all of them until dawn.
+			one := sh.uniform && !lit
 			sh.pumpOnly(k, eC, wC, lit)
 			if !lit {
-				for i := 0; i < n; i++ {
+				cells := n
+				if one {
+					cells = 1
+				}
+				for i := 0; i < cells; i++ {
 					if m.c[i]-m.g*m.b[i] > dawn {
 						lit = true
 						break
+					}
+				}
+				if lit && one {
+					for i := 1; i < n; i++ {
+						m.c[i], m.b[i] = m.c[0], m.b[0]
 					}
 				}
 			}
@@ -174,11 +186,18 @@ func (sh *shot) run(res *Result) {
 				sh.powerFront[k] = hv * front
 				sh.powerRear[k] = hv * rear
 			}
-			sum, maxInv = 0.0, math.Inf(-1)
-			for i := 0; i < n; i++ {
-				inv := m.c[i] - m.g*m.b[i]
-				sum += inv
-				maxInv = max(maxInv, inv)
+			if lit || !one {
+				sum, maxInv = 0.0, math.Inf(-1)
+				for i := 0; i < n; i++ {
+					inv := m.c[i] - m.g*m.b[i]
+					sum += inv
+					if inv > maxInv {
+						maxInv = inv
+					}
+				}
+			} else {
+				maxInv = m.c[0] - m.g*m.b[0]
+				sum = maxInv * float64(n)
 			}
 		}
 		if canGoDark && lit && !dark && maxInv+invLeft[max(0, k-maxDelay)] < darkInversion {
@@ -193,8 +212,12 @@ func (sh *shot) run(res *Result) {
 		}
 		g := p.CrossSection * sum / float64(n)
 		sh.meanGain[k] = g
-		sh.midC[k], sh.midB[k] = m.c[mid], m.b[mid]
-		gm := p.CrossSection * (m.c[mid] - m.g*m.b[mid])
+		at := mid // the cell whose populations are recorded
+		if sh.uniform && !lit {
+			at = 0
+		}
+		sh.midC[k], sh.midB[k] = m.c[at], m.b[at]
+		gm := p.CrossSection * (m.c[at] - m.g*m.b[at])
 		if gm > sh.peakGain {
 			sh.peakGain = gm
 		}
@@ -202,7 +225,11 @@ func (sh *shot) run(res *Result) {
 		if !sh.light && k%colEvery == 0 {
 			res.GainTime = append(res.GainTime, (float64(k)+1)*dt)
 			for i := 0; i < n; i++ {
-				res.Gain[i] = append(res.Gain[i], p.CrossSection*(m.c[i]-m.g*m.b[i]))
+				j := i
+				if sh.uniform && !lit {
+					j = 0
+				}
+				res.Gain[i] = append(res.Gain[i], p.CrossSection*(m.c[j]-m.g*m.b[j]))
 			}
 		}
 	}
@@ -234,7 +261,7 @@ func (sh *shot) fillPump(ps *pumpStep, k int, eC, wC []float64) {
 
 // pumpOnly advances the populations of every cell through the pump and decay of step k
 // while the optics do not run (before dawn and after dark); before dawn a simultaneous
-// discharge keeps every cell alike, so one cell is stepped and copied.
+// discharge keeps every cell alike, so only cell 0 is stepped (shot.run copies it at dawn).
 func (sh *shot) pumpOnly(k int, eC, wC []float64, lit bool) {
 	n, m, a00 := sh.d.Numerics.Cells, sh.med, sh.p.EinsteinA00
 	cs, bs := m.c[:n], m.b[:n]
@@ -250,9 +277,6 @@ func (sh *shot) pumpOnly(k int, eC, wC []float64, lit bool) {
 			c0, b0 := cs[i], bs[i]
 			c1 := c0*e + pcw
 			cs[i], bs[i] = c1, b0*eB+pbw+wBh*(c0+c1)
-		}
-		for i := cells; i < n; i++ {
-			cs[i], bs[i] = cs[0], bs[0]
 		}
 		return
 	}
