@@ -117,10 +117,39 @@ func log1pSeries(w float64) (float64, bool) {
 }
 
 // passWide is a Frantz–Nodvik pass at any x = J_in/J_s ≥ 0 and gain factor g > 0: it returns
-// a = ln(G′/G) = −ΔJ/J_s and G′.
+// a = ln(G′/G) = −ΔJ/J_s and G′. Up to x = 1/8 and |w| = 1/16 (saturating passes through a
+// short cell) it uses longer series, beyond them the library functions.
 func passWide(x, g float64) (a, gNew float64) {
-	w := (g - 1) * -math.Expm1(-x)
-	return -log1pSmall(w), g / (1 + w)
+	var r float64
+	if x >= 0 && x <= 1.0/8 {
+		r = expNegSeriesWide(x)
+	} else {
+		r = -math.Expm1(-x)
+	}
+	w := (g - 1) * r
+	var l float64
+	if w <= 1.0/16 && w >= -1.0/16 {
+		l = log1pSeriesWide(w)
+	} else {
+		l = math.Log1p(w)
+	}
+	return -l, g / (1 + w)
+}
+
+// expNegSeriesWide is 1 − e^(−x) for 0 ≤ x ≤ 1/8 by its series to x¹¹ (truncation x¹¹/12!
+// relative, below 3e-19).
+func expNegSeriesWide(x float64) float64 {
+	const c2, c3, c4, c5, c6 = -1.0 / 2, 1.0 / 6, -1.0 / 24, 1.0 / 120, -1.0 / 720
+	const c7, c8, c9, c10, c11 = 1.0 / 5040, -1.0 / 40320, 1.0 / 362880, -1.0 / 3628800, 1.0 / 39916800
+	return x * (1 + x*(c2+x*(c3+x*(c4+x*(c5+x*(c6+x*(c7+x*(c8+x*(c9+x*(c10+x*c11))))))))))
+}
+
+// log1pSeriesWide is ln(1+w) for |w| ≤ 1/16 as 2·atanh(s), s = w/(2+w), |s| ≤ 1/31, by the
+// series to s¹¹ (truncation s¹²/13 relative, below 1e-19).
+func log1pSeriesWide(w float64) float64 {
+	s := w / (2 + w)
+	s2 := s * s
+	return 2 * s * (1 + s2*(1.0/3+s2*(1.0/5+s2*(1.0/7+s2*(1.0/9+s2*(1.0/11))))))
 }
 
 // small bounds the arguments for which the series below are exact to rounding.

@@ -34,6 +34,19 @@ func TestPassSeries(t *testing.T) {
 			t.Errorf("log1pSeries claims %g is in range", w)
 		}
 	}
+	// The longer series of passWide, up to x = 1/8 and |w| = 1/16.
+	for _, x := range []float64{0, 1e-300, 1e-6, 1.0 / 64, 0.03, 0.07, 0.1, 1.0 / 8} {
+		if got, want := expNegSeriesWide(x), -math.Expm1(-x); math.Abs(got-want) > 4e-16*want {
+			t.Errorf("expNegSeriesWide(%g) = %.17g, want %.17g", x, got, want)
+		}
+	}
+	for _, w := range []float64{0, 1e-300, 1e-6, 1.0 / 64, 0.03, 0.05, 1.0 / 16} {
+		for _, s := range []float64{1, -1} {
+			if got, want := log1pSeriesWide(s*w), math.Log1p(s*w); math.Abs(got-want) > 4e-16*math.Abs(want) {
+				t.Errorf("log1pSeriesWide(%g) = %.17g, want %.17g", s*w, got, want)
+			}
+		}
+	}
 }
 
 // passReference is a Frantz–Nodvik pass (Frantz & Nodvik, J. Appl. Phys. 34, 2346 (1963)) by
@@ -75,8 +88,8 @@ func TestPassTiny(t *testing.T) {
 // taken from the populations are the photons gained.
 func TestPassCell(t *testing.T) {
 	const sigma, g, dz = 1.4e-19, 0.83, 1e-3
-	for _, gain := range []float64{0.2, 0.97, 1, 1.0004, 1.1, 1.3, 3, 40} {
-		for _, x := range []float64{0, 1e-12, 1e-7, 5e-5, 2e-4, 0.005, 0.015, 0.05, 1, 30} {
+	for _, gain := range []float64{0.2, 0.5, 0.97, 1, 1.0004, 1.1, 1.3, 1.5, 3, 40} {
+		for _, x := range []float64{0, 1e-12, 1e-7, 5e-5, 2e-4, 0.005, 0.015, 0.05, 0.1, 0.125, 0.13, 1, 30} {
 			m := newMedium(1, dz, dz/299792458.0, sigma, g, 0, 0, 0, 0)
 			// Populations that give this gain factor: N_C − g·N_B = ln G/(σΔz).
 			inv := math.Log(gain) / (sigma * dz)
