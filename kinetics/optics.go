@@ -155,15 +155,6 @@ func log1pSeriesWide(w float64) float64 {
 // small bounds the arguments for which the series below are exact to rounding.
 const small = 1.0 / 64
 
-// expSmall is e^x: 1 + x + x²/2 for |x| < 2⁻¹⁸ (truncation below 1e-16), short enough for
-// the compiler to inline; else expMedium.
-func expSmall(x float64) float64 {
-	if x2 := x * x; x2 < 0x1p-36 {
-		return 1 + x + 0.5*x2
-	}
-	return expMedium(x)
-}
-
 // expTiny returns 1 + x + x²/2 + x³/6 and whether |x| < 2⁻¹⁰, where that series is e^x to a
 // relative 5e-14. It is the inlined exponential of the gain-factor updates in the hot loop;
 // those factors are recomputed exactly every 64 steps, so such errors cannot build up.
@@ -179,30 +170,6 @@ func expMedium(x float64) float64 {
 	}
 	const c2, c3, c4, c5, c6 = 1.0 / 2, 1.0 / 6, 1.0 / 24, 1.0 / 120, 1.0 / 720
 	return 1 + x*(1+x*(c2+x*(c3+x*(c4+x*(c5+x*c6)))))
-}
-
-// expm1Small is e^x − 1; for 0 ≤ x ≤ 1/64 a Taylor series to x⁷.
-func expm1Small(x float64) float64 {
-	if x > small || x < 0 {
-		return math.Expm1(x)
-	}
-	const c2, c3, c4, c5, c6, c7 = 1.0 / 2, 1.0 / 6, 1.0 / 24, 1.0 / 120, 1.0 / 720, 1.0 / 5040
-	if x < 0x1p-13 { // to x⁵: truncation x⁵/720 below 1e-21 of the result
-		return x * (1 + x*(c2+x*(c3+x*(c4+x*c5))))
-	}
-	return x * (1 + x*(c2+x*(c3+x*(c4+x*(c5+x*(c6+x*c7))))))
-}
-
-// log1pSmall is ln(1+y); for 0 ≤ y ≤ 1/64 a Taylor series to y⁹.
-func log1pSmall(y float64) float64 {
-	if y > small || y < 0 {
-		return math.Log1p(y)
-	}
-	const c2, c3, c4, c5, c6, c7, c8, c9 = -1.0 / 2, 1.0 / 3, -1.0 / 4, 1.0 / 5, -1.0 / 6, 1.0 / 7, -1.0 / 8, 1.0 / 9
-	if y < 0x1p-13 { // to y⁵: truncation y⁵/6 below 1e-20 of the result
-		return y * (1 + y*(c2+y*(c3+y*(c4+y*c5))))
-	}
-	return y * (1 + y*(c2+y*(c3+y*(c4+y*(c5+y*(c6+y*(c7+y*(c8+y*c9))))))))
 }
 
 // propagate moves both waves one cell, applying spontaneous emission, gain and loss in every
