@@ -303,9 +303,8 @@ func TestSettingsValidation(t *testing.T) {
 	}
 }
 
-// TestNoAllocationPerStep checks the hot path: after Init, AdvanceTo allocates nothing of its
-// own. The one exception is inside gonum's mat.LU.Factorize, whose condition estimate takes
-// its workspace from a sync.Pool (3 small allocations per factorisation in gonum v0.17).
+// TestNoAllocationPerStep checks the hot path: after Init, AdvanceTo allocates nothing (the
+// iteration matrix is factorised in place through LAPACK).
 func TestNoAllocationPerStep(t *testing.T) {
 	for _, ic := range integrators {
 		for _, sys := range []ode.System{odetest.RobertsonSystem{}, hiddenJac{odetest.RobertsonSystem{}}} {
@@ -328,7 +327,7 @@ func TestNoAllocationPerStep(t *testing.T) {
 				}
 			})
 			perLU := float64(in.Stats().Factorizations-lu0) / (runs + 1)
-			if allocs > 3*perLU {
+			if allocs > 0 {
 				t.Errorf("%s %T: %v allocations per AdvanceTo, %.2f factorisations", ic.name, sys, allocs, perLU)
 			}
 		}

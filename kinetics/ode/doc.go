@@ -14,7 +14,8 @@
 //
 //     with y₁ = y + Σ m_i·U_i (the implementation form of Hairer & Wanner, Sect. IV.7).
 //     The Jacobian J comes from the system when it implements Jacobian, otherwise from
-//     column-wise forward differences; the iteration matrix is factorised with gonum/mat LU.
+//     column-wise forward differences; the iteration matrix is factorised in place by
+//     LAPACK's Getrf (gonum's lapack64), with no allocation per step.
 //
 //   - DormandPrince: the explicit Runge–Kutta pair 5(4) of Dormand & Prince (J. Comput. Appl.
 //     Math. 6, 19–26, 1980) with first-same-as-last, for non-stiff problems.

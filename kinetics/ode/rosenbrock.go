@@ -5,6 +5,9 @@ import (
 	"fmt"
 	"math"
 
+	"gonum.org/v1/gonum/blas"
+	"gonum.org/v1/gonum/blas/blas64"
+	"gonum.org/v1/gonum/lapack/lapack64"
 	"gonum.org/v1/gonum/mat"
 )
 
@@ -15,12 +18,10 @@ type Rosenbrock struct {
 	tab *RosenbrockTableau
 
 	jac, w    *mat.Dense
-	lu        mat.LU
+	ipiv      []int     // row pivots of the LU factors of w (LAPACK Getrf, in place)
 	ft        []float64 // ∂f/∂t at the step start
 	u         [][]float64
-	uv        []*mat.VecDense
 	rhs, ytmp []float64
-	rhsv      *mat.VecDense
 	jacValid  bool
 	yScale    []float64 // largest |y_j| seen, the scale of difference increments
 }
@@ -47,13 +48,11 @@ func (r *Rosenbrock) Init(sys System, t0 float64, y0 []float64, s *Settings) err
 	if r.jac == nil || r.jac.RawMatrix().Rows != n {
 		r.jac, r.w = mat.NewDense(n, n, nil), mat.NewDense(n, n, nil)
 		r.rhs, r.ytmp, r.ft = make([]float64, n), make([]float64, n), make([]float64, n)
-		r.rhsv = mat.NewVecDense(n, r.rhs)
-		r.u, r.uv = nil, nil
+		r.ipiv = make([]int, n)
+		r.u = nil
 	}
 	for len(r.u) < r.tab.Stages() {
-		u := make([]float64, n)
-		r.u = append(r.u, u)
-		r.uv = append(r.uv, mat.NewVecDense(n, u))
+		r.u = append(r.u, make([]float64, n))
 	}
 	r.yScale = resize(r.yScale, n)
 	for i, v := range y0 {
@@ -106,7 +105,12 @@ func (r *Rosenbrock) try(h float64) (float64, error) {
 		}
 		wr.Data[i*wr.Stride+i] += fac
 	}
-	r.lu.Factorize(r.w)
+	// LU factors in place through LAPACK directly: mat.LU would also estimate the condition
+	// number at every factorisation, a cost this small system feels on every step.
+	if !lapack64.Getrf(wr, r.ipiv) {
+		r.stats.Factorizations++
+		return 0, errSingular
+	}
 	r.stats.Factorizations++
 	for s := range tb.Stages() {
 		if s == 0 {
@@ -130,12 +134,8 @@ func (r *Rosenbrock) try(h float64) (float64, error) {
 		if g := tb.GammaSum[s]; g != 0 {
 			axpy(h*g, r.ft, r.rhs)
 		}
-		if err := r.lu.SolveVecTo(r.uv[s], false, r.rhsv); err != nil {
-			var c mat.Condition
-			if !errors.As(err, &c) || math.IsInf(float64(c), 1) {
-				return 0, errSingular
-			}
-		}
+		copy(r.u[s], r.rhs)
+		lapack64.Getrs(blas.NoTrans, wr, blas64.General{Rows: n, Cols: 1, Stride: 1, Data: r.u[s]}, r.ipiv)
 	}
 	copy(r.yNew, r.y)
 	for i := range r.ytmp {
