@@ -205,8 +205,14 @@ func (sh *shot) run(res *Result) {
 			for _, c := range m.c {
 				sumC += c
 			}
-			// Spontaneous photons per area still to come, both directions, amplified ≤ 10 %.
-			future := 1.1 * 2 * m.spont * (sumC + float64(n)*pumpLeft[max(0, k-maxDelay)]) / gamma0
+			// Spontaneous photons per area still to come, both directions, amplified ≤ 10 %,
+			// A channel that absorbs lets out only what is emitted within 1/|g| of its ends:
+			// at most a fraction 1/(|g|·L) of it, with g the least absorbing cell's gain.
+			amp := 1.1
+			if gl := p.CrossSection * (maxInv + invLeft[max(0, k-maxDelay)]) * sh.d.Channel.Length; gl < -1 {
+				amp = -1 / gl
+			}
+			future := amp * 2 * m.spont * (sumC + float64(n)*pumpLeft[max(0, k-maxDelay)]) / gamma0
 			out := m.ledger.front + m.ledger.rear
 			dark = out > 0 && m.inFlight()+future < 1e-6*out
 		}
