@@ -108,3 +108,19 @@ func TestRunWarnsWhenCutShort(t *testing.T) {
 		t.Errorf("warnings on the full example: %v", full.Warnings)
 	}
 }
+
+// TestApertureSolidAngle: the on-axis solid angle of a disc, 2π(1 − L/√(L²+r²)) (textbook
+// geometry), tends to A/L² far away and to 2π close up.
+func TestApertureSolidAngle(t *testing.T) {
+	a := 4.5e-6
+	if got, want := apertureSolidAngle(a, 0.2), a/0.04; math.Abs(got/want-1) > 1e-4 {
+		t.Errorf("long channel: %g sr, want A/L² = %g sr", got, want)
+	}
+	if got := apertureSolidAngle(a, 1e-7); math.Abs(got-2*math.Pi) > 1e-3 {
+		t.Errorf("short channel: %g sr, want 2π", got)
+	}
+	r := math.Sqrt(a / math.Pi)
+	if got, want := apertureSolidAngle(a, r), 2*math.Pi*(1-1/math.Sqrt2); math.Abs(got-want) > 1e-12 {
+		t.Errorf("L = r: %g sr, want %g", got, want)
+	}
+}

@@ -32,7 +32,7 @@ type shot struct {
 
 func newShot(d *Design, p *Parameters, wf *waveforms, steps int, s *RunSettings) *shot {
 	n := d.Numerics.Cells
-	omega := p.OpticalArea / (d.Channel.Length * d.Channel.Length)
+	omega := apertureSolidAngle(p.OpticalArea, d.Channel.Length)
 	spontPerC := p.EinsteinA00 * omega / (4 * math.Pi)
 	sh := &shot{
 		d: d, p: p, wf: wf, steps: steps, light: s.Light,
@@ -483,4 +483,12 @@ func (sh *shot) unfinished() bool {
 	pk, _ := peak(sh.powerFront)
 	gp, _ := peak(sh.meanGain)
 	return (pk > 0 && sh.powerFront[last] > 0.1*pk) || (gp > 0 && sh.meanGain[last] > 0.1*gp)
+}
+
+// apertureSolidAngle is the solid angle [sr] of the channel's cross-section seen from its far
+// end: a disc of the same area A at distance L, 2π·(1 − L/sqrt(L² + A/π)). It is A/L² for a
+// long, thin channel and tends to 2π (a hemisphere) for a channel shorter than it is wide.
+func apertureSolidAngle(area, length float64) float64 {
+	r2 := area / math.Pi
+	return 2 * math.Pi * (1 - length/math.Sqrt(length*length+r2))
 }
