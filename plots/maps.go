@@ -6,6 +6,7 @@ import (
 	"math"
 	"path/filepath"
 	"strconv"
+	"strings"
 
 	"gonum.org/v1/plot"
 	"gonum.org/v1/plot/palette"
@@ -15,6 +16,7 @@ import (
 	"gonum.org/v1/plot/vg/draw"
 
 	"n2pulse/kinetics/study"
+	"n2pulse/units"
 )
 
 // DefaultMapMetrics are the figures of merit drawn when a sweep names none.
@@ -311,7 +313,9 @@ func sweepMap(t *study.Table, axes []study.Axis, metric string, col int, base st
 	}
 	cmap := moreland.Kindlmann()
 	cmap.SetMin(lo)
-	cmap.SetMax(hi)
+	// The palette ends in white, the page colour: stop the data short of it so the best cell
+	// still reads as a colour.
+	cmap.SetMax(hi + 0.12*(hi-lo))
 
 	p := plot.New()
 	p.Title.Text = metric
@@ -341,8 +345,9 @@ func sweepMap(t *study.Table, axes []study.Axis, metric string, col int, base st
 		if err := markOptimum(p, g.x[c], g.y[r], ""); err != nil {
 			return nil, err
 		}
-		p.Title.Text = fmt.Sprintf("%s (%s %s at %s, %s)", metric, word, t.Rows[b][col],
-			strconv.FormatFloat(axes[0].Values()[c], 'g', 4, 64), strconv.FormatFloat(axes[1].Values()[r], 'g', 4, 64))
+		v, _ := strconv.ParseFloat(t.Rows[b][col], 64)
+		p.Title.Text = fmt.Sprintf("%s (%s %s at %s, %s)", metric, word, quantity(v, metricUnit(metric)),
+			quantity(axes[0].Values()[c], axes[0].Unit), quantity(axes[1].Values()[r], axes[1].Unit))
 	}
 
 	bar := plot.New()
@@ -350,6 +355,9 @@ func sweepMap(t *study.Table, axes []study.Axis, metric string, col int, base st
 	bar.HideX()
 	bar.X.Padding = 0
 	bar.Title.Text = " "
+	if u := metricUnit(metric); u != "" {
+		bar.Title.Text = "[" + u + "]"
+	}
 	printStyle(bar)
 	w, ht := 18*vg.Centimeter, 13*vg.Centimeter
 	return studySave(base, w, ht, func(c draw.Canvas) {
@@ -375,4 +383,28 @@ func studySave(base string, w, h vg.Length, render func(c draw.Canvas)) ([]strin
 		}
 	}
 	return files, nil
+}
+
+// metricUnit is the SI unit a summary metric's name ends with ("energy_total_J" → "J"), or ""
+// for a dimensionless one.
+func metricUnit(metric string) string {
+	for _, u := range []struct{ suffix, unit string }{
+		{"_J", "J"}, {"_W", "W"}, {"_s", "s"}, {"_per_m", "m⁻¹"}, {"_Td", "Td"}, {"_A", "A"}, {"_m3", "m⁻³"},
+	} {
+		if strings.HasSuffix(metric, u.suffix) {
+			return u.unit
+		}
+	}
+	return ""
+}
+
+// quantity writes v with an SI prefix for the units that take one ("671 µJ", "101 kPa").
+func quantity(v float64, unit string) string {
+	switch unit {
+	case "J", "W", "s", "Pa", "V", "A", "F", "H", "m", "Ω":
+		return units.Format(v, unit)
+	case "":
+		return strconv.FormatFloat(v, 'g', 3, 64)
+	}
+	return strconv.FormatFloat(v, 'g', 3, 64) + " " + unit
 }
