@@ -3,6 +3,7 @@ package kinetics
 import (
 	"fmt"
 	"math"
+	"slices"
 	"sort"
 	"strconv"
 	"strings"
@@ -16,6 +17,7 @@ import (
 type buildField struct {
 	key      string
 	dim      units.Dimension
+	unit     string // SI unit shown in sweep headers ("" for a pure number or text)
 	num      func(s *build.Spec) *float64
 	str      func(s *build.Spec) *string
 	choices  func() []string
@@ -24,20 +26,20 @@ type buildField struct {
 }
 
 var buildFields = []buildField{
-	{key: "build.switch_plate_length", dim: units.Length, num: func(s *build.Spec) *float64 { return &s.SwitchPlateLength }, min: 1e-3, max: 10, help: "switch-side capacitor plate, along the current away from the switch edge"},
-	{key: "build.switch_plate_width", dim: units.Length, num: func(s *build.Spec) *float64 { return &s.SwitchPlateWidth }, min: 1e-3, max: 10, help: "switch-side capacitor plate, along the switch edge"},
-	{key: "build.channel_plate_length", dim: units.Length, num: func(s *build.Spec) *float64 { return &s.ChannelPlateLength }, min: 1e-3, max: 10, help: "channel-side capacitor plate, along the current away from the rails"},
-	{key: "build.channel_plate_width", dim: units.Length, num: func(s *build.Spec) *float64 { return &s.ChannelPlateWidth }, min: 1e-3, max: 10, help: "channel-side capacitor plate, along the rails"},
+	{key: "build.switch_plate_length", dim: units.Length, unit: "m", num: func(s *build.Spec) *float64 { return &s.SwitchPlateLength }, min: 1e-3, max: 10, help: "switch-side capacitor plate, along the current away from the switch edge"},
+	{key: "build.switch_plate_width", dim: units.Length, unit: "m", num: func(s *build.Spec) *float64 { return &s.SwitchPlateWidth }, min: 1e-3, max: 10, help: "switch-side capacitor plate, along the switch edge"},
+	{key: "build.channel_plate_length", dim: units.Length, unit: "m", num: func(s *build.Spec) *float64 { return &s.ChannelPlateLength }, min: 1e-3, max: 10, help: "channel-side capacitor plate, along the current away from the rails"},
+	{key: "build.channel_plate_width", dim: units.Length, unit: "m", num: func(s *build.Spec) *float64 { return &s.ChannelPlateWidth }, min: 1e-3, max: 10, help: "channel-side capacitor plate, along the rails"},
 	{key: "build.dielectric", str: func(s *build.Spec) *string { return &s.Dielectric }, choices: build.DielectricKeys, help: "dielectric preset between the plates"},
-	{key: "build.dielectric_thickness", dim: units.Length, num: func(s *build.Spec) *float64 { return &s.DielectricThickness }, min: 1e-6, max: 0.05, help: "dielectric thickness between the plates"},
+	{key: "build.dielectric_thickness", dim: units.Length, unit: "m", num: func(s *build.Spec) *float64 { return &s.DielectricThickness }, min: 1e-6, max: 0.05, help: "dielectric thickness between the plates"},
 	{key: "build.permittivity", dim: units.Dimensionless, num: func(s *build.Spec) *float64 { return &s.Permittivity }, min: 1, max: 1e4, help: "relative permittivity (overrides the preset)"},
-	{key: "build.dielectric_strength", dim: units.ElectricField, num: func(s *build.Spec) *float64 { return &s.DielectricStrength }, min: 1e5, max: 1e10, help: "short-time dielectric strength (overrides the preset)"},
+	{key: "build.dielectric_strength", dim: units.ElectricField, unit: "V/m", num: func(s *build.Spec) *float64 { return &s.DielectricStrength }, min: 1e5, max: 1e10, help: "short-time dielectric strength (overrides the preset)"},
 	{key: "build.fringe_correction", str: func(s *build.Spec) *string { return (*string)(&s.Fringe) }, choices: func() []string { return []string{string(build.NoFringe), string(build.Palmer)} }, help: "edge-field correction of the plate capacitance: \"none\" or \"palmer\" (true means palmer)"},
-	{key: "build.rail_length", dim: units.Length, num: func(s *build.Spec) *float64 { return &s.RailLength }, min: 1e-3, max: 10, help: "electrode rail length (default: channel.length)"},
-	{key: "build.rail_height", dim: units.Length, num: func(s *build.Spec) *float64 { return &s.RailHeight }, min: 0, max: 0.5, help: "rail height from the plate to the discharge"},
-	{key: "build.rail_gap", dim: units.Length, num: func(s *build.Spec) *float64 { return &s.RailGap }, min: 1e-4, max: 0.2, help: "rail separation (default: channel.gap)"},
-	{key: "build.switch_gap", dim: units.Length, num: func(s *build.Spec) *float64 { return &s.SwitchGap }, min: 1e-5, max: 0.1, help: "spark-gap length (also sets switch.gap)"},
-	{key: "build.switch_own_inductance", dim: units.Inductance, num: func(s *build.Spec) *float64 { return &s.SwitchOwnInductance }, min: 0, max: 1e-5, help: "inductance of the spark channel and its leads, added to the switch loop"},
+	{key: "build.rail_length", dim: units.Length, unit: "m", num: func(s *build.Spec) *float64 { return &s.RailLength }, min: 1e-3, max: 10, help: "electrode rail length (default: channel.length)"},
+	{key: "build.rail_height", dim: units.Length, unit: "m", num: func(s *build.Spec) *float64 { return &s.RailHeight }, min: 0, max: 0.5, help: "rail height from the plate to the discharge"},
+	{key: "build.rail_gap", dim: units.Length, unit: "m", num: func(s *build.Spec) *float64 { return &s.RailGap }, min: 1e-4, max: 0.2, help: "rail separation (default: channel.gap)"},
+	{key: "build.switch_gap", dim: units.Length, unit: "m", num: func(s *build.Spec) *float64 { return &s.SwitchGap }, min: 1e-5, max: 0.1, help: "spark-gap length (also sets switch.gap)"},
+	{key: "build.switch_own_inductance", dim: units.Inductance, unit: "H", num: func(s *build.Spec) *float64 { return &s.SwitchOwnInductance }, min: 0, max: 1e-5, help: "inductance of the spark channel and its leads, added to the switch loop"},
 	{key: "build.switch_gas", str: func(s *build.Spec) *string { return &s.SwitchGas }, choices: func() []string { return []string{"air", "nitrogen"} }, help: "gas in the spark gap"},
 	{key: "build.secondary_emission", dim: units.Dimensionless, num: func(s *build.Spec) *float64 { return &s.SecondaryEmission }, min: 1e-6, max: 0.9, help: "secondary-emission coefficient γ of the channel cathode (default: copper)"},
 }
@@ -62,14 +64,17 @@ func BuildKeyHelp(key string) (string, bool) {
 	return "", false
 }
 
-// setBuild assigns one decoded TOML value of the [build] section.
-func setBuild(s *build.Spec, key string, v any) error {
-	var f *buildField
+var buildIndex = func() map[string]*buildField {
+	m := make(map[string]*buildField, len(buildFields))
 	for i := range buildFields {
-		if buildFields[i].key == key {
-			f = &buildFields[i]
-		}
+		m[buildFields[i].key] = &buildFields[i]
 	}
+	return m
+}()
+
+// setBuild assigns one decoded TOML value of the [build] section (or the text of Set).
+func setBuild(s *build.Spec, key string, v any) error {
+	f := buildIndex[key]
 	if f == nil {
 		best, bestD := "", 1<<30
 		for _, g := range buildFields {
@@ -128,10 +133,10 @@ func setBuild(s *build.Spec, key string, v any) error {
 
 // Built is a design read together with its [build] section.
 type Built struct {
-	Design  *Design
-	Spec    build.Spec   // the [build] section as given, in SI
+	Design  *Design      // the design; its Build and Derived are those of the file too
+	Spec    build.Spec   // the [build] section as given, in SI (a copy of Design.Build)
 	Bench   *build.Bench // derived circuit values, stresses and warnings
-	Derived []string     // design keys whose values came from the build, not the file
+	Derived []string     // design keys whose values came from the build, not the file (as Design.Derived)
 }
 
 // ParseBuiltDesign decodes a TOML design that may describe the laser as built: a [build]
@@ -170,11 +175,13 @@ func parseBuilt(flat map[string]any) (*Built, error) {
 	}
 	sort.Strings(keys)
 	d := Defaults()
+	d.given = make(map[string]bool, len(flat))
 	out := &Built{Design: d}
 	for _, k := range keys {
 		var err error
+		d.given[k] = true
 		if strings.HasPrefix(k, "build.") {
-			err = setBuild(&out.Spec, k, flat[k])
+			err = setBuild(&d.Build, k, flat[k])
 		} else {
 			err = d.setValue(k, flat[k])
 		}
@@ -190,25 +197,26 @@ func parseBuilt(flat map[string]any) (*Built, error) {
 	if _, ok := flat["gas.nitrogen"]; !ok {
 		d.Gas.Nitrogen = 1 - d.Gas.Oxygen - d.Gas.Helium
 	}
-	if _, ok := flat["switch.gap"]; !ok && out.Spec.SwitchGap > 0 {
-		d.Switch.Gap = out.Spec.SwitchGap
+	if _, ok := flat["switch.gap"]; !ok && d.Build.SwitchGap > 0 {
+		d.Switch.Gap = d.Build.SwitchGap
 		out.Derived = append(out.Derived, "switch.gap")
 	}
 	for _, x := range derivable {
 		_, given := flat[x.key]
-		plates := out.Spec.HasSwitchPlates()
+		plates := d.Build.HasSwitchPlates()
 		if strings.Contains(x.key, "channel_") {
-			plates = out.Spec.HasChannelPlates()
+			plates = d.Build.HasChannelPlates()
 		}
 		if !given && !plates {
 			return nil, &KeyError{Key: x.key, Problem: "missing: give it, or describe the capacitor plates and dielectric in [build]"}
 		}
 	}
-	bench, derived, err := d.ApplyBuild(&out.Spec)
+	bench, derived, err := d.ApplyBuild(&d.Build)
 	if err != nil {
 		return nil, err
 	}
 	out.Bench, out.Derived = bench, append(out.Derived, derived...)
+	out.Spec, d.Derived = d.Build, append([]string(nil), out.Derived...)
 	if err := d.Validate(); err != nil {
 		return nil, err
 	}
@@ -307,4 +315,68 @@ func hasBuild(flat map[string]any) bool {
 		}
 	}
 	return false
+}
+
+// isBuildKey reports whether key belongs to the [build] section.
+func isBuildKey(key string) bool { return strings.HasPrefix(key, "build.") }
+
+// rederivedBy reports whether a change of key can change the circuit values derived from the
+// build: any build key, and the channel length and gap (the rails default to them).
+func rederivedBy(key string) bool {
+	return isBuildKey(key) || key == "channel.length" || key == "channel.gap"
+}
+
+// rederive recomputes the derived circuit values from d.Build after a key has changed. A
+// derivable circuit key is derived when it is listed in d.Derived or is zero; the others were
+// given and win. switch.gap follows build.switch_gap unless switch.gap was given. On an
+// inconsistent build (a dielectric without its thickness, say) the design keeps its previous
+// circuit values and the error is returned; Validate reports it too.
+func (d *Design) rederive() error {
+	if d.Build == (build.Spec{}) {
+		return nil
+	}
+	circuit, gap := d.Circuit, d.Switch.Gap
+	var derived []string
+	if d.Build.SwitchGap > 0 && !d.given["switch.gap"] {
+		d.Switch.Gap = d.Build.SwitchGap
+		derived = append(derived, "switch.gap")
+	}
+	for _, x := range derivable {
+		if slices.Contains(d.Derived, x.key) {
+			*x.set(d) = 0
+		}
+	}
+	_, got, err := d.ApplyBuild(&d.Build)
+	if err != nil {
+		d.Circuit, d.Switch.Gap = circuit, gap
+		return err
+	}
+	d.Derived = append(derived, got...)
+	return nil
+}
+
+// setBuildText assigns a build key from text, as on the command line; build.fringe_correction
+// also takes true (palmer) and false (none), as in a design file.
+func (d *Design) setBuildText(key, value string) error {
+	var v any = strings.TrimSpace(value)
+	if key == "build.fringe_correction" {
+		switch strings.ToLower(strings.TrimSpace(value)) {
+		case "true":
+			v = true
+		case "false":
+			v = false
+		}
+	}
+	return setBuild(&d.Build, key, v)
+}
+
+// buildString lists the build keys as dotted key = value lines, in SI.
+func (d *Design) buildString(b *strings.Builder) {
+	for _, f := range buildFields {
+		if f.str != nil {
+			fmt.Fprintf(b, "%s = %q\n", f.key, *f.str(&d.Build))
+		} else {
+			fmt.Fprintf(b, "%s = %g\n", f.key, *f.num(&d.Build))
+		}
+	}
 }

@@ -1,6 +1,10 @@
 package kinetics
 
-import "math"
+import (
+	"math"
+
+	"n2pulse/kinetics/build"
+)
 
 // Design is one nitrogen laser described in SI units: its channel, gas, circuit, switch,
 // discharge, level kinetics, optics, optional spectroscopic overrides and numerics. Read one
@@ -19,9 +23,18 @@ type Design struct {
 	Spectroscopy Spectroscopy
 	Numerics     Numerics
 
-	// Derived lists the circuit keys computed from the file's [build] section rather than
-	// given (see ParseBuiltDesign).
+	// Build is the laser as built: the [build] section of the file (plates, dielectric,
+	// rails, switch gap), in SI; the zero Spec when the design has none. Set keeps the
+	// derived circuit values in step with it.
+	Build build.Spec
+
+	// Derived lists the keys (circuit capacitances and loop inductances, switch.gap) whose
+	// values are computed from Build rather than given (see ParseBuiltDesign); the other
+	// circuit values are explicit and win over the build.
 	Derived []string
+
+	// given holds the keys given in the file or by Set; nil for a design made in code.
+	given map[string]bool
 }
 
 // Channel is the laser channel between the two electrode rails.

@@ -4,6 +4,7 @@ import (
 	"bytes"
 	"errors"
 	"fmt"
+	"maps"
 	"math"
 	"os"
 	"sort"
@@ -13,6 +14,7 @@ import (
 	"github.com/BurntSushi/toml"
 
 	"n2pulse/data"
+	"n2pulse/kinetics/build"
 )
 
 // requiredKeys must appear in every design file: the defaults cover only published constants
@@ -62,7 +64,9 @@ func ParseDesign(b []byte, name string) (*Design, error) {
 	}
 	sort.Strings(keys)
 	d := Defaults()
+	d.given = make(map[string]bool, len(flat))
 	for _, k := range keys {
+		d.given[k] = true
 		if err := d.setValue(k, flat[k]); err != nil {
 			return nil, fmt.Errorf("%s: %w", name, err)
 		}
@@ -119,7 +123,7 @@ func (d *Design) setValue(key string, v any) error {
 	}
 	switch x := v.(type) {
 	case string:
-		return d.Set(key, x)
+		return d.set(key, x)
 	case int64:
 		if f.str != nil {
 			return &KeyError{Key: key, Value: strconv.FormatInt(x, 10), Problem: "want text in quotes"}
@@ -135,7 +139,8 @@ func (d *Design) setValue(key string, v any) error {
 }
 
 // Validate checks the relations between keys that no single range can: mole fractions that
-// sum to one, and the parameters each switch model needs.
+// sum to one, the parameters each switch model needs, and a [build] section the bench can
+// evaluate.
 func (d *Design) Validate() error {
 	g := d.Gas
 	if s := g.Nitrogen + g.Oxygen + g.Helium; math.Abs(s-1) > 1e-6 {
@@ -161,6 +166,11 @@ func (d *Design) Validate() error {
 	if d.Optics.ExcitationVelocity == 0 {
 		return &KeyError{Key: "optics.excitation_velocity", Value: "0", Problem: `must not be zero: use "infinite" for a simultaneous discharge`}
 	}
+	if d.Build != (build.Spec{}) {
+		if _, err := build.Evaluate(d.Build, d.benchConditions()); err != nil {
+			return fmt.Errorf("design: [build]: %w", err)
+		}
+	}
 	return nil
 }
 
@@ -168,10 +178,12 @@ func (d *Design) Validate() error {
 func (d *Design) Clone() *Design {
 	c := *d
 	c.Derived = append([]string(nil), d.Derived...)
+	c.given = maps.Clone(d.given)
 	return &c
 }
 
-// String lists the design as dotted key = value lines, in SI.
+// String lists the design as dotted key = value lines, in SI, the [build] keys last (a text
+// "" or a number 0 there means "not given").
 func (d *Design) String() string {
 	var b strings.Builder
 	for _, f := range fieldList {
@@ -184,5 +196,6 @@ func (d *Design) String() string {
 			fmt.Fprintf(&b, "%s = %g\n", f.key, *f.num(d))
 		}
 	}
+	d.buildString(&b)
 	return b.String()
 }

@@ -3,6 +3,7 @@ package kinetics
 import (
 	"fmt"
 	"math"
+	"slices"
 	"sort"
 	"strconv"
 	"strings"
@@ -97,10 +98,13 @@ var fieldIndex = func() map[string]*field {
 	return m
 }()
 
-// Keys returns every dotted key a design file accepts, sorted.
+// Keys returns every dotted key a design file accepts, the [build] keys included, sorted.
 func Keys() []string {
-	k := make([]string, 0, len(fieldList))
+	k := make([]string, 0, len(fieldList)+len(buildFields))
 	for _, f := range fieldList {
+		k = append(k, f.key)
+	}
+	for _, f := range buildFields {
 		k = append(k, f.key)
 	}
 	sort.Strings(k)
@@ -108,8 +112,11 @@ func Keys() []string {
 }
 
 // KeyUnit returns the SI unit of a numeric design key ("" for dimensionless or text keys) and
-// whether the key exists.
+// whether the key exists; the [build] keys are included.
 func KeyUnit(key string) (unit string, ok bool) {
+	if f, ok := buildIndex[key]; ok {
+		return f.unit, true
+	}
 	f, ok := fieldIndex[key]
 	if !ok {
 		return "", false
@@ -133,7 +140,35 @@ func (e *KeyError) Error() string {
 
 // Set assigns one design key from text, as on the command line: Set("gas.pressure", "40 Torr").
 // Numbers may carry any unit of the key's dimension; a bare number is SI.
+//
+// The [build] keys are accepted too (Set("build.switch_plate_width", "12 cm")). After a build
+// key, the channel length or the channel gap changes, the circuit values derived from the build
+// (those listed in Derived) are recomputed; circuit values given explicitly win. Setting a
+// derived circuit key makes it explicit. A build that is not yet consistent (a dielectric
+// preset whose thickness comes in a later Set, say) leaves the derived values as they were;
+// Validate reports it.
 func (d *Design) Set(key, value string) error {
+	if err := d.set(key, value); err != nil {
+		return err
+	}
+	if d.given == nil {
+		d.given = map[string]bool{}
+	}
+	d.given[key] = true
+	if i := slices.Index(d.Derived, key); i >= 0 {
+		d.Derived = slices.Delete(slices.Clone(d.Derived), i, i+1)
+	}
+	if rederivedBy(key) {
+		_ = d.rederive() // an inconsistent build is reported by Validate
+	}
+	return nil
+}
+
+// set assigns one key from text without the bookkeeping of Set.
+func (d *Design) set(key, value string) error {
+	if isBuildKey(key) {
+		return d.setBuildText(key, value)
+	}
 	f, ok := fieldIndex[key]
 	if !ok {
 		return &KeyError{Key: key, Problem: "unknown key" + suggest(key)}
@@ -148,8 +183,15 @@ func (d *Design) Set(key, value string) error {
 	return f.setNumber(d, v, value)
 }
 
-// Get returns the value of a numeric design key in SI.
+// Get returns the value of a numeric design key in SI; a numeric [build] key that is not
+// given reads 0.
 func (d *Design) Get(key string) (float64, error) {
+	if bf, ok := buildIndex[key]; ok {
+		if bf.num == nil {
+			return 0, &KeyError{Key: key, Problem: "is a text key, not a number"}
+		}
+		return *bf.num(&d.Build), nil
+	}
 	f, ok := fieldIndex[key]
 	if !ok {
 		return 0, &KeyError{Key: key, Problem: "unknown key" + suggest(key)}
@@ -245,9 +287,9 @@ func (f *field) rangeText() string {
 
 func suggest(key string) string {
 	best, bestD := "", 1<<30
-	for _, f := range fieldList {
-		if d := editDistance(key, f.key); d < bestD {
-			best, bestD = f.key, d
+	for _, k := range Keys() {
+		if d := editDistance(key, k); d < bestD {
+			best, bestD = k, d
 		}
 	}
 	if bestD <= 4 {

@@ -61,9 +61,11 @@ func runBench(args []string, stdout, stderr io.Writer) error {
 		if err := b.Design.Validate(); err != nil {
 			return err
 		}
-		if b.Bench, _, err = b.Design.ApplyBuild(&b.Spec); err != nil {
+		// Set has re-derived the circuit from the build; rate the design as it now stands.
+		if b.Bench, _, err = b.Design.ApplyBuild(&b.Design.Build); err != nil {
 			return err
 		}
+		b.Spec, b.Derived = b.Design.Build, b.Design.Derived
 	}
 	if *asJSON {
 		out := struct {
