@@ -270,3 +270,19 @@ func TestBuildKeysListed(t *testing.T) {
 		t.Errorf("Clone shares Derived: %v", d.Derived)
 	}
 }
+
+// BenchmarkSetBuildKey measures one Set of a build key on a built design: the parse of the
+// value, the bench evaluation and the re-derived circuit.
+func BenchmarkSetBuildKey(b *testing.B) {
+	d, err := ParseDesign([]byte(boardDesign), "board.toml")
+	if err != nil {
+		b.Fatal(err)
+	}
+	widths := []string{"10 cm", "25 cm"}
+	for i := 0; b.Loop(); i++ {
+		if err := d.Set("build.switch_plate_width", widths[i%2]); err != nil {
+			b.Fatal(err)
+		}
+	}
+	b.ReportMetric(float64(b.N)/b.Elapsed().Seconds(), "sets/s")
+}
