@@ -328,7 +328,7 @@ func sweepMap(t *study.Table, axes []study.Axis, metric string, col int, base st
 	}
 	printStyle(p)
 	h := plotter.NewHeatMap(g, cmap.Palette(255))
-	h.Min, h.Max = lo, hi
+	h.Min, h.Max = cmap.Min(), cmap.Max()
 	h.NaN = color.Gray{Y: 200}
 	p.Add(h)
 	if cg, ok := g.finiteCore(); ok {
