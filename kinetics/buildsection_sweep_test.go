@@ -6,6 +6,7 @@ import (
 	"strings"
 	"testing"
 
+	"n2pulse/data"
 	"n2pulse/kinetics"
 	"n2pulse/kinetics/build"
 	"n2pulse/kinetics/study"
@@ -14,29 +15,7 @@ import (
 
 // sweepBoard is an invented scenario: a Blumlein on a 1.6 mm glass-epoxy board, with a coarse
 // channel grid so that a sweep of the full model stays cheap.
-const sweepBoard = `
-name = "board Blumlein, coarse"
-[channel]
-length = "25 cm"
-gap = "2 mm"
-width = "3 mm"
-[gas]
-pressure = "760 Torr"
-[circuit]
-topology = "blumlein"
-charge_voltage = "12 kV"
-shunt_inductance = "1 uH"
-[numerics]
-cells = 16
-[build]
-switch_plate_length = "15 cm"
-switch_plate_width = "25 cm"
-channel_plate_length = "15 cm"
-channel_plate_width = "25 cm"
-dielectric = "fr4"
-dielectric_thickness = "1.6 mm"
-rail_height = "5 mm"
-`
+var sweepBoard = string(data.BoardDesign()) + "\n[numerics]\ncells = 16\n"
 
 // A three-point sweep of the full model over the switch-side plate width, through package
 // study: each point's stored energy is ½(C₁ + C₂)V₀² (a Blumlein both of whose capacitors

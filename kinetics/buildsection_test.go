@@ -7,35 +7,15 @@ import (
 	"strings"
 	"testing"
 
+	"n2pulse/data"
 	"n2pulse/units"
 )
 
 // boardDesign is an invented scenario: a Blumlein etched on a 1.6 mm glass-epoxy board.
-const boardDesign = `
-name = "board Blumlein"
-[channel]
-length = "25 cm"
-gap = "2 mm"
-width = "3 mm"
-[gas]
-pressure = "760 Torr"
-[circuit]
-topology = "blumlein"
-charge_voltage = "12 kV"
-shunt_inductance = "1 uH"
-[switch]
-model = "rompe-weizel"
-[build]
-switch_plate_length = "15 cm"
-switch_plate_width = "25 cm"
-channel_plate_length = "15 cm"
-channel_plate_width = "25 cm"
-dielectric = "fr4"
-dielectric_thickness = "1.6 mm"
-rail_height = "5 mm"
-switch_gap = "3 mm"
-switch_own_inductance = "5 nH"
-`
+var boardDesign = strings.NewReplacer(
+	"\n[build]\n", "\n[switch]\nmodel = \"rompe-weizel\"\n\n[build]\n",
+	`rail_height = "5 mm"`, "rail_height = \"5 mm\"\nswitch_gap = \"3 mm\"\nswitch_own_inductance = \"5 nH\"",
+).Replace(string(data.BoardDesign()))
 
 func TestParseBuiltDesignDerives(t *testing.T) {
 	b, err := ParseBuiltDesign([]byte(boardDesign), "board.toml")

@@ -3,6 +3,7 @@ package validation
 import (
 	"errors"
 
+	"n2pulse/data"
 	"n2pulse/kinetics"
 )
 
@@ -12,27 +13,7 @@ func init() {
 
 // buildKeyDesign is an invented scenario: a Blumlein on a 1.6 mm glass-epoxy board, described
 // as built.
-const buildKeyDesign = `
-name = "board Blumlein (invented)"
-[channel]
-length = "25 cm"
-gap = "2 mm"
-width = "3 mm"
-[gas]
-pressure = "760 Torr"
-[circuit]
-topology = "blumlein"
-charge_voltage = "12 kV"
-shunt_inductance = "1 uH"
-[build]
-switch_plate_length = "15 cm"
-switch_plate_width = "25 cm"
-channel_plate_length = "15 cm"
-channel_plate_width = "25 cm"
-dielectric = "fr4"
-dielectric_thickness = "1.6 mm"
-rail_height = "5 mm"
-`
+var buildKeyDesign = string(data.BoardDesign())
 
 // buildKeyChecks change a design's [build] section through Design.Set, as `--set build.…` and
 // sweeps do, and compare the re-derived circuit with a worked example and the scaling of the

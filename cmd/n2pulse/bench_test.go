@@ -3,6 +3,7 @@ package main
 import (
 	"bytes"
 	"encoding/json"
+	"n2pulse/data"
 	"os"
 	"path/filepath"
 	"strings"
@@ -10,26 +11,7 @@ import (
 )
 
 // benchBoard is an invented design described as built.
-const benchBoard = `name = "board Blumlein"
-[channel]
-length = "25 cm"
-gap = "2 mm"
-width = "3 mm"
-[gas]
-pressure = "760 Torr"
-[circuit]
-topology = "blumlein"
-charge_voltage = "12 kV"
-shunt_inductance = "1 uH"
-[build]
-switch_plate_length = "15 cm"
-switch_plate_width = "25 cm"
-channel_plate_length = "15 cm"
-channel_plate_width = "25 cm"
-dielectric = "fr4"
-dielectric_thickness = "1.6 mm"
-rail_height = "5 mm"
-`
+var benchBoard = string(data.BoardDesign())
 
 func TestBenchCommand(t *testing.T) {
 	path := filepath.Join(t.TempDir(), "board.toml")

@@ -13,14 +13,15 @@ import (
 func init() {
 	register(command{
 		name:    "init",
-		summary: "write a commented example design file (a bench-top atmospheric laser)",
+		summary: "write a commented example design file (a bench-top atmospheric laser, or --built: one described as built)",
 		run:     runInit,
 	})
 }
 
 func runInit(args []string, stdout, stderr io.Writer) error {
-	fs := newFlags("init", "[FILE] [--all] [--force]", stderr)
+	fs := newFlags("init", "[FILE] [--built] [--all] [--force]", stderr)
 	all := fs.Bool("all", false, "print every design key with its default value (SI), instead of the example")
+	built := fs.Bool("built", false, "write the example described as built (plates, dielectric, rails) instead")
 	force := fs.Bool("force", false, "overwrite FILE if it exists")
 	if help, err := parseFlags(fs, args); help || err != nil {
 		return err
@@ -29,6 +30,9 @@ func runInit(args []string, stdout, stderr io.Writer) error {
 		return usagef("init: takes at most one file name")
 	}
 	text := data.ExampleDesign()
+	if *built {
+		text = data.BoardDesign()
+	}
 	if *all {
 		text = []byte("# every key of a design file, with the defaults in SI (apparatus keys have no default)\n" +
 			kinetics.Defaults().String())
