@@ -2,6 +2,7 @@ package kinetics
 
 import (
 	"fmt"
+	"maps"
 	"math"
 	"slices"
 	"sort"
@@ -169,11 +170,7 @@ var derivable = []struct {
 
 // parseBuilt reads a flattened design with an optional build section.
 func parseBuilt(flat map[string]any) (*Built, error) {
-	keys := make([]string, 0, len(flat))
-	for k := range flat {
-		keys = append(keys, k)
-	}
-	sort.Strings(keys)
+	keys := slices.Sorted(maps.Keys(flat))
 	d := Defaults()
 	d.given = make(map[string]bool, len(flat))
 	out := &Built{Design: d}

@@ -7,7 +7,7 @@ import (
 	"maps"
 	"math"
 	"os"
-	"sort"
+	"slices"
 	"strconv"
 	"strings"
 
@@ -58,11 +58,7 @@ func ParseDesign(b []byte, name string) (*Design, error) {
 		b.Design.Derived = b.Derived
 		return b.Design, nil
 	}
-	keys := make([]string, 0, len(flat))
-	for k := range flat {
-		keys = append(keys, k)
-	}
-	sort.Strings(keys)
+	keys := slices.Sorted(maps.Keys(flat))
 	d := Defaults()
 	d.given = make(map[string]bool, len(flat))
 	for _, k := range keys {
