@@ -380,9 +380,10 @@ func (m *medium) pass(xs, da []float64) (sumA float64) {
 			ga := gain * a
 			gain = (gain + ga) + ga*(0.5*a)
 		} else if t, ok := passTiny(x, gain); ok {
-			// G′ = G·e^a to a³.
+			// G′ = G·e^a to a³, as G + G·a + G·a²·(1/2 + a/6) for a shorter chain.
 			a = t
-			gain += gain * (a + a*a*(0.5+a*(1.0/6)))
+			ga := gain * a
+			gain = (gain + ga) + (ga*a)*(0.5+a*(1.0/6))
 		} else if r, ok := expNegSeries(x); ok {
 			w := (gain - 1) * r
 			if l, ok := log1pSeries(w); ok {
