@@ -301,32 +301,63 @@ func (m *medium) fluxOf(x float64) float64 { return x * m.js * m.invDt }
 // then the spontaneous flux of each cell, half into each direction, and the fluxes entering
 // each cell in its first and second pass (in1, in2, as x = φ·Δt/J_s). It returns the
 // spontaneous emission added over all cells as x.
+//
+// It is two short loops over the cells, each without tests that stay the same through the
+// loop: the pump (one for a simultaneous discharge, the common case, and one per cell
+// otherwise), then the spontaneous emission and the entering fluxes, the end cells taking
+// theirs from the mirrors.
 func (m *medium) enter(ps *pumpStep, resync, forwardFirst bool) (spont float64) {
 	n := m.n
-	cs, bs, gf := m.c[:n], m.b[:n], m.gain[:n]
-	fpOld, fmOld := m.fpOld[:n], m.fmOld[:n]
-	in1, in2, halves := m.in1[:n], m.in2[:n], m.half[:n]
-	xPerFlux := m.dt * m.invJs
-	spontHalf, inject := 0.5*m.spont*xPerFlux, m.inject*xPerFlux
-	pumped, follow := ps != nil, ps != nil && !resync
-	var uniform bool
-	var e, pc, pb, eB, wBh float64
-	var pes, pcs, pbs []float64
-	if pumped {
-		uniform, e, pc, pb, eB, wBh = ps.uniform, ps.e, ps.cp, ps.bp, ps.eB, ps.wBh
-		if !uniform {
-			pes, pcs, pbs = ps.es[:n], ps.cps[:n], ps.bps[:n]
+	cs := m.c[:n]
+	if ps != nil {
+		m.pump(ps, !resync)
+		if resync {
+			m.resync()
 		}
 	}
+	fpOld, fmOld := m.fpOld[:n], m.fmOld[:n]
+	halves := m.half[:n]
+	// The pass that carries the forward wave and the one that carries the backward wave.
+	toP, toM := m.in1[:n], m.in2[:n]
+	if !forwardFirst {
+		toP, toM = toM, toP
+	}
+	xPerFlux := m.dt * m.invJs
+	spontHalf := 0.5 * m.spont * xPerFlux
+	var sum float64
+	for i, c := range cs {
+		half := spontHalf * c
+		sum += half
+		halves[i] = half
+	}
+	spont = 4 * sum
+	toP[0] = m.rRear*fmOld[0] + m.inject*xPerFlux + halves[0]
+	toM[n-1] = m.rFront*fpOld[n-1] + halves[n-1]
+	// Cell i ≥ 1 takes the forward flux leaving cell i−1, cell i ≤ n−2 the backward flux
+	// leaving cell i+1.
+	p, fpPrev, hp := toP[1:n], fpOld[:n-1], halves[1:n]
+	for j := range p {
+		p[j] = fpPrev[j] + hp[j]
+	}
+	q, fmNext, hq := toM[:n-1], fmOld[1:n], halves[:n-1]
+	for j := range q {
+		q[j] = fmNext[j] + hq[j]
+	}
+	return spont
+}
+
+// pump advances the populations of every cell through one step of pump and decay (see
+// pumpStep) and, when follow, their gain factors with them.
+func (m *medium) pump(ps *pumpStep, follow bool) {
+	n := m.n
+	cs, bs, gf := m.c[:n], m.b[:n], m.gain[:n]
 	sdz, g := m.sigma*m.dz, m.g
-	for i := range cs {
-		c := cs[i]
-		if pumped {
-			if !uniform {
-				e, pc, pb = pes[i], pcs[i], pbs[i]
-			}
-			c0, b0 := c, bs[i]
-			c = c0*e + pc
+	eB, wBh := ps.eB, ps.wBh
+	if ps.uniform {
+		e, pc, pb := ps.e, ps.cp, ps.bp
+		for i := range cs {
+			c0, b0 := cs[i], bs[i]
+			c := c0*e + pc
 			b := b0*eB + pb + wBh*(c0+c)
 			cs[i], bs[i] = c, b
 			if follow {
@@ -338,30 +369,23 @@ func (m *medium) enter(ps *pumpStep, resync, forwardFirst bool) (spont float64) 
 				}
 			}
 		}
-		var inP, inM float64
-		if i == 0 {
-			inP = m.rRear*fmOld[0] + inject
-		} else {
-			inP = fpOld[i-1]
-		}
-		if i == n-1 {
-			inM = m.rFront * fpOld[n-1]
-		} else {
-			inM = fmOld[i+1]
-		}
-		half := spontHalf * c
-		spont += 4 * half
-		halves[i] = half
-		if forwardFirst {
-			in1[i], in2[i] = inP+half, inM+half
-		} else {
-			in1[i], in2[i] = inM+half, inP+half
+		return
+	}
+	pes, pcs, pbs := ps.es[:n], ps.cps[:n], ps.bps[:n]
+	for i := range cs {
+		c0, b0 := cs[i], bs[i]
+		c := c0*pes[i] + pcs[i]
+		b := b0*eB + pbs[i] + wBh*(c0+c)
+		cs[i], bs[i] = c, b
+		if follow {
+			x := sdz * ((c - c0) - g*(b-b0))
+			if f, ok := expTiny(x); ok {
+				gf[i] *= f
+			} else {
+				gf[i] *= expMedium(x)
+			}
 		}
 	}
-	if pumped && resync {
-		m.resync()
-	}
-	return spont
 }
 
 // pass takes every cell through one Frantz–Nodvik pass: xs[i], the x = J_in/J_s entering
