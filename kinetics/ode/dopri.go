@@ -1,6 +1,10 @@
 package ode
 
-import "math"
+import (
+	"math"
+
+	"gonum.org/v1/gonum/floats"
+)
 
 // Dormand–Prince 5(4) coefficients: Dormand & Prince, "A family of embedded Runge–Kutta
 // formulae", J. Comput. Appl. Math. 6, 19–26 (1980) (also Hairer, Nørsett & Wanner, Solving
@@ -75,7 +79,7 @@ func (d *DormandPrince) try(h float64) (float64, error) {
 		copy(out, d.y)
 		for j := range s {
 			if a := dpA[s][j]; a != 0 {
-				axpy(h*a, d.k[j], out)
+				floats.AddScaled(out, h*a, d.k[j])
 			}
 		}
 		if err := d.eval(d.t+dpC[s]*h, out, d.k[s]); err != nil {

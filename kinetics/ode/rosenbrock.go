@@ -7,6 +7,7 @@ import (
 
 	"gonum.org/v1/gonum/blas"
 	"gonum.org/v1/gonum/blas/blas64"
+	"gonum.org/v1/gonum/floats"
 	"gonum.org/v1/gonum/lapack/lapack64"
 	"gonum.org/v1/gonum/mat"
 )
@@ -119,7 +120,7 @@ func (r *Rosenbrock) try(h float64) (float64, error) {
 			copy(r.ytmp, r.y)
 			for j, a := range tb.A[s] {
 				if a != 0 {
-					axpy(a, r.u[j], r.ytmp)
+					floats.AddScaled(r.ytmp, a, r.u[j])
 				}
 			}
 			if err := r.eval(r.t+tb.Alpha[s]*h, r.ytmp, r.rhs); err != nil {
@@ -128,11 +129,11 @@ func (r *Rosenbrock) try(h float64) (float64, error) {
 		}
 		for j, c := range tb.C[s] {
 			if c != 0 {
-				axpy(c/h, r.u[j], r.rhs)
+				floats.AddScaled(r.rhs, c/h, r.u[j])
 			}
 		}
 		if g := tb.GammaSum[s]; g != 0 {
-			axpy(h*g, r.ft, r.rhs)
+			floats.AddScaled(r.rhs, h*g, r.ft)
 		}
 		copy(r.u[s], r.rhs)
 		lapack64.Getrs(blas.NoTrans, wr, blas64.General{Rows: n, Cols: 1, Stride: 1, Data: r.u[s]}, r.ipiv)
@@ -143,10 +144,10 @@ func (r *Rosenbrock) try(h float64) (float64, error) {
 	}
 	for s := range tb.Stages() {
 		if m := tb.M[s]; m != 0 {
-			axpy(m, r.u[s], r.yNew)
+			floats.AddScaled(r.yNew, m, r.u[s])
 		}
 		if e := tb.E[s]; e != 0 {
-			axpy(e, r.u[s], r.ytmp)
+			floats.AddScaled(r.ytmp, e, r.u[s])
 		}
 	}
 	errNorm := r.cfg.weightedRMS(r.ytmp, r.y, r.yNew)
@@ -231,11 +232,4 @@ func (r *Rosenbrock) diffJacobian(t, h float64) error {
 		}
 	}
 	return nil
-}
-
-// axpy computes y += a·x.
-func axpy(a float64, x, y []float64) {
-	for i, v := range x {
-		y[i] += a * v
-	}
 }
