@@ -157,8 +157,7 @@ func TestWriteReport(t *testing.T) {
 }
 
 // TestExperimentConvergence measures how the compared quantities change between the 20 cells
-// of the experiment runs and 200 cells, on one case (the longest channel; see COMMON.md for the
-// other cases); the experiment tolerances (factor 2 on
+// of the experiment runs and 200 cells, on every case; the experiment tolerances (factor 2 on
 // energy, 40 % on FWHM) must be much wider than this numerical error. The bound of 10 % is our
 // choice (common practice, no source: a numerical error well inside the comparison tolerance).
 func TestExperimentConvergence(t *testing.T) {
@@ -169,26 +168,34 @@ func TestExperimentConvergence(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
+	if len(cases) == 0 {
+		t.Fatal("no experiment cases")
+	}
 	for _, c := range cases {
-		if c.Name != "tea-transfer-88mm-v1" {
-			continue
-		}
-		var e, w [2]float64
-		for i, n := range []int{20, 200} {
-			d := c.Design.Clone()
-			d.Numerics.Cells = n
-			r, err := kinetics.Run(d, &kinetics.RunSettings{Light: true})
-			if err != nil {
-				t.Fatalf("%s, %d cells: %v", c.Name, n, err)
+		t.Run(c.Name, func(t *testing.T) {
+			t.Parallel()
+			var e, w [2]float64
+			for i, n := range []int{20, 200} {
+				d := c.Design.Clone()
+				d.Numerics.Cells = n
+				r, err := kinetics.Run(d, &kinetics.RunSettings{Light: true})
+				if err != nil {
+					t.Fatalf("%s, %d cells: %v", c.Name, n, err)
+				}
+				e[i], w[i] = r.Summary.EnergyFront, r.Summary.FWHM
 			}
-			e[i], w[i] = r.Summary.EnergyFront, r.Summary.FWHM
-		}
-		de, dw := math.Abs(e[0]/e[1]-1), math.Abs(w[0]/w[1]-1)
-		t.Logf("%s: energy %.4g J (20 cells) vs %.4g J (200 cells), %.2f%%; FWHM %.4g vs %.4g s, %.2f%%",
-			c.Name, e[0], e[1], 100*de, w[0], w[1], 100*dw)
-		if de > 0.1 || dw > 0.1 {
-			t.Errorf("%s: 20 cells differ from 200 cells by %.1f%% (energy), %.1f%% (FWHM); want ≤ 10%%", c.Name, 100*de, 100*dw)
-		}
+			if e[0] == 0 && e[1] == 0 {
+				// A case that does not lase at either resolution (no pulse, no width) converges trivially.
+				t.Logf("%s: no output at 20 or 200 cells", c.Name)
+				return
+			}
+			de, dw := math.Abs(e[0]/e[1]-1), math.Abs(w[0]/w[1]-1)
+			t.Logf("%s: energy %.4g J (20 cells) vs %.4g J (200 cells), %.2f%%; FWHM %.4g vs %.4g s, %.2f%%",
+				c.Name, e[0], e[1], 100*de, w[0], w[1], 100*dw)
+			if !(de <= 0.1 && dw <= 0.1) {
+				t.Errorf("%s: 20 cells differ from 200 cells by %.1f%% (energy), %.1f%% (FWHM); want ≤ 10%%", c.Name, 100*de, 100*dw)
+			}
+		})
 	}
 }
 
@@ -203,6 +210,9 @@ func BenchmarkExperimentCase(b *testing.B) {
 		if c.Name == "tea-transfer-88mm-v1" {
 			d = c.Design
 		}
+	}
+	if d == nil {
+		b.Fatal("experiment case tea-transfer-88mm-v1 not found")
 	}
 	for b.Loop() {
 		if _, err := kinetics.Run(d, &kinetics.RunSettings{Light: true}); err != nil {
