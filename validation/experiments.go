@@ -8,13 +8,13 @@ import (
 	"io/fs"
 	"math"
 	"path"
-	"runtime"
 	"sort"
 	"strings"
 	"sync"
 
 	"github.com/BurntSushi/toml"
 
+	"n2pulse/internal/pool"
 	"n2pulse/kinetics"
 	"n2pulse/units"
 )
@@ -225,27 +225,15 @@ type job struct {
 
 // runJobs runs the designs on all cores.
 func runJobs(jobs []*job) {
-	work := make(chan *job)
-	var wg sync.WaitGroup
-	for range max(1, runtime.GOMAXPROCS(0)) {
-		wg.Add(1)
-		go func() {
-			defer wg.Done()
-			for j := range work {
-				res, err := kinetics.Run(j.d, &kinetics.RunSettings{Light: true})
-				if err != nil {
-					j.err = err
-					continue
-				}
-				j.sum = res.Summary
-			}
-		}()
-	}
-	for _, j := range jobs {
-		work <- j
-	}
-	close(work)
-	wg.Wait()
+	pool.Each(len(jobs), 0, func(k int) {
+		j := jobs[k]
+		res, err := kinetics.Run(j.d, &kinetics.RunSettings{Light: true})
+		if err != nil {
+			j.err = err
+			return
+		}
+		j.sum = res.Summary
+	})
 }
 
 // scanPlan is the model scan of one variation.

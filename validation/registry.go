@@ -5,6 +5,8 @@ import (
 	"math"
 	"sort"
 	"sync"
+
+	"n2pulse/internal/pool"
 )
 
 // Kind says what a reference value rests on.
@@ -158,19 +160,14 @@ func Groups() []Group {
 func RunAll() []Check {
 	gs := Groups()
 	out := make([][]Check, len(gs))
-	var wg sync.WaitGroup
-	for i, g := range gs {
-		wg.Add(1)
-		go func() {
-			defer wg.Done()
-			cs, err := g.Run()
-			if err != nil {
-				cs = append(cs, Check{ID: g.Name, Quantity: "group " + g.Name, Err: err, Kind: Analytic})
-			}
-			out[i] = cs
-		}()
-	}
-	wg.Wait()
+	pool.Each(len(gs), len(gs), func(i int) {
+		g := gs[i]
+		cs, err := g.Run()
+		if err != nil {
+			cs = append(cs, Check{ID: g.Name, Quantity: "group " + g.Name, Err: err, Kind: Analytic})
+		}
+		out[i] = cs
+	})
 	var all []Check
 	for _, cs := range out {
 		all = append(all, cs...)

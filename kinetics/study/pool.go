@@ -5,8 +5,8 @@ import (
 	"fmt"
 	"runtime"
 	"strings"
-	"sync"
 
+	"n2pulse/internal/pool"
 	"n2pulse/kinetics"
 )
 
@@ -21,7 +21,7 @@ type outcome struct {
 	err error
 }
 
-// evaluate runs the designs of the points idx on a pool of workers and hands each outcome to
+// evaluate runs the designs of the points idx on the project's worker pool (internal/pool) and hands each outcome to
 // done, one at a time on the calling goroutine, in completion order. Points are independent and
 // share nothing: no lock is held while a design runs. When ctx is cancelled no new point starts;
 // the points in flight finish and are handed to done before evaluate returns ctx.Err(). An error
@@ -31,58 +31,16 @@ func evaluate(ctx context.Context, idx []int, workers int, design func(i int) (*
 	if workers <= 0 {
 		workers = runtime.NumCPU()
 	}
-	workers = min(workers, max(len(idx), 1))
-	ctx, cancel := context.WithCancel(ctx)
-	defer cancel()
-
-	jobs := make(chan int)
-	results := make(chan outcome)
-	var wg sync.WaitGroup
-	for range workers {
-		wg.Add(1)
-		go func() {
-			defer wg.Done()
-			for i := range jobs {
-				o := outcome{i: i}
-				d, err := design(i)
-				if err == nil {
-					o.sum, o.err = safeRun(run, d)
-				} else {
-					o.err = err
-				}
-				results <- o
-			}
-		}()
-	}
-	go func() {
-		defer close(jobs)
-		for _, i := range idx {
-			select {
-			case jobs <- i:
-			case <-ctx.Done():
-				return
-			}
+	return pool.Run(ctx, len(idx), workers, func(k int) outcome {
+		o := outcome{i: idx[k]}
+		d, err := design(o.i)
+		if err == nil {
+			o.sum, o.err = safeRun(run, d)
+		} else {
+			o.err = err
 		}
-	}()
-	go func() {
-		wg.Wait()
-		close(results)
-	}()
-
-	var firstErr error
-	for o := range results {
-		if firstErr != nil {
-			continue // drain the points in flight
-		}
-		if err := done(o); err != nil {
-			firstErr = err
-			cancel()
-		}
-	}
-	if firstErr != nil {
-		return firstErr
-	}
-	return ctx.Err()
+		return o
+	}, func(_ int, o outcome) error { return done(o) })
 }
 
 // safeRun turns a panic inside the model into the point's error, so one bad point never
