@@ -1,12 +1,14 @@
 package kinetics
 
 import (
+	"context"
 	"fmt"
 	"math"
-	"runtime"
 	"sort"
+	"strconv"
 	"strings"
-	"sync"
+
+	"n2pulse/internal/pool"
 )
 
 // SensitivityRow is the logarithmic sensitivity of the output to one design key.
@@ -45,12 +47,12 @@ func SensitivityKeys(d *Design) []string {
 		unused["levels.upper_quenching_helium"] = true
 	}
 	var keys []string
-	for _, f := range fieldList {
-		if f.num == nil || f.integer || strings.HasPrefix(f.key, "numerics.") || strings.HasPrefix(f.key, "gas.") && f.key != "gas.pressure" && f.key != "gas.temperature" || unused[f.key] {
+	for _, k := range Keys() {
+		if strings.HasPrefix(k, "build.") || strings.HasPrefix(k, "numerics.") || strings.HasPrefix(k, "gas.") && k != "gas.pressure" && k != "gas.temperature" || unused[k] {
 			continue
 		}
-		if v := *f.num(d); v != 0 && !math.IsInf(v, 0) && !math.IsNaN(v) {
-			keys = append(keys, f.key)
+		if v, err := d.Get(k); err == nil && v != 0 && !math.IsInf(v, 0) && !math.IsNaN(v) {
+			keys = append(keys, k)
 		}
 	}
 	return keys
@@ -60,7 +62,9 @@ func SensitivityKeys(d *Design) []string {
 // peak power P to each key x (SensitivityKeys(d) when keys is empty), by central differences
 // over re-runs at x·exp(±step) (step 0.01 when ≤ 0), or one-sided ones where the key's range
 // forbids a side. Rows are ranked by |d ln E / d ln x|; a key that cannot be varied or whose
-// runs fail carries its problem. Runs go in parallel, one per CPU.
+// runs fail carries its problem. Each key is varied through Design.Set, as on the command line,
+// so a design described as built re-derives its circuit. Runs go on the project's worker pool,
+// one per CPU.
 func Sensitivity(d *Design, keys []string, step float64) ([]SensitivityRow, error) {
 	if step <= 0 {
 		step = 0.01
@@ -72,12 +76,8 @@ func Sensitivity(d *Design, keys []string, step float64) ([]SensitivityRow, erro
 		keys = SensitivityKeys(d)
 	}
 	for _, k := range keys {
-		f, ok := fieldIndex[k]
-		if !ok {
-			return nil, &KeyError{Key: k, Problem: "unknown key" + suggest(k)}
-		}
-		if f.num == nil || f.integer {
-			return nil, &KeyError{Key: k, Problem: "not a continuous number: no sensitivity"}
+		if _, err := d.Get(k); err != nil {
+			return nil, err // unknown key, or a text key: no sensitivity
 		}
 	}
 	base, err := Run(d, &RunSettings{Light: true})
@@ -97,9 +97,9 @@ func Sensitivity(d *Design, keys []string, step float64) ([]SensitivityRow, erro
 	ok := make([][2]bool, len(keys))
 	var jobs []job
 	for i, k := range keys {
-		f := fieldIndex[k]
-		x := *f.num(d)
-		rows[i] = SensitivityRow{Key: k, Value: x, Unit: f.unit}
+		x, _ := d.Get(k)
+		unit, _ := KeyUnit(k)
+		rows[i] = SensitivityRow{Key: k, Value: x, Unit: unit}
 		if x == 0 || math.IsInf(x, 0) {
 			rows[i].Problem = "value is 0 or infinite: ln x undefined"
 			continue
@@ -108,32 +108,24 @@ func Sensitivity(d *Design, keys []string, step float64) ([]SensitivityRow, erro
 			jobs = append(jobs, job{i, s})
 		}
 	}
-	var mu sync.Mutex
 	problems := map[int][]string{}
-	ch := make(chan job)
-	var wg sync.WaitGroup
-	for w := 0; w < runtime.GOMAXPROCS(0); w++ {
-		wg.Add(1)
-		go func() {
-			defer wg.Done()
-			for j := range ch {
-				s, err := perturbedRun(d, keys[j.row], j.sign*step)
-				mu.Lock()
-				if err == nil {
-					out[j.row][(int(j.sign)+1)/2] = s
-					ok[j.row][(int(j.sign)+1)/2] = true
-				} else if !isRangeError(err) {
-					problems[j.row] = append(problems[j.row], err.Error())
-				}
-				mu.Unlock()
-			}
-		}()
+	type perturbed struct {
+		sum Summary
+		err error
 	}
-	for _, j := range jobs {
-		ch <- j
-	}
-	close(ch)
-	wg.Wait()
+	_ = pool.Run(context.Background(), len(jobs), 0, func(n int) perturbed {
+		s, err := perturbedRun(d, keys[jobs[n].row], jobs[n].sign*step)
+		return perturbed{s, err}
+	}, func(n int, p perturbed) error {
+		j := jobs[n]
+		if p.err == nil {
+			out[j.row][(int(j.sign)+1)/2] = p.sum
+			ok[j.row][(int(j.sign)+1)/2] = true
+		} else if !isRangeError(p.err) {
+			problems[j.row] = append(problems[j.row], p.err.Error())
+		}
+		return nil
+	})
 
 	for i := range rows {
 		if rows[i].Problem != "" {
@@ -179,12 +171,17 @@ type rangeError struct{ error }
 
 func isRangeError(err error) bool { _, ok := err.(rangeError); return ok }
 
-// perturbedRun runs d with key multiplied by exp(h).
+// perturbedRun runs d with key multiplied by exp(h), set through Design.Set as a user would
+// set it: a key the build derives from (the channel length and gap, a build key) re-derives
+// the circuit, and a derived circuit key set this way becomes explicit.
 func perturbedRun(d *Design, key string, h float64) (Summary, error) {
 	c := d.Clone()
-	f := fieldIndex[key]
-	x := *f.num(c) * math.Exp(h)
-	if err := f.setNumber(c, x, fmt.Sprintf("%g", x)); err != nil {
+	x0, err := c.Get(key)
+	if err != nil {
+		return Summary{}, err
+	}
+	x := x0 * math.Exp(h)
+	if err := c.Set(key, strconv.FormatFloat(x, 'g', -1, 64)); err != nil {
 		return Summary{}, rangeError{err}
 	}
 	if err := c.Validate(); err != nil {

@@ -4,7 +4,12 @@ import (
 	"errors"
 	"math"
 	"slices"
+	"strconv"
 	"testing"
+
+	"gonum.org/v1/gonum/floats/scalar"
+
+	"n2pulse/data"
 )
 
 // quickDesign is the example on a coarse grid, for fast re-runs.
@@ -104,5 +109,41 @@ func TestSensitivityKeys(t *testing.T) {
 		if slices.Contains(k, not) {
 			t.Errorf("%s should not be varied (in %v)", not, k)
 		}
+	}
+}
+
+// TestSensitivityRederivesBuild checks d ln E / d ln L on the board design, whose circuit is
+// derived from its [build] section: the sensitivity must agree with two explicit runs with the
+// length set through Design.Set (which re-derives the rails' inductance), as a user would set
+// it. Tolerance 2 %: the same central difference, so only rounding separates them.
+func TestSensitivityRederivesBuild(t *testing.T) {
+	if testing.Short() {
+		t.Skip("runs the model")
+	}
+	t.Parallel()
+	d, err := ParseDesign(data.BoardDesign(), "board.toml")
+	if err != nil {
+		t.Fatal(err)
+	}
+	d.Numerics.Cells = 50
+	rows, err := Sensitivity(d, []string{"channel.length"}, 0.01)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if rows[0].Problem != "" || rows[0].OneSided {
+		t.Fatalf("channel.length: %+v", rows[0])
+	}
+	l := rows[0].Value
+	var e [2]float64
+	for i, f := range []float64{math.Exp(-0.01), math.Exp(0.01)} {
+		c := d.Clone()
+		if err := c.Set("channel.length", strconv.FormatFloat(l*f, 'g', -1, 64)); err != nil {
+			t.Fatal(err)
+		}
+		e[i] = runEnergy(t, c)
+	}
+	want := (math.Log(e[1]) - math.Log(e[0])) / 0.02
+	if !scalar.EqualWithinAbsOrRel(rows[0].Energy, want, 1e-9, 0.02) {
+		t.Errorf("d ln E/d ln L = %.5g, two runs through Set give %.5g", rows[0].Energy, want)
 	}
 }
