@@ -6,6 +6,7 @@ import (
 
 	"n2pulse/kinetics"
 	"n2pulse/kinetics/build"
+	"n2pulse/kinetics/study"
 	"n2pulse/units"
 )
 
@@ -21,7 +22,7 @@ func init() {
 // the run's.
 func sensitivityChecks() ([]Check, error) {
 	d := kinetics.ExampleDesign()
-	rows, err := kinetics.Sensitivity(d, []string{"circuit.charge_voltage"}, 0.01)
+	rows, err := study.Sensitivity(d, []string{"circuit.charge_voltage"}, 0.01)
 	if err != nil {
 		return nil, err
 	}

@@ -12,6 +12,7 @@ import (
 	"n2pulse/data"
 	"n2pulse/kinetics"
 	"n2pulse/kinetics/build"
+	"n2pulse/kinetics/study"
 	"n2pulse/units"
 )
 
@@ -183,8 +184,8 @@ func printBench(w io.Writer, name string, b *kinetics.Built) {
 
 // PrintSensitivity writes the five keys that move the output energy most, with the direction
 // to move each for more energy: the `run --sensitivity` table. Rows come ranked from
-// kinetics.Sensitivity; keys that could not be varied are named after the table.
-func PrintSensitivity(w io.Writer, rows []kinetics.SensitivityRow) {
+// study.Sensitivity; keys that could not be varied are named after the table.
+func PrintSensitivity(w io.Writer, rows []study.SensitivityRow) {
 	tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
 	fmt.Fprintln(tw, "key\tvalue\td ln E/d ln x\td ln P/d ln x\tfor more energy")
 	shown := 0

@@ -12,6 +12,7 @@ import (
 	"strings"
 
 	"n2pulse/kinetics"
+	"n2pulse/kinetics/study"
 	"n2pulse/units"
 )
 
@@ -88,7 +89,7 @@ func runRun(args []string, stdout, stderr io.Writer) error {
 			s.CircuitSteps, s.CircuitRejected, s.CircuitEvals, s.OpticalSteps, s.Cells, s.TableBelow, s.TableAbove)
 	}
 	if *sensitivity {
-		rows, err := kinetics.Sensitivity(d, nil, 0.01)
+		rows, err := study.Sensitivity(d, nil, 0.01)
 		if err != nil {
 			return err
 		}

@@ -1,4 +1,4 @@
-package kinetics
+package study
 
 import (
 	"context"
@@ -9,6 +9,7 @@ import (
 	"strings"
 
 	"n2pulse/internal/pool"
+	"n2pulse/kinetics"
 )
 
 // SensitivityRow is the logarithmic sensitivity of the output to one design key.
@@ -26,18 +27,18 @@ type SensitivityRow struct {
 // finite, used by the design's switch model and gas (no oxygen constants without oxygen), and
 // not numerics.*, spectroscopy overrides left at "computed" or gas mole fractions (each of
 // those would need a swarm table solved anew).
-func SensitivityKeys(d *Design) []string {
+func SensitivityKeys(d *kinetics.Design) []string {
 	unused := map[string]bool{}
 	switch d.Switch.Model {
-	case IdealSwitch:
+	case kinetics.IdealSwitch:
 		for _, k := range []string{"off_resistance", "rise_time", "gap", "pressure", "spark_constant"} {
 			unused["switch."+k] = true
 		}
-	case ExponentialSwitch:
+	case kinetics.ExponentialSwitch:
 		for _, k := range []string{"gap", "pressure", "spark_constant"} {
 			unused["switch."+k] = true
 		}
-	case RompeWeizelSwitch:
+	case kinetics.RompeWeizelSwitch:
 		unused["switch.rise_time"] = true
 	}
 	if d.Gas.Oxygen == 0 {
@@ -47,7 +48,7 @@ func SensitivityKeys(d *Design) []string {
 		unused["levels.upper_quenching_helium"] = true
 	}
 	var keys []string
-	for _, k := range Keys() {
+	for _, k := range kinetics.Keys() {
 		if strings.HasPrefix(k, "build.") || strings.HasPrefix(k, "numerics.") || strings.HasPrefix(k, "gas.") && k != "gas.pressure" && k != "gas.temperature" || unused[k] {
 			continue
 		}
@@ -62,15 +63,15 @@ func SensitivityKeys(d *Design) []string {
 // peak power P to each key x (SensitivityKeys(d) when keys is empty), by central differences
 // over re-runs at x·exp(±step) (step 0.01 when ≤ 0), or one-sided ones where the key's range
 // forbids a side. Rows are ranked by |d ln E / d ln x|; a key that cannot be varied or whose
-// runs fail carries its problem. Each key is varied through Design.Set, as on the command line,
+// runs fail carries its problem. Each key is varied through kinetics.Design.Set, as on the command line,
 // so a design described as built re-derives its circuit. Runs go on the project's worker pool,
 // one per CPU.
-func Sensitivity(d *Design, keys []string, step float64) ([]SensitivityRow, error) {
+func Sensitivity(d *kinetics.Design, keys []string, step float64) ([]SensitivityRow, error) {
 	if step <= 0 {
 		step = 0.01
 	}
 	if step > 0.5 {
-		return nil, fmt.Errorf("kinetics: sensitivity step %g: allowed above 0 to 0.5 (in ln x)", step)
+		return nil, fmt.Errorf("study: sensitivity step %g: allowed above 0 to 0.5 (in ln x)", step)
 	}
 	if len(keys) == 0 {
 		keys = SensitivityKeys(d)
@@ -80,25 +81,25 @@ func Sensitivity(d *Design, keys []string, step float64) ([]SensitivityRow, erro
 			return nil, err // unknown key, or a text key: no sensitivity
 		}
 	}
-	base, err := Run(d, &RunSettings{Light: true})
+	base, err := kinetics.Run(d, &kinetics.RunSettings{Light: true})
 	if err != nil {
 		return nil, err
 	}
 	e0, p0 := base.Summary.EnergyTotal, base.Summary.PeakPower
 	if !(e0 > 0) || !(p0 > 0) {
-		return nil, fmt.Errorf("kinetics: sensitivity: the design makes no output (E = %g J), so ln E has no derivative", e0)
+		return nil, fmt.Errorf("study: sensitivity: the design makes no output (E = %g J), so ln E has no derivative", e0)
 	}
 	type job struct {
 		row  int
 		sign float64
 	}
 	rows := make([]SensitivityRow, len(keys))
-	out := make([][2]Summary, len(keys)) // [0] at x·e^(−h), [1] at x·e^(+h)
+	out := make([][2]kinetics.Summary, len(keys)) // [0] at x·e^(−h), [1] at x·e^(+h)
 	ok := make([][2]bool, len(keys))
 	var jobs []job
 	for i, k := range keys {
 		x, _ := d.Get(k)
-		unit, _ := KeyUnit(k)
+		unit, _ := kinetics.KeyUnit(k)
 		rows[i] = SensitivityRow{Key: k, Value: x, Unit: unit}
 		if x == 0 || math.IsInf(x, 0) {
 			rows[i].Problem = "value is 0 or infinite: ln x undefined"
@@ -110,7 +111,7 @@ func Sensitivity(d *Design, keys []string, step float64) ([]SensitivityRow, erro
 	}
 	problems := map[int][]string{}
 	type perturbed struct {
-		sum Summary
+		sum kinetics.Summary
 		err error
 	}
 	_ = pool.Run(context.Background(), len(jobs), 0, func(n int) perturbed {
@@ -171,25 +172,25 @@ type rangeError struct{ error }
 
 func isRangeError(err error) bool { _, ok := err.(rangeError); return ok }
 
-// perturbedRun runs d with key multiplied by exp(h), set through Design.Set as a user would
+// perturbedRun runs d with key multiplied by exp(h), set through kinetics.Design.Set as a user would
 // set it: a key the build derives from (the channel length and gap, a build key) re-derives
 // the circuit, and a derived circuit key set this way becomes explicit.
-func perturbedRun(d *Design, key string, h float64) (Summary, error) {
+func perturbedRun(d *kinetics.Design, key string, h float64) (kinetics.Summary, error) {
 	c := d.Clone()
 	x0, err := c.Get(key)
 	if err != nil {
-		return Summary{}, err
+		return kinetics.Summary{}, err
 	}
 	x := x0 * math.Exp(h)
 	if err := c.Set(key, strconv.FormatFloat(x, 'g', -1, 64)); err != nil {
-		return Summary{}, rangeError{err}
+		return kinetics.Summary{}, rangeError{err}
 	}
 	if err := c.Validate(); err != nil {
-		return Summary{}, rangeError{err}
+		return kinetics.Summary{}, rangeError{err}
 	}
-	r, err := Run(c, &RunSettings{Light: true})
+	r, err := kinetics.Run(c, &kinetics.RunSettings{Light: true})
 	if err != nil {
-		return Summary{}, fmt.Errorf("%s × e^%+g: %w", key, h, err)
+		return kinetics.Summary{}, fmt.Errorf("%s × e^%+g: %w", key, h, err)
 	}
 	return r.Summary, nil
 }

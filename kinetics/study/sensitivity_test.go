@@ -1,4 +1,4 @@
-package kinetics
+package study
 
 import (
 	"errors"
@@ -10,18 +10,19 @@ import (
 	"gonum.org/v1/gonum/floats/scalar"
 
 	"n2pulse/data"
+	"n2pulse/kinetics"
 )
 
 // quickDesign is the example on a coarse grid, for fast re-runs.
-func quickDesign() *Design {
-	d := ExampleDesign()
+func quickDesign() *kinetics.Design {
+	d := kinetics.ExampleDesign()
 	d.Numerics.Cells = 50
 	return d
 }
 
-func runEnergy(t *testing.T, d *Design) float64 {
+func runEnergy(t *testing.T, d *kinetics.Design) float64 {
 	t.Helper()
-	r, err := Run(d, &RunSettings{Light: true})
+	r, err := kinetics.Run(d, &kinetics.RunSettings{Light: true})
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -44,8 +45,12 @@ func TestSensitivityAgainstExplicitRuns(t *testing.T) {
 		// Two explicit runs at x·1.01 and x·0.99 (a finite difference in x, not in ln x).
 		up, dn := d.Clone(), d.Clone()
 		x := r.Value
-		*fieldIndex[r.Key].num(up) = 1.01 * x
-		*fieldIndex[r.Key].num(dn) = 0.99 * x
+		if err := up.Set(r.Key, strconv.FormatFloat(1.01*x, 'g', -1, 64)); err != nil {
+			t.Fatal(err)
+		}
+		if err := dn.Set(r.Key, strconv.FormatFloat(0.99*x, 'g', -1, 64)); err != nil {
+			t.Fatal(err)
+		}
 		want := (math.Log(runEnergy(t, up)) - math.Log(runEnergy(t, dn))) / (math.Log(1.01) - math.Log(0.99))
 		if math.Abs(r.Energy-want) > 0.05*math.Abs(want) {
 			t.Errorf("%s: d ln E/d ln x = %.4g, explicit runs give %.4g", r.Key, r.Energy, want)
@@ -85,7 +90,7 @@ func TestSensitivityOneSidedAndErrors(t *testing.T) {
 	if !rows[0].OneSided || rows[0].Problem != "" || rows[0].Energy == 0 {
 		t.Errorf("temperature at its limit: %+v", rows[0])
 	}
-	var ke *KeyError
+	var ke *kinetics.KeyError
 	if _, err := Sensitivity(d, []string{"gas.presure"}, 0.01); !errors.As(err, &ke) || ke.Key != "gas.presure" {
 		t.Errorf("unknown key: %v", err)
 	}
@@ -98,7 +103,7 @@ func TestSensitivityOneSidedAndErrors(t *testing.T) {
 }
 
 func TestSensitivityKeys(t *testing.T) {
-	d := ExampleDesign()
+	d := kinetics.ExampleDesign()
 	k := SensitivityKeys(d)
 	for _, want := range []string{"circuit.charge_voltage", "channel.gap", "gas.pressure", "switch.spark_constant"} {
 		if !slices.Contains(k, want) {
@@ -114,14 +119,14 @@ func TestSensitivityKeys(t *testing.T) {
 
 // TestSensitivityRederivesBuild checks d ln E / d ln L on the board design, whose circuit is
 // derived from its [build] section: the sensitivity must agree with two explicit runs with the
-// length set through Design.Set (which re-derives the rails' inductance), as a user would set
+// length set through kinetics.Design.Set (which re-derives the rails' inductance), as a user would set
 // it. Tolerance 2 %: the same central difference, so only rounding separates them.
 func TestSensitivityRederivesBuild(t *testing.T) {
 	if testing.Short() {
 		t.Skip("runs the model")
 	}
 	t.Parallel()
-	d, err := ParseDesign(data.BoardDesign(), "board.toml")
+	d, err := kinetics.ParseDesign(data.BoardDesign(), "board.toml")
 	if err != nil {
 		t.Fatal(err)
 	}
