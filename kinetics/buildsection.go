@@ -191,8 +191,8 @@ func parseBuilt(flat map[string]any) (*Built, error) {
 			return nil, &KeyError{Key: k, Problem: "missing: every design must give it"}
 		}
 	}
-	if _, ok := flat["gas.nitrogen"]; !ok {
-		d.Gas.Nitrogen = 1 - d.Gas.Oxygen - d.Gas.Helium
+	if err := d.BalanceMixture(keys); err != nil {
+		return nil, err
 	}
 	if _, ok := flat["switch.gap"]; !ok && d.Build.SwitchGap > 0 {
 		d.Switch.Gap = d.Build.SwitchGap

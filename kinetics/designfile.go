@@ -72,13 +72,48 @@ func ParseDesign(b []byte, name string) (*Design, error) {
 			return nil, fmt.Errorf("%s: %w", name, &KeyError{Key: k, Problem: "missing: every design must give it"})
 		}
 	}
-	if _, ok := flat["gas.nitrogen"]; !ok {
-		d.Gas.Nitrogen = 1 - d.Gas.Oxygen - d.Gas.Helium
+	if err := d.BalanceMixture(keys); err != nil {
+		return nil, fmt.Errorf("%s: %w", name, err)
 	}
 	if err := d.Validate(); err != nil {
 		return nil, fmt.Errorf("%s: %w", name, err)
 	}
 	return d, nil
+}
+
+// mixtureKeys are the mole-fraction keys of the gas, nitrogen first.
+var mixtureKeys = []string{"gas.nitrogen", "gas.oxygen", "gas.helium"}
+
+// BalanceMixture applies the one mixture rule after a group of keys was assigned together: the
+// keys of a design file, the --set list of a run, the varied keys of a sweep point. When
+// oxygen or helium is among them and nitrogen is not, nitrogen fills the rest: gas.nitrogen = 1 − gas.oxygen −
+// gas.helium (so --set gas.oxygen=0.21 makes air of a nitrogen design). When nitrogen is among
+// them, the fractions must already sum to one. A sum that does not hold, or oxygen and helium
+// that leave no room for nitrogen, is a *KeyError naming the keys.
+func (d *Design) BalanceMixture(changed []string) error {
+	var named []string
+	for _, k := range mixtureKeys {
+		if slices.Contains(changed, k) {
+			named = append(named, k)
+		}
+	}
+	g := &d.Gas
+	if len(named) == 0 {
+		return nil // the mixture was not touched
+	}
+	if named[0] != "gas.nitrogen" {
+		if n := 1 - g.Oxygen - g.Helium; n > 0 {
+			g.Nitrogen = n
+			return nil
+		}
+		return &KeyError{Key: "gas.oxygen + gas.helium", Value: fmt.Sprintf("%g + %g", g.Oxygen, g.Helium),
+			Problem: "leave no room for nitrogen: their sum must stay below 1 (nitrogen fills the rest)"}
+	}
+	if s := g.Nitrogen + g.Oxygen + g.Helium; math.Abs(s-1) > 1e-6 {
+		return &KeyError{Key: strings.Join(mixtureKeys, " + "), Value: fmt.Sprintf("%g + %g + %g", g.Nitrogen, g.Oxygen, g.Helium),
+			Problem: fmt.Sprintf("mole fractions sum to %g, must sum to 1 (%s given; leave gas.nitrogen out and it fills the rest)", s, strings.Join(named, ", "))}
+	}
+	return nil
 }
 
 // decodeFlat decodes TOML text into dotted keys ("channel.length") and their values; syntax

@@ -38,14 +38,20 @@ func loadDesign(args []string, sets []string) (*kinetics.Design, error) {
 	default:
 		return nil, usagef("takes at most one design file, got %d arguments", len(args))
 	}
+	keys := make([]string, 0, len(sets))
 	for _, s := range sets {
 		key, value, ok := strings.Cut(s, "=")
 		if !ok {
 			return nil, usagef("--set %q: want key=value, e.g. --set gas.pressure=\"40 Torr\"", s)
 		}
-		if err := d.Set(strings.TrimSpace(key), strings.TrimSpace(value)); err != nil {
+		key = strings.TrimSpace(key)
+		if err := d.Set(key, strings.TrimSpace(value)); err != nil {
 			return nil, err
 		}
+		keys = append(keys, key)
+	}
+	if err := d.BalanceMixture(keys); err != nil {
+		return nil, err
 	}
 	if err := d.Validate(); err != nil {
 		return nil, err

@@ -79,33 +79,20 @@ func (s *Sweep) Values(i int) []float64 {
 // PointDesign returns the design of point i.
 func (s *Sweep) PointDesign(i int) (*kinetics.Design, error) {
 	d := s.Design.Clone()
+	keys := make([]string, len(s.Axes))
 	for k, v := range s.Values(i) {
-		if err := d.Set(s.Axes[k].Key, formatNumber(v)); err != nil {
+		keys[k] = s.Axes[k].Key
+		if err := d.Set(keys[k], formatNumber(v)); err != nil {
 			return nil, fmt.Errorf("study: point %d: %w", i, err)
 		}
 	}
-	if s.balanceNitrogen() {
-		d.Gas.Nitrogen = 1 - d.Gas.Oxygen - d.Gas.Helium
+	if err := d.BalanceMixture(keys); err != nil {
+		return nil, fmt.Errorf("study: point %d: %w", i, err)
 	}
 	if err := d.Validate(); err != nil {
 		return nil, fmt.Errorf("study: point %d: %w", i, err)
 	}
 	return d, nil
-}
-
-// balanceNitrogen reports whether nitrogen fills the mixture: oxygen or helium is varied and
-// nitrogen is not, so a point's mole fractions still sum to one.
-func (s *Sweep) balanceNitrogen() bool {
-	other, n2 := false, false
-	for _, a := range s.Axes {
-		switch a.Key {
-		case "gas.oxygen", "gas.helium":
-			other = true
-		case "gas.nitrogen":
-			n2 = true
-		}
-	}
-	return other && !n2
 }
 
 // row builds the table row of a finished point.

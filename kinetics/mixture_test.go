@@ -1,0 +1,61 @@
+package kinetics
+
+import (
+	"errors"
+	"strings"
+	"testing"
+
+	"gonum.org/v1/gonum/floats/scalar"
+)
+
+// TestMixtureRuleDesignFile checks the mixture rule on the design-file path: oxygen given
+// without nitrogen makes nitrogen fill the rest; an explicit sum other than one is an error
+// naming the keys. (Air as 0.79/0.21: common practice, no source.)
+func TestMixtureRuleDesignFile(t *testing.T) {
+	t.Parallel()
+	base := `[channel]
+length = "20 cm"
+gap = "1.5 mm"
+width = "3 mm"
+[circuit]
+topology = "blumlein"
+charge_voltage = "12 kV"
+switch_capacitance = "2 nF"
+channel_capacitance = "2 nF"
+switch_inductance = "10 nH"
+channel_inductance = "2 nH"
+[gas]
+pressure = "760 Torr"
+`
+	d, err := ParseDesign([]byte(base+"oxygen = 0.21\n"), "air.toml")
+	if err != nil {
+		t.Fatal(err)
+	}
+	if !scalar.EqualWithinAbsOrRel(d.Gas.Nitrogen, 0.79, 1e-12, 1e-12) {
+		t.Errorf("nitrogen %g with oxygen 0.21 and no nitrogen given, want 0.79", d.Gas.Nitrogen)
+	}
+	_, err = ParseDesign([]byte(base+"oxygen = 0.21\nnitrogen = 1.0\n"), "bad.toml")
+	var ke *KeyError
+	if !errors.As(err, &ke) || !strings.Contains(ke.Key, "gas.nitrogen") || !strings.Contains(ke.Key, "gas.oxygen") {
+		t.Errorf("nitrogen 1 + oxygen 0.21 given: error %v, want a KeyError naming gas.nitrogen and gas.oxygen", err)
+	}
+}
+
+// TestMixtureRuleBalance checks BalanceMixture directly: untouched mixtures stay as they are,
+// oxygen and helium that leave no room for nitrogen are an error.
+func TestMixtureRuleBalance(t *testing.T) {
+	t.Parallel()
+	d := ExampleDesign()
+	if err := d.BalanceMixture([]string{"gas.pressure"}); err != nil || d.Gas.Nitrogen != 1 {
+		t.Errorf("mixture untouched: nitrogen %g, error %v; want 1, nil", d.Gas.Nitrogen, err)
+	}
+	for _, kv := range [][2]string{{"gas.oxygen", "0.6"}, {"gas.helium", "0.5"}} {
+		if err := d.Set(kv[0], kv[1]); err != nil {
+			t.Fatal(err)
+		}
+	}
+	var ke *KeyError
+	if err := d.BalanceMixture([]string{"gas.oxygen", "gas.helium"}); !errors.As(err, &ke) || !strings.Contains(ke.Key, "gas.helium") {
+		t.Errorf("oxygen 0.6 + helium 0.5: error %v, want a KeyError naming gas.oxygen and gas.helium", err)
+	}
+}
