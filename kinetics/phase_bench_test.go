@@ -43,7 +43,7 @@ func BenchmarkCircuit(b *testing.B) {
 		if err != nil {
 			b.Fatal(err)
 		}
-		accepted += st.CircuitSteps
+		accepted += st.Circuit.Steps
 	}
 	b.ReportMetric(float64(accepted)/b.Elapsed().Seconds(), "steps/s")
 }

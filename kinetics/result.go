@@ -1,5 +1,7 @@
 package kinetics
 
+import "n2pulse/kinetics/ode"
+
 // Summary holds the figures of merit of one shot, in SI. The JSON names are part of the
 // program's interface (`run --json`, sweep tables): scripts rely on them.
 type Summary struct {
@@ -81,9 +83,10 @@ type Parameters struct {
 
 // Stats counts the work of one run.
 type Stats struct {
-	CircuitSteps, CircuitRejected, CircuitEvals int
-	OpticalSteps, Cells                         int   // optical steps propagated (dawn to dark) and cells
-	TableBelow, TableAbove                      int64 // swarm lookups clamped below or above the table
+	Circuit             ode.Stats // the circuit integrator's own counters, every one of them
+	OpticalSteps, Cells int       // optical steps propagated (dawn to dark) and cells
+	TableBelow          int64     // swarm lookups clamped below the table
+	TableAbove          int64     // swarm lookups clamped above the table
 }
 
 // RunSettings tune one run; nil means defaults.

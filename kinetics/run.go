@@ -207,6 +207,5 @@ func solveCircuit(c *circuit, d *Design, par *Parameters, steps int) (*waveforms
 	w.deposited = yEnd[iEPlasma]
 	left := c.storedEnergy(yEnd)
 	w.energyResidual = math.Abs(stored-(left+yEnd[iESwitch]+yEnd[iEPlasma]+yEnd[iEShunt])) / stored
-	st := integ.Stats()
-	return w, Stats{CircuitSteps: st.Steps, CircuitRejected: st.Rejected, CircuitEvals: st.FuncEvals}, nil
+	return w, Stats{Circuit: integ.Stats()}, nil
 }

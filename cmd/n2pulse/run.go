@@ -91,8 +91,8 @@ func runRun(args []string, stdout, stderr io.Writer) error {
 	}
 	if *stats {
 		s := res.Stats
-		fmt.Fprintf(stderr, "circuit: %d steps, %d rejected, %d evaluations; optics: %d steps × %d cells; swarm lookups clamped: %d below, %d above\n",
-			s.CircuitSteps, s.CircuitRejected, s.CircuitEvals, s.OpticalSteps, s.Cells, s.TableBelow, s.TableAbove)
+		fmt.Fprintf(stderr, "circuit: %v; optics: %d steps × %d cells; swarm lookups clamped: %d below, %d above\n",
+			s.Circuit, s.OpticalSteps, s.Cells, s.TableBelow, s.TableAbove)
 	}
 	if *sensitivity {
 		rows, err := study.Sensitivity(d, nil, 0.01)
