@@ -7,6 +7,8 @@ import (
 	"strings"
 	"testing"
 
+	"gonum.org/v1/gonum/floats/scalar"
+
 	"n2pulse/kinetics/build"
 	"n2pulse/units"
 )
@@ -32,7 +34,7 @@ func permittivity(t *testing.T, key string) float64 {
 
 func closeTo(t *testing.T, what string, got, want, rel float64) {
 	t.Helper()
-	if math.Abs(got-want) > rel*math.Abs(want) {
+	if !scalar.EqualWithinAbsOrRel(got, want, 0, rel) {
 		t.Errorf("%s = %.10g, want %.10g (rel %.1g)", what, got, want, rel)
 	}
 }

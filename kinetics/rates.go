@@ -2,6 +2,7 @@ package kinetics
 
 import (
 	"math"
+	"sort"
 
 	"n2pulse/kinetics/swarm"
 )
@@ -94,15 +95,7 @@ func (r *swarmRates) at(en float64, first, last int, v, d *[nRates]float64) {
 	}
 	x := math.Log(en)
 	// The last row i with logx[i] ≤ x, within [0, n−2].
-	i, j := 0, n-1
-	for j-i > 1 {
-		m := int(uint(i+j) >> 1)
-		if r.logx[m] <= x {
-			i = m
-		} else {
-			j = m
-		}
-	}
+	i := max(0, min(sort.Search(n, func(m int) bool { return r.logx[m] > x })-1, n-2))
 	dx := x - r.logx[i]
 	for k := first; k < last; k++ {
 		sl := r.slope[i][k]

@@ -1,6 +1,10 @@
 package kinetics
 
-import "math"
+import (
+	"math"
+
+	"gonum.org/v1/gonum/floats"
+)
 
 // shot advances the populations and photon fluxes of every cell through the optical steps,
 // driven by the sampled discharge, and records waveforms and the gain map.
@@ -416,16 +420,11 @@ func (sh *shot) termination(s *Summary) {
 
 // peak returns the largest value of x and its index.
 func peak(x []float64) (float64, int) {
-	best, at := math.Inf(-1), 0
-	for i, v := range x {
-		if v > best {
-			best, at = v, i
-		}
-	}
 	if len(x) == 0 {
 		return 0, 0
 	}
-	return best, at
+	i := floats.MaxIdx(x)
+	return x[i], i
 }
 
 // crossings returns the fractional indices where x first rises through level and where it

@@ -4,12 +4,14 @@ import (
 	"math"
 	"testing"
 
+	"gonum.org/v1/gonum/floats/scalar"
+
 	"n2pulse/units"
 )
 
 func near(t *testing.T, what string, got, want, rel float64) {
 	t.Helper()
-	if math.Abs(got-want) > rel*math.Abs(want) {
+	if !scalar.EqualWithinAbsOrRel(got, want, 0, rel) {
 		t.Errorf("%s = %.6g, want %.6g (±%.2g %%)", what, got, want, 100*rel)
 	}
 }
