@@ -63,7 +63,9 @@ func TestVerdictOfRuns(t *testing.T) {
 		t.Errorf("example: verdict %+v, summary lases %v", v, r.Summary.Lases)
 	}
 	// A 6 mm gap at 14 kV (under 2× its static breakdown) barely breaks down in the run.
-	d.Set("channel.gap", "6 mm")
+	if err := d.Set("channel.gap", "6 mm"); err != nil {
+		t.Fatal(err)
+	}
 	r, err = Run(d, &RunSettings{Light: true})
 	if err != nil {
 		t.Fatal(err)

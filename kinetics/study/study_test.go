@@ -296,7 +296,9 @@ func TestResumeRefusesAnotherSweep(t *testing.T) {
 	}
 	other = testSweep(t, s.Dir)
 	other.Resume = true
-	other.Design.Set("channel.length", "30 cm")
+	if err := other.Design.Set("channel.length", "30 cm"); err != nil {
+		t.Fatal(err)
+	}
 	if _, err := other.Run(context.Background()); err == nil || !strings.Contains(err.Error(), "channel.length") {
 		t.Errorf("different design: %v", err)
 	}
@@ -347,7 +349,9 @@ func TestShardsMerge(t *testing.T) {
 	}
 	odd := testSweep(t, filepath.Join(root, "odd"))
 	odd.Shard = Shard{K: 3, N: 3}
-	odd.Design.Set("circuit.channel_inductance", "2 nH")
+	if err := odd.Design.Set("circuit.channel_inductance", "2 nH"); err != nil {
+		t.Fatal(err)
+	}
 	if _, err := odd.Run(context.Background()); err != nil {
 		t.Fatal(err)
 	}
