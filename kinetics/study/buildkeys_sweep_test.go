@@ -1,4 +1,4 @@
-package kinetics_test
+package study_test
 
 import (
 	"context"
