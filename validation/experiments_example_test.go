@@ -7,7 +7,7 @@ import (
 )
 
 // The measured variations of the experiment cases, each with the model's curve over the same
-// design key; WriteReport draws one overlay figure per variation.
+// design key; WriteReport has one overlay figure drawn per variation.
 func ExampleVariations() {
 	vars, err := validation.Variations()
 	if err != nil {

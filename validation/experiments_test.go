@@ -122,7 +122,12 @@ func TestWriteReport(t *testing.T) {
 		{ID: "a", Quantity: "x", Computed: 1, Reference: 1, Tolerance: 0.1, Mode: Relative, Kind: Analytic, Source: "test"},
 		{ID: "b", Quantity: "y | z", Computed: 3, Reference: 1, Tolerance: 2, Mode: Factor, Kind: Experiment, Source: "test"},
 	}
-	if err := WriteReport(dir, checks); err != nil {
+	drawn := 0
+	figure := func(path string, v Variation) error {
+		drawn++
+		return os.WriteFile(path, []byte(v.ID), 0o644)
+	}
+	if err := WriteReport(dir, checks, figure); err != nil {
 		t.Fatal(err)
 	}
 	md, err := os.ReadFile(filepath.Join(dir, "checks.md"))
@@ -148,10 +153,15 @@ func TestWriteReport(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
+	if drawn != len(vars) {
+		t.Errorf("%d figures drawn, want one per variation (%d)", drawn, len(vars))
+	}
 	for _, v := range vars {
-		name := "variation-" + strings.ReplaceAll(v.ID, "/", "-") + ".png"
-		if _, err := os.Stat(filepath.Join(dir, name)); err != nil {
+		if _, err := os.Stat(filepath.Join(dir, FigureName(v))); err != nil {
 			t.Errorf("figure missing: %v", err)
+		}
+		if !strings.Contains(string(md), FigureName(v)) {
+			t.Errorf("checks.md does not list %s", FigureName(v))
 		}
 	}
 }

@@ -5,33 +5,34 @@ import (
 	"encoding/csv"
 	"fmt"
 	"math"
-	"n2pulse/internal/atomicfile"
 	"os"
 	"path/filepath"
 	"strings"
 
-	"n2pulse/plots"
+	"n2pulse/internal/atomicfile"
 )
+
+// Figure draws the overlay figure of one variation (model curve against measured points) into
+// the file path. Validation does not draw: the command passes one built on package plots.
+type Figure func(path string, v Variation) error
 
 // WriteReport writes the full validation report into dir (created if needed): checks.md, the
 // table of every check with its source in Markdown, checks.csv, the same table for scripts,
-// and one overlay figure (model curve against measured points) per experimental variation,
+// and, when figure is not nil, one overlay figure per experimental variation,
 // variation-<case>-<id>.png, listed in checks.md. Every file is written to a temporary file
 // and renamed.
-func WriteReport(dir string, checks []Check) error {
+func WriteReport(dir string, checks []Check, figure Figure) error {
 	if err := os.MkdirAll(dir, 0o755); err != nil {
 		return fmt.Errorf("validation: report: %w", err)
 	}
 	vars, verr := Variations()
 	var figs []string
 	for _, v := range vars {
-		name := "variation-" + strings.ReplaceAll(v.ID, "/", "-") + ".png"
-		err := plots.Overlay(filepath.Join(dir, name), plots.OverlayData{
-			Title: v.ID + ": " + v.Title, XLabel: v.XLabel, YLabel: v.YLabel,
-			ModelLabel: "model", ModelX: v.ModelX, ModelY: v.ModelY,
-			MeasuredLbl: "measured", MeasuredX: v.MeasuredX, MeasuredY: v.MeasuredY,
-		})
-		if err != nil {
+		if figure == nil {
+			break
+		}
+		name := FigureName(v)
+		if err := figure(filepath.Join(dir, name), v); err != nil {
 			return fmt.Errorf("validation: report: %w", err)
 		}
 		figs = append(figs, name)
@@ -46,6 +47,11 @@ func WriteReport(dir string, checks []Check) error {
 		return err
 	}
 	return reportWrite(filepath.Join(dir, "checks.csv"), cb.Bytes())
+}
+
+// FigureName is the file name of the overlay figure of variation v in the report.
+func FigureName(v Variation) string {
+	return "variation-" + strings.ReplaceAll(v.ID, "/", "-") + ".png"
 }
 
 // Result returns the word the check table prints: pass, FAIL, or DISCREPANCY for an

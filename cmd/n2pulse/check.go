@@ -6,6 +6,7 @@ import (
 	"math"
 	"text/tabwriter"
 
+	"n2pulse/plots"
 	"n2pulse/validation"
 )
 
@@ -29,7 +30,7 @@ func runCheck(args []string, stdout, stderr io.Writer) error {
 	}
 	checks := validation.RunAll()
 	if *report != "" {
-		if err := validation.WriteReport(*report, checks); err != nil {
+		if err := validation.WriteReport(*report, checks, drawVariation); err != nil {
 			return err
 		}
 	}
@@ -40,6 +41,16 @@ func runCheck(args []string, stdout, stderr io.Writer) error {
 		return errSilent
 	}
 	return nil
+}
+
+// drawVariation draws the report's overlay figure of one experimental variation: the model
+// curve against the measured points.
+func drawVariation(path string, v validation.Variation) error {
+	return plots.Overlay(path, plots.OverlayData{
+		Title: v.ID + ": " + v.Title, XLabel: v.XLabel, YLabel: v.YLabel,
+		ModelLabel: "model", ModelX: v.ModelX, ModelY: v.ModelY,
+		MeasuredLbl: "measured", MeasuredX: v.MeasuredX, MeasuredY: v.MeasuredY,
+	})
 }
 
 // printChecks writes the check table and counts failures and experiment discrepancies.
