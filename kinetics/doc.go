@@ -20,4 +20,14 @@
 //
 // The circuit and discharge do not feel the laser pulse (the energy it carries is a part in
 // 10³ of the stored energy), so they are solved first and sampled on the optical grid.
+//
+// # Package map
+//
+// Each package imports only those to its right (internal/pool and internal/atomicfile serve all):
+//
+//	cmd/n2pulse  → validation, plots, kinetics/study   commands, flags, printing, report figures
+//	validation   → kinetics/study, kinetics            checks against published values and measured lasers
+//	plots, study → kinetics                            figures; many runs: sweep, length scan, sensitivity
+//	kinetics     → swarm, spectro, build, ode          design keys (for now) and one shot: circuit, discharge, populations, ASE, verdict
+//	swarm, spectro, build, ode → units, data           E/N rates | band constants, Franck–Condon, σ | plates, stresses | integrator
 package kinetics
