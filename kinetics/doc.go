@@ -27,7 +27,7 @@
 //
 //	cmd/n2pulse  → validation, plots, kinetics/study   commands, flags, printing, report figures
 //	validation   → kinetics/study, kinetics            checks against published values and measured lasers
-//	plots, study → kinetics                            figures; many runs: sweep, length scan, sensitivity
+//	plots → study → kinetics                           figures | many runs: sweep, length scan, sensitivity
 //	kinetics     → swarm, spectro, build, ode          design keys (for now) and one shot: circuit, discharge, populations, ASE, verdict
 //	swarm, spectro, build, ode → units, data           E/N rates | band constants, Franck–Condon, σ | plates, stresses | integrator
 package kinetics
