@@ -255,16 +255,12 @@ func (d *Design) Bench() (*build.Bench, error) {
 
 func (d *Design) benchConditions() build.Conditions {
 	c := d.Circuit
-	we := d.Channel.ElectrodeWidth
-	if we == 0 {
-		we = d.Channel.Width
-	}
 	cond := build.Conditions{
 		Transfer:           c.Topology == ChargeTransfer,
 		ChargeVoltage:      c.ChargeVoltage,
 		ChannelLength:      d.Channel.Length,
 		ChannelGap:         d.Channel.Gap,
-		GapCapacitance:     units.VacuumPermittivity*d.Channel.Length*we/d.Channel.Gap + d.Channel.StrayCapacitance,
+		GapCapacitance:     gapCapacitance(d.Channel),
 		Pressure:           d.Gas.Pressure,
 		Temperature:        d.Gas.Temperature,
 		Nitrogen:           d.Gas.Nitrogen,
@@ -293,14 +289,19 @@ const fallbackUpperLifetime = 40.8e-9
 // or stimulated emission, 1/(1/τ_C + Σk_q·N) = τ_C/(1 + p/p_q) [s] (Stern–Volmer), with τ_C
 // from spectroscopy.upper_lifetime, else package spectro, else 40.8 ns.
 func (d *Design) EffectiveUpperLifetime() float64 {
-	tau := d.Spectroscopy.UpperLifetime
-	if tau == 0 {
-		tau = fallbackUpperLifetime
-		if lp, err := spectro.Laser(d.Gas.Pressure, d.Gas.Temperature); err == nil && lp.UpperLifetime > 0 {
-			tau = lp.UpperLifetime
-		}
+	return 1 / d.Levels.UpperDecayRate(d.radiativeUpperLifetime(), d.Gas)
+}
+
+// radiativeUpperLifetime is τ_C, the radiative lifetime of C(0) [s]: spectroscopy.upper_lifetime,
+// else package spectro at the design's p and T, else 40.8 ns.
+func (d *Design) radiativeUpperLifetime() float64 {
+	if tau := d.Spectroscopy.UpperLifetime; tau != 0 {
+		return tau
 	}
-	return 1 / d.Levels.UpperDecayRate(tau, d.Gas)
+	if lp, err := spectro.Laser(d.Gas.Pressure, d.Gas.Temperature); err == nil && lp.UpperLifetime > 0 {
+		return lp.UpperLifetime
+	}
+	return fallbackUpperLifetime
 }
 
 // hasBuild reports whether a flattened design has a [build] section: the hook by which

@@ -47,16 +47,23 @@ type circuit struct {
 	below, above int64
 }
 
-func newCircuit(d *Design, table *swarm.Table) *circuit {
-	ch := d.Channel
+// gapCapacitance is the capacitance across the electrodes in parallel with the plasma,
+// C_g = ε₀·L·w_e/d plus the stray capacitance [F]; the electrode face width w_e defaults to the
+// discharge width.
+func gapCapacitance(ch Channel) float64 {
 	we := ch.ElectrodeWidth
 	if we == 0 {
 		we = ch.Width
 	}
+	return units.VacuumPermittivity*ch.Length*we/ch.Gap + ch.StrayCapacitance
+}
+
+func newCircuit(d *Design, table *swarm.Table) *circuit {
+	ch := d.Channel
 	c := &circuit{
 		topo: d.Circuit.Topology,
 		c1:   d.Circuit.SwitchCapacitance, c2: d.Circuit.ChannelCapacitance,
-		cg: units.VacuumPermittivity*ch.Length*we/ch.Gap + ch.StrayCapacitance,
+		cg: gapCapacitance(ch),
 		ls: d.Circuit.SwitchInductance, lc: d.Circuit.ChannelInductance,
 		lsh: d.Circuit.ShuntInductance, rsh: d.Circuit.ShuntResistance,
 		sw:      d.Switch,

@@ -82,7 +82,7 @@ func limitingCause(d *Design, r *Result, gl float64) (cause, advice string) {
 	}
 	g := d.Gas
 	n := gasDensity(g)
-	tauC := 1 / (1/tauEff - n*(g.Nitrogen*d.Levels.UpperQuenchingNitrogen+g.Oxygen*d.Levels.UpperQuenchingOxygen+g.Helium*d.Levels.UpperQuenchingHelium))
+	tauC := d.radiativeUpperLifetime()
 	oxShare := g.Oxygen * d.Levels.UpperQuenchingOxygen * n * tauEff
 	if oxShare > 0.5 {
 		return fmt.Sprintf("oxygen quenching: O₂ removes %.0f %% of C(0), whose lifetime falls to %s", 100*oxShare, units.Format(tauEff, "s")),
