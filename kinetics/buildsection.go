@@ -6,7 +6,6 @@ import (
 	"math"
 	"slices"
 	"sort"
-	"strconv"
 	"strings"
 
 	"n2pulse/kinetics/build"
@@ -77,17 +76,7 @@ var buildIndex = func() map[string]*buildField {
 func setBuild(s *build.Spec, key string, v any) error {
 	f := buildIndex[key]
 	if f == nil {
-		best, bestD := "", 1<<30
-		for _, g := range buildFields {
-			if d := editDistance(key, g.key); d < bestD {
-				best, bestD = g.key, d
-			}
-		}
-		p := "unknown key"
-		if bestD <= 4 {
-			p += fmt.Sprintf(" (did you mean %s?)", best)
-		}
-		return &KeyError{Key: key, Problem: p}
+		return &KeyError{Key: key, Problem: "unknown key" + suggest(key)}
 	}
 	if on, isBool := v.(bool); isBool && key == "build.fringe_correction" {
 		*f.str(s) = string(build.NoFringe)
@@ -101,13 +90,12 @@ func setBuild(s *build.Spec, key string, v any) error {
 		if !ok {
 			return &KeyError{Key: key, Value: fmt.Sprint(v), Problem: "want text in quotes"}
 		}
-		for _, c := range f.choices() {
-			if strings.EqualFold(t, c) {
-				*f.str(s) = c
-				return nil
-			}
+		c, err := choose(key, t, f.choices())
+		if err != nil {
+			return err
 		}
-		return &KeyError{Key: key, Value: strconv.Quote(t), Problem: "allowed: " + strings.Join(f.choices(), ", ")}
+		*f.str(s) = c
+		return nil
 	}
 	var x float64
 	given := fmt.Sprint(v)

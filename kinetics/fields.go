@@ -257,16 +257,25 @@ func (f *field) setNumber(d *Design, v float64, given string) error {
 
 func (f *field) setString(d *Design, v string) error {
 	if len(f.choices) > 0 {
-		for _, c := range f.choices {
-			if v == c {
-				*f.str(d) = v
-				return nil
-			}
+		c, err := choose(f.key, v, f.choices)
+		if err != nil {
+			return err
 		}
-		return &KeyError{Key: f.key, Value: strconv.Quote(v), Problem: "allowed: " + strings.Join(f.choices, ", ")}
+		v = c
 	}
 	*f.str(d) = v
 	return nil
+}
+
+// choose is the one rule for keys with a fixed set of values, design and [build] keys alike:
+// the value matches a choice regardless of case, and the choice is kept as listed.
+func choose(key, v string, choices []string) (string, error) {
+	for _, c := range choices {
+		if strings.EqualFold(strings.TrimSpace(v), c) {
+			return c, nil
+		}
+	}
+	return "", &KeyError{Key: key, Value: strconv.Quote(v), Problem: "allowed: " + strings.Join(choices, ", ")}
 }
 
 func (f *field) rangeText() string {
@@ -285,6 +294,8 @@ func (f *field) rangeText() string {
 	return s
 }
 
+// suggest is the one "did you mean" of the key registry, design and [build] keys alike: the
+// nearest known key within four edits, or "".
 func suggest(key string) string {
 	best, bestD := "", 1<<30
 	for _, k := range Keys() {
