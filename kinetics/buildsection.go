@@ -174,7 +174,7 @@ func parseBuilt(flat map[string]any) (*Built, error) {
 			return nil, err
 		}
 	}
-	for _, k := range []string{"channel.length", "channel.gap", "channel.width", "gas.pressure", "circuit.topology", "circuit.charge_voltage"} {
+	for _, k := range requiredKeys {
 		if _, ok := flat[k]; !ok {
 			return nil, &KeyError{Key: k, Problem: "missing: every design must give it"}
 		}

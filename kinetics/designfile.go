@@ -18,11 +18,11 @@ import (
 )
 
 // requiredKeys must appear in every design file: the defaults cover only published constants
-// and numerics, never the apparatus.
+// and numerics, never the apparatus. The circuit values (the keys of derivable) are required
+// too, unless a [build] section describes the plates they come from.
 var requiredKeys = []string{
 	"channel.length", "channel.gap", "channel.width", "gas.pressure",
-	"circuit.topology", "circuit.charge_voltage", "circuit.switch_capacitance",
-	"circuit.channel_capacitance", "circuit.switch_inductance", "circuit.channel_inductance",
+	"circuit.topology", "circuit.charge_voltage",
 }
 
 // LoadDesign reads and checks a design file.
@@ -70,6 +70,11 @@ func ParseDesign(b []byte, name string) (*Design, error) {
 	for _, k := range requiredKeys {
 		if _, ok := flat[k]; !ok {
 			return nil, fmt.Errorf("%s: %w", name, &KeyError{Key: k, Problem: "missing: every design must give it"})
+		}
+	}
+	for _, x := range derivable {
+		if _, ok := flat[x.key]; !ok {
+			return nil, fmt.Errorf("%s: %w", name, &KeyError{Key: x.key, Problem: "missing: every design must give it"})
 		}
 	}
 	if err := d.BalanceMixture(keys); err != nil {
