@@ -41,6 +41,7 @@ func closeTo(t *testing.T, what string, got, want, rel float64) {
 
 // The board design keeps its [build] section: the values as given, in SI.
 func TestDesignKeepsBuild(t *testing.T) {
+	t.Parallel()
 	d := parseBoard(t, boardDesign)
 	if d.Build.SwitchPlateWidth != 0.25 || d.Build.DielectricThickness != 1.6e-3 || d.Build.Dielectric != "fr4" {
 		t.Errorf("build %+v", d.Build)
@@ -63,6 +64,7 @@ func TestDesignKeepsBuild(t *testing.T) {
 // memory), as in package build's worked examples; the edge-fed loop L'·l/3 is checked there
 // against the integral of ½L'I².
 func TestSetBuildPlateWidthScales(t *testing.T) {
+	t.Parallel()
 	base := parseBoard(t, boardDesign)
 	c2, lc := base.Circuit.ChannelCapacitance, base.Circuit.ChannelInductance
 	eps := permittivity(t, "fr4") // the design's dielectric preset
@@ -94,6 +96,7 @@ func TestSetBuildPlateWidthScales(t *testing.T) {
 
 // The dielectric thickness enters both capacitances as 1/d and the plate loops as d.
 func TestSetBuildThickness(t *testing.T) {
+	t.Parallel()
 	d := parseBoard(t, boardDesign)
 	c1, c2 := d.Circuit.SwitchCapacitance, d.Circuit.ChannelCapacitance
 	if err := d.Set("build.dielectric_thickness", "0.8 mm"); err != nil {
@@ -113,6 +116,7 @@ func TestSetBuildThickness(t *testing.T) {
 
 // Explicit circuit values win over the build; setting a derived key makes it explicit.
 func TestSetBuildExplicitWins(t *testing.T) {
+	t.Parallel()
 	text := strings.Replace(boardDesign, `shunt_inductance = "1 uH"`, `shunt_inductance = "1 uH"`+"\nswitch_inductance = \"20 nH\"", 1)
 	d := parseBoard(t, text)
 	if err := d.Set("build.switch_plate_width", "10 cm"); err != nil {
@@ -143,6 +147,7 @@ func TestSetBuildExplicitWins(t *testing.T) {
 // The rails default to the channel's length and gap: a longer channel lowers the rail loop
 // μ₀·g·h/L of the derived channel inductance.
 func TestSetChannelLengthRederivesRails(t *testing.T) {
+	t.Parallel()
 	d := parseBoard(t, boardDesign)
 	plate := units.VacuumPermeability * 1.6e-3 * 0.15 / (3 * 0.25)
 	if err := d.Set("channel.length", "50 cm"); err != nil {
@@ -157,6 +162,7 @@ func TestSetChannelLengthRederivesRails(t *testing.T) {
 
 // switch.gap follows build.switch_gap unless the design gives it.
 func TestSetBuildSwitchGap(t *testing.T) {
+	t.Parallel()
 	d := parseBoard(t, boardDesign)
 	if err := d.Set("build.switch_gap", "4 mm"); err != nil {
 		t.Fatal(err)
@@ -178,6 +184,7 @@ func TestSetBuildSwitchGap(t *testing.T) {
 // A design without [build] takes build keys one at a time; until the build is consistent
 // Validate names what is missing, and the explicit circuit values stay.
 func TestSetBuildOnPlainDesign(t *testing.T) {
+	t.Parallel()
 	d := ExampleDesign()
 	c1 := d.Circuit.SwitchCapacitance
 	if err := d.Set("build.dielectric", "fr4"); err != nil {
@@ -205,6 +212,7 @@ func TestSetBuildOnPlainDesign(t *testing.T) {
 }
 
 func TestSetBuildErrors(t *testing.T) {
+	t.Parallel()
 	d := parseBoard(t, boardDesign)
 	cases := []struct{ key, value, says string }{
 		{"build.rail_hieght", "5 mm", "did you mean build.rail_height"},
@@ -237,6 +245,7 @@ func TestSetBuildErrors(t *testing.T) {
 }
 
 func TestBuildKeysListed(t *testing.T) {
+	t.Parallel()
 	keys := Keys()
 	for _, k := range BuildKeys() {
 		if !slices.Contains(keys, k) {

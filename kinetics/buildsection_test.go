@@ -18,6 +18,7 @@ var boardDesign = strings.NewReplacer(
 ).Replace(string(data.BoardDesign()))
 
 func TestParseBuiltDesignDerives(t *testing.T) {
+	t.Parallel()
 	b, err := ParseBuiltDesign([]byte(boardDesign), "board.toml")
 	if err != nil {
 		t.Fatal(err)
@@ -50,6 +51,7 @@ func TestParseBuiltDesignDerives(t *testing.T) {
 }
 
 func TestParseBuiltDesignExplicitWins(t *testing.T) {
+	t.Parallel()
 	text := strings.Replace(boardDesign, `shunt_inductance = "1 uH"`, `shunt_inductance = "1 uH"`+"\nswitch_inductance = \"20 nH\"", 1)
 	b, err := ParseBuiltDesign([]byte(text), "board.toml")
 	if err != nil {
@@ -64,6 +66,7 @@ func TestParseBuiltDesignExplicitWins(t *testing.T) {
 }
 
 func TestParseBuiltDesignErrors(t *testing.T) {
+	t.Parallel()
 	cases := []struct{ old, new, key, says string }{
 		{`rail_height = "5 mm"`, `rail_hieght = "5 mm"`, "build.rail_hieght", "did you mean build.rail_height"},
 		{`dielectric_thickness = "1.6 mm"`, `dielectric_thickness = "-1 mm"`, "build.dielectric_thickness", "out of range"},
@@ -81,6 +84,7 @@ func TestParseBuiltDesignErrors(t *testing.T) {
 }
 
 func TestBenchOfExample(t *testing.T) {
+	t.Parallel()
 	d := ExampleDesign()
 	b, err := d.Bench()
 	if err != nil {
@@ -106,6 +110,7 @@ func TestBenchOfExample(t *testing.T) {
 }
 
 func TestEffectiveUpperLifetime(t *testing.T) {
+	t.Parallel()
 	d := ExampleDesign()
 	d.Spectroscopy.UpperLifetime = 40e-9
 	// Stern–Volmer (analytic): 1/τ_eff = 1/τ_C + k_q·N, N = p/(k_B·T).
@@ -122,12 +127,14 @@ func TestEffectiveUpperLifetime(t *testing.T) {
 }
 
 func TestHasBuild(t *testing.T) {
+	t.Parallel()
 	if hasBuild(map[string]any{"channel.length": 0.2}) || !hasBuild(map[string]any{"build.rail_height": "5 mm"}) {
 		t.Error("hasBuild misreads the section")
 	}
 }
 
 func TestFringeCorrectionKey(t *testing.T) {
+	t.Parallel()
 	for _, v := range []string{"true", `"palmer"`, `"Palmer"`} {
 		b, err := ParseBuiltDesign([]byte(boardDesign+"fringe_correction = "+v+"\n"), "board.toml")
 		if err != nil {

@@ -51,6 +51,7 @@ func seriesRLC(v0, l, c, r, t float64) (i, v float64) {
 }
 
 func TestCircuitSeriesRLC(t *testing.T) {
+	t.Parallel()
 	const v0, l, r = 10e3, 20e-9, 0.5
 	for _, tc := range []struct {
 		topo   Topology
@@ -84,6 +85,7 @@ func TestCircuitSeriesRLC(t *testing.T) {
 // current zero C_p holds 4·C_s·C_p/(C_s+C_p)² of the stored energy (textbook result, e.g.
 // Mesyats, Pulsed Power, Springer 2005, ch. 1; common practice).
 func TestTransferEfficiency(t *testing.T) {
+	t.Parallel()
 	for _, ratio := range []float64{1, 0.5, 0.25} {
 		cs, cp := 4e-9, 4e-9*ratio
 		c := testCircuit(ChargeTransfer, cs, cp, 15e-9, 0)
@@ -102,6 +104,7 @@ func TestTransferEfficiency(t *testing.T) {
 // TestCircuitEnergyBalance: with a resistive load and a lossy switch, stored energy equals
 // what remains plus what was dissipated (conservation; exact for the circuit equations).
 func TestCircuitEnergyBalance(t *testing.T) {
+	t.Parallel()
 	for _, topo := range []Topology{Blumlein, ChargeTransfer} {
 		c := testCircuit(topo, 3e-9, 2e-9, 10e-9, 0.3)
 		c.cg, c.lc, c.conductance = 20e-12, 3e-9, 1/2.0

@@ -8,6 +8,7 @@ import (
 )
 
 func TestExampleDesign(t *testing.T) {
+	t.Parallel()
 	d := ExampleDesign()
 	if d.Channel.Length != 0.2 || d.Circuit.ChargeVoltage != 14e3 || d.Circuit.Topology != Blumlein {
 		t.Fatalf("example decoded wrong: %+v", d.Circuit)
@@ -21,6 +22,7 @@ func TestExampleDesign(t *testing.T) {
 }
 
 func TestDesignErrors(t *testing.T) {
+	t.Parallel()
 	base := `[channel]
 length = "20 cm"
 gap = "2 mm"
@@ -62,6 +64,7 @@ channel_inductance = "2 nH"
 }
 
 func TestSet(t *testing.T) {
+	t.Parallel()
 	d := ExampleDesign()
 	if err := d.Set("gas.pressure", "40 Torr"); err != nil {
 		t.Fatal(err)

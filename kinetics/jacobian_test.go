@@ -69,6 +69,7 @@ func trajectory(t *testing.T, d *Design) (*circuit, [][]float64, []float64) {
 // whole matrix with the shared helper of package ode, and entry by entry, each row on the
 // scale of its largest term.
 func TestCircuitJacobian(t *testing.T) {
+	t.Parallel()
 	for name, d := range jacobianCases(t) {
 		c, ys, times := trajectory(t, d)
 		// Each state and its mirror image, every voltage and current reversed (the channel
@@ -137,6 +138,7 @@ func TestCircuitJacobian(t *testing.T) {
 // The circuit test systems (a fixed conductance for the plasma) have the same Jacobian as
 // their differences.
 func TestFixedCircuitJacobian(t *testing.T) {
+	t.Parallel()
 	for _, topo := range []Topology{Blumlein, ChargeTransfer} {
 		c := testCircuit(topo, 3e-9, 2e-9, 10e-9, 0.3)
 		c.cg, c.lc, c.conductance, c.lsh, c.rsh = 20e-12, 3e-9, 0.5, 1e-6, 40

@@ -10,6 +10,7 @@ import (
 // swarmRates returns what swarm.Table.At returns, bit for bit, across and outside the
 // shipped tables, and its derivatives match central differences of the interpolation.
 func TestSwarmRates(t *testing.T) {
+	t.Parallel()
 	for _, name := range []string{"n2", "air"} {
 		tb, err := swarm.Builtin(name)
 		if err != nil {

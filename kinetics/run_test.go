@@ -8,6 +8,7 @@ import (
 // TestRunConservation: on the example design the circuit's energy balance closes to 1e-4 of
 // the stored energy and the photon balance to 1e-3 (conservation; the tolerances).
 func TestRunConservation(t *testing.T) {
+	t.Parallel()
 	r, err := Run(ExampleDesign(), nil)
 	if err != nil {
 		t.Fatal(err)
@@ -32,6 +33,7 @@ func TestRunConservation(t *testing.T) {
 // TestRunConvergence: refining the optical grid from N to 2N cells changes the energy by
 // less than 1 % and the FWHM by less than 2 % on the example design (the criterion).
 func TestRunConvergence(t *testing.T) {
+	t.Parallel()
 	d := ExampleDesign()
 	var e, w []float64
 	for _, n := range []int{d.Numerics.Cells, 2 * d.Numerics.Cells} {
@@ -58,6 +60,7 @@ func TestRunConvergence(t *testing.T) {
 // 1992 as quoted in air-plasma mechanism files; p_q derived), so at 760 Torr
 // τ_eff = τ_C/(1 + 760/74.5).
 func TestSternVolmer(t *testing.T) {
+	t.Parallel()
 	d := ExampleDesign()
 	d.Gas.Temperature = 293
 	d.Spectroscopy.UpperLifetime = 40.8e-9
@@ -91,6 +94,7 @@ func TestSternVolmer(t *testing.T) {
 
 // TestRunWarnsWhenCutShort: a run that ends mid-pulse says so.
 func TestRunWarnsWhenCutShort(t *testing.T) {
+	t.Parallel()
 	d := ExampleDesign()
 	d.Numerics.EndTime = 12.5e-9
 	r, err := Run(d, &RunSettings{Light: true})
@@ -112,6 +116,7 @@ func TestRunWarnsWhenCutShort(t *testing.T) {
 // TestApertureSolidAngle: the on-axis solid angle of a disc, 2π(1 − L/√(L²+r²)) (textbook
 // geometry), tends to A/L² far away and to 2π close up.
 func TestApertureSolidAngle(t *testing.T) {
+	t.Parallel()
 	a := 4.5e-6
 	if got, want := apertureSolidAngle(a, 0.2), a/0.04; math.Abs(got/want-1) > 1e-4 {
 		t.Errorf("long channel: %g sr, want A/L² = %g sr", got, want)

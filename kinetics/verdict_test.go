@@ -14,6 +14,7 @@ func shotSummary(g, dur, gl float64) *Result {
 }
 
 func TestVerdictBranches(t *testing.T) {
+	t.Parallel()
 	cases := []struct {
 		name   string
 		set    []string
@@ -51,6 +52,7 @@ func TestVerdictBranches(t *testing.T) {
 }
 
 func TestVerdictOfRuns(t *testing.T) {
+	t.Parallel()
 	if testing.Short() {
 		t.Skip("runs the model")
 	}

@@ -5,6 +5,7 @@ import "testing"
 // TestRegistry runs every registered check; a unit check that misses its reference fails the
 // test. Experiment cases report a discrepancy without failing (see `n2pulse check --strict`).
 func TestRegistry(t *testing.T) {
+	t.Parallel()
 	checks := RunAll()
 	if len(checks) == 0 {
 		t.Fatal("registry is empty")
@@ -23,6 +24,7 @@ func TestRegistry(t *testing.T) {
 }
 
 func TestPassModes(t *testing.T) {
+	t.Parallel()
 	cases := []struct {
 		c    Check
 		want bool
