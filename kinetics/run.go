@@ -1,11 +1,10 @@
 package kinetics
 
 import (
-	"errors"
 	"fmt"
 	"math"
 
-	"n2pulse/kinetics/ode"
+	"n2pulse/kinetics/design"
 	"n2pulse/kinetics/spectro"
 	"n2pulse/units"
 )
@@ -13,7 +12,7 @@ import (
 // Run simulates one shot of the design and returns the waveforms and figures of merit.
 // Errors name what failed: a design value out of range, a swarm table that cannot be read,
 // or an integration that did not converge.
-func Run(d *Design, s *RunSettings) (*Result, error) {
+func Run(d *design.Design, s *RunSettings) (*Result, error) {
 	if s == nil {
 		s = &RunSettings{}
 	}
@@ -84,7 +83,7 @@ func Run(d *Design, s *RunSettings) (*Result, error) {
 
 // laserParameters takes σ, g_C/g_B, A₀₀, τ_C, f_C, f_B and λ from package spectro for the
 // design's pressure and temperature, then applies the design's overrides.
-func laserParameters(d *Design) (Parameters, []string, error) {
+func laserParameters(d *design.Design) (Parameters, []string, error) {
 	lp, err := spectro.Laser(d.Gas.Pressure, d.Gas.Temperature)
 	if err != nil {
 		return Parameters{}, nil, fmt.Errorf("kinetics: spectroscopy: %w", err)
@@ -115,97 +114,12 @@ func laserParameters(d *Design) (Parameters, []string, error) {
 		}
 	}
 	if p.EinsteinA00*p.UpperLifetime > 1 {
-		return p, over, &KeyError{Key: "spectroscopy.einstein_a00", Value: fmt.Sprintf("%g s⁻¹", p.EinsteinA00),
+		return p, over, &design.KeyError{Key: "spectroscopy.einstein_a00", Value: fmt.Sprintf("%g s⁻¹", p.EinsteinA00),
 			Problem: fmt.Sprintf("A₀₀ exceeds the total radiative rate 1/τ_C = %g s⁻¹", 1/p.UpperLifetime)}
 	}
 	p.PhotonEnergy = units.Planck * units.SpeedOfLight / p.Wavelength
 	p.GasDensity = gasDensity(d.Gas)
-	p.UpperDecayRate = d.Levels.UpperDecayRate(p.UpperLifetime, d.Gas)
-	p.LowerDecayRate = d.Levels.LowerDecayRate(d.Gas)
+	p.UpperDecayRate = upperDecayRate(d.Levels, p.UpperLifetime, d.Gas)
+	p.LowerDecayRate = lowerDecayRate(d.Levels, d.Gas)
 	return p, over, nil
-}
-
-// waveforms are the circuit and discharge quantities sampled at the middle of every optical
-// step, (k+½)·Δt.
-type waveforms struct {
-	voltage, current, field, density []float64 // V_ch [V], channel current [A], E/N [V m²], n_e [m⁻³]
-	pumpC, pumpB                     []float64 // excitation rates into C(0) and B(0) [m⁻³ s⁻¹]
-	stored, deposited                float64   // [J]
-	energyResidual                   float64
-	peakField, peakCurrent           float64
-	peakDensity                      float64
-	fieldAbove                       bool
-}
-
-// solveCircuit integrates the circuit and discharge from closure to steps·dt and samples them.
-func solveCircuit(c *circuit, d *Design, par *Parameters, steps int) (*waveforms, Stats, error) {
-	dt := par.TimeStep
-	y0, stored := c.initial(d.Circuit.ChargeVoltage, d.Discharge.SeedDensity)
-	v0 := d.Circuit.ChargeVoltage
-	iScale := v0 / math.Sqrt(math.Max(d.Circuit.SwitchInductance, d.Circuit.ChannelInductance)/
-		math.Min(d.Circuit.SwitchCapacitance, d.Circuit.ChannelCapacitance))
-	atol := make([]float64, nState)
-	for _, i := range []int{iV1, iV2, iVg} {
-		atol[i] = 1e-7 * v0
-	}
-	for _, i := range []int{iIs, iIc, iIsh} {
-		atol[i] = 1e-7 * iScale
-	}
-	atol[iLnNe] = 1e-7
-	atol[iQ] = 1e-7 * iScale * iScale * 1e-9
-	for _, i := range []int{iESwitch, iEPlasma, iEShunt} {
-		atol[i] = 1e-9 * stored
-	}
-	integ := ode.NewRosenbrock(nil)
-	end := float64(steps) * dt
-	set := &ode.Settings{RelTol: d.Numerics.Tolerance, AbsTol: atol, MaxStep: end / 50, MaxSteps: 200000, Stops: []float64{end}}
-	if err := integ.Init(c, 0, y0, set); err != nil {
-		return nil, Stats{}, fmt.Errorf("kinetics: circuit: %w", err)
-	}
-	w := &waveforms{
-		voltage: make([]float64, steps), current: make([]float64, steps),
-		field: make([]float64, steps), density: make([]float64, steps),
-		pumpC: make([]float64, steps), pumpB: make([]float64, steps),
-		stored: stored,
-	}
-	_, hi := c.table.Range()
-	nX := c.density * d.Gas.Nitrogen
-	shareC, shareB := par.UpperShare*nX, par.LowerShare*nX
-	y := make([]float64, nState)
-	k := 0
-	for k < steps {
-		t, err := integ.Step()
-		if err != nil {
-			var se *ode.StepError
-			if errors.As(err, &se) {
-				return nil, Stats{}, fmt.Errorf("kinetics: circuit did not converge (tighten or loosen numerics.tolerance, check the circuit values): %w", err)
-			}
-			return nil, Stats{}, fmt.Errorf("kinetics: circuit: %w", err)
-		}
-		for ; k < steps && (float64(k)+0.5)*dt <= t; k++ {
-			tk := (float64(k) + 0.5) * dt
-			if err := integ.Interpolate(tk, y); err != nil {
-				return nil, Stats{}, fmt.Errorf("kinetics: circuit: %w", err)
-			}
-			ne := math.Exp(y[iLnNe])
-			kB, kC := c.pumpRates(y[iVg])
-			w.voltage[k] = y[iVg]
-			w.current[k] = y[iIc]
-			w.field[k] = c.reducedField(y[iVg])
-			w.density[k] = ne
-			w.pumpC[k] = kC * ne * shareC
-			w.pumpB[k] = kB * ne * shareB
-			w.peakField = math.Max(w.peakField, w.field[k])
-			w.peakCurrent = math.Max(w.peakCurrent, math.Abs(y[iIc]))
-			w.peakDensity = math.Max(w.peakDensity, ne)
-			if w.field[k] > hi {
-				w.fieldAbove = true
-			}
-		}
-	}
-	_, yEnd := integ.State()
-	w.deposited = yEnd[iEPlasma]
-	left := c.storedEnergy(yEnd)
-	w.energyResidual = math.Abs(stored-(left+yEnd[iESwitch]+yEnd[iEPlasma]+yEnd[iEShunt])) / stored
-	return w, Stats{Circuit: integ.Stats()}, nil
 }
