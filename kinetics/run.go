@@ -5,6 +5,7 @@ import (
 	"fmt"
 	"math"
 
+	"n2pulse/kinetics/design"
 	"n2pulse/kinetics/ode"
 	"n2pulse/kinetics/spectro"
 	"n2pulse/kinetics/swarm"
@@ -14,7 +15,7 @@ import (
 // Run simulates one shot of the design and returns the waveforms and figures of merit.
 // Errors name what failed: a design value out of range, a swarm table that cannot be read,
 // or an integration that did not converge.
-func Run(d *Design, s *RunSettings) (*Result, error) {
+func Run(d *design.Design, s *RunSettings) (*Result, error) {
 	if s == nil {
 		s = &RunSettings{}
 	}
@@ -111,7 +112,7 @@ func checkPumpBound(s *Summary) error {
 
 // laserParameters takes σ, g_C/g_B, A₀₀, τ_C, f_C, f_B and λ from package spectro for the
 // design's pressure and temperature, then applies the design's overrides.
-func laserParameters(d *Design) (Parameters, []string, error) {
+func laserParameters(d *design.Design) (Parameters, []string, error) {
 	lp, err := spectro.Laser(d.Gas.Pressure, d.Gas.Temperature)
 	if err != nil {
 		return Parameters{}, nil, fmt.Errorf("kinetics: spectroscopy: %w", err)
@@ -143,13 +144,13 @@ func laserParameters(d *Design) (Parameters, []string, error) {
 		}
 	}
 	if p.EinsteinA00*p.UpperLifetime > 1 {
-		return p, over, &KeyError{Key: "spectroscopy.einstein_a00", Value: fmt.Sprintf("%g s⁻¹", p.EinsteinA00),
+		return p, over, &design.KeyError{Key: "spectroscopy.einstein_a00", Value: fmt.Sprintf("%g s⁻¹", p.EinsteinA00),
 			Problem: fmt.Sprintf("A₀₀ exceeds the total radiative rate 1/τ_C = %g s⁻¹", 1/p.UpperLifetime)}
 	}
 	p.PhotonEnergy = units.Planck * units.SpeedOfLight / p.Wavelength
 	p.GasDensity = gasDensity(d.Gas)
-	p.UpperDecayRate = d.Levels.UpperDecayRate(p.UpperLifetime, d.Gas)
-	p.LowerDecayRate = d.Levels.LowerDecayRate(d.Gas)
+	p.UpperDecayRate = upperDecayRate(d.Levels, p.UpperLifetime, d.Gas)
+	p.LowerDecayRate = lowerDecayRate(d.Levels, d.Gas)
 	return p, over, nil
 }
 
@@ -170,7 +171,7 @@ type waveforms struct {
 }
 
 // solveCircuit integrates the circuit and discharge from closure to steps·dt and samples them.
-func solveCircuit(c *circuit, d *Design, par *Parameters, steps int) (*waveforms, Stats, error) {
+func solveCircuit(c *circuit, d *design.Design, par *Parameters, steps int) (*waveforms, Stats, error) {
 	dt := par.TimeStep
 	y0, stored := c.initial(d.Circuit.ChargeVoltage, d.Discharge.SeedDensity)
 	v0 := d.Circuit.ChargeVoltage
