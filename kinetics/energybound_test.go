@@ -5,6 +5,8 @@ import (
 	"testing"
 
 	"gonum.org/v1/gonum/floats/scalar"
+
+	"n2pulse/kinetics/design"
 )
 
 // TestApertureClippedIssue16 (issue 16 case 1): an optical aperture of 1e-2 m² on the example
@@ -14,11 +16,11 @@ import (
 // names the key, and the pulse energy stays below one photon per C(0) excitation.
 func TestApertureClippedIssue16(t *testing.T) {
 	t.Parallel()
-	ref, err := Run(ExampleDesign(), &RunSettings{Light: true})
+	ref, err := Run(design.ExampleDesign(), &RunSettings{Light: true})
 	if err != nil {
 		t.Fatal(err)
 	}
-	d := ExampleDesign()
+	d := design.ExampleDesign()
 	if err := d.Set("channel.aperture", "1e-2"); err != nil {
 		t.Fatal(err)
 	}
@@ -49,7 +51,7 @@ func TestApertureClippedIssue16(t *testing.T) {
 // (the optics see part of the excited volume) and gives less energy, still within the bound.
 func TestApertureSmallerScales(t *testing.T) {
 	t.Parallel()
-	d := ExampleDesign()
+	d := design.ExampleDesign()
 	if err := d.Set("channel.aperture", "1 mm^2"); err != nil {
 		t.Fatal(err)
 	}
@@ -77,7 +79,7 @@ func TestPumpBoundEveryExcitation(t *testing.T) {
 		{"optics.excitation_velocity", "1e7"},
 		{"optics.rear_reflectivity", "0.99"},
 	} {
-		d := ExampleDesign()
+		d := design.ExampleDesign()
 		if err := d.Set(set[0], set[1]); err != nil {
 			t.Fatal(err)
 		}
