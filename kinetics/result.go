@@ -34,14 +34,20 @@ type Summary struct {
 	SpecificEnergy          float64       `json:"specific_energy_J_m3"`      // energy into the plasma per discharge volume L·w·d [J/m³]
 	EnergyPerMolecule       float64       `json:"energy_per_molecule_eV"`    // energy into the plasma per gas molecule in the discharge volume [eV]
 	Energy                  EnergyAccount `json:"energy_account"`            // where the stored energy went
-	EnergyBalanceResidual   float64       `json:"energy_balance_residual"`   // |stored − (left + dissipated)| / stored
-	PhotonBalanceResidual   float64       `json:"photon_balance_residual"`   // |created − (emitted + lost + left)| / created
-	Lases                   bool          `json:"lases"`                     // net gain-length at or above the threshold of amplified spontaneous emission (see Verdict)
-	Verdict                 string        `json:"verdict"`                   // one line: lases, or the limiting cause
-	Advice                  string        `json:"advice,omitempty"`          // what to change when it does not lase, naming design keys
-	StimulatedRatio         float64       `json:"stimulated_to_spontaneous"` // photons from stimulated emission per spontaneous seed photon
-	Derived                 []string      `json:"derived,omitempty"`         // circuit keys computed from the [build] section
-	Overridden              []string      `json:"overridden,omitempty"`      // spectroscopic values taken from the design, not computed
+	// EndTime is how long after closure the shot was followed: numerics.end_time, or up to
+	// 16 times that (at most 10 µs) when the pulse outlasted it [s].
+	EndTime float64 `json:"end_time_s"`
+	// Truncated is set when the output, the gain or the discharge was still going at EndTime,
+	// the longest a run may take: energies and widths are then cut short.
+	Truncated             bool     `json:"truncated"`
+	EnergyBalanceResidual float64  `json:"energy_balance_residual"`   // |stored − (left + dissipated)| / stored
+	PhotonBalanceResidual float64  `json:"photon_balance_residual"`   // |created − (emitted + lost + left)| / created
+	Lases                 bool     `json:"lases"`                     // net gain-length at or above the threshold of amplified spontaneous emission (see Verdict)
+	Verdict               string   `json:"verdict"`                   // one line: lases, or the limiting cause
+	Advice                string   `json:"advice,omitempty"`          // what to change when it does not lase, naming design keys
+	StimulatedRatio       float64  `json:"stimulated_to_spontaneous"` // photons from stimulated emission per spontaneous seed photon
+	Derived               []string `json:"derived,omitempty"`         // circuit keys computed from the [build] section
+	Overridden            []string `json:"overridden,omitempty"`      // spectroscopic values taken from the design, not computed
 }
 
 // EnergyAccount says where the stored energy of a shot went [J]: the switch, the shunt, the
