@@ -33,6 +33,7 @@ type Summary struct {
 	StimulatedRatio       float64  `json:"stimulated_to_spontaneous"` // photons from stimulated emission per spontaneous seed photon
 	Derived               []string `json:"derived,omitempty"`         // circuit keys computed from the [build] section
 	Overridden            []string `json:"overridden,omitempty"`      // spectroscopic values taken from the design, not computed
+	Warnings              []string `json:"warnings,omitempty"`        // what the run could not do as asked (Result.Warnings)
 }
 
 // Result is the outcome of Run: the summary, the waveforms on a common time grid, the gain
