@@ -5,15 +5,17 @@ import (
 	"fmt"
 	"math"
 
+	"n2pulse/kinetics/design"
 	"n2pulse/kinetics/ode"
 	"n2pulse/kinetics/spectro"
+	"n2pulse/kinetics/swarm"
 	"n2pulse/units"
 )
 
 // Run simulates one shot of the design and returns the waveforms and figures of merit.
 // Errors name what failed: a design value out of range, a swarm table that cannot be read,
 // or an integration that did not converge.
-func Run(d *Design, s *RunSettings) (*Result, error) {
+func Run(d *design.Design, s *RunSettings) (*Result, error) {
 	if s == nil {
 		s = &RunSettings{}
 	}
@@ -58,6 +60,7 @@ func Run(d *Design, s *RunSettings) (*Result, error) {
 	if wf.stored > 0 {
 		res.Summary.Efficiency = res.Summary.EnergyTotal / wf.stored
 	}
+	account(d, &res.Parameters, wf, &res.Summary)
 	res.Stats.TableBelow, res.Stats.TableAbove = circ.below, circ.above
 	if wf.fieldAbove {
 		lo, hi := table.Range()
@@ -85,7 +88,7 @@ func Run(d *Design, s *RunSettings) (*Result, error) {
 
 // laserParameters takes σ, g_C/g_B, A₀₀, τ_C, f_C, f_B and λ from package spectro for the
 // design's pressure and temperature, then applies the design's overrides.
-func laserParameters(d *Design) (Parameters, []string, error) {
+func laserParameters(d *design.Design) (Parameters, []string, error) {
 	lp, err := spectro.Laser(d.Gas.Pressure, d.Gas.Temperature)
 	if err != nil {
 		return Parameters{}, nil, fmt.Errorf("kinetics: spectroscopy: %w", err)
@@ -94,6 +97,7 @@ func laserParameters(d *Design) (Parameters, []string, error) {
 		CrossSection: lp.CrossSection, DegeneracyRatio: lp.DegeneracyRatio,
 		EinsteinA00: lp.EinsteinA00, UpperLifetime: lp.UpperLifetime,
 		UpperShare: lp.UpperShare, LowerShare: lp.LowerShare, Wavelength: lp.VacuumWavelength,
+		UpperEnergy: lp.UpperEnergy,
 	}
 	var over []string
 	o := d.Spectroscopy
@@ -116,22 +120,26 @@ func laserParameters(d *Design) (Parameters, []string, error) {
 		}
 	}
 	if p.EinsteinA00*p.UpperLifetime > 1 {
-		return p, over, &KeyError{Key: "spectroscopy.einstein_a00", Value: fmt.Sprintf("%g s⁻¹", p.EinsteinA00),
+		return p, over, &design.KeyError{Key: "spectroscopy.einstein_a00", Value: fmt.Sprintf("%g s⁻¹", p.EinsteinA00),
 			Problem: fmt.Sprintf("A₀₀ exceeds the total radiative rate 1/τ_C = %g s⁻¹", 1/p.UpperLifetime)}
 	}
 	p.PhotonEnergy = units.Planck * units.SpeedOfLight / p.Wavelength
 	p.GasDensity = gasDensity(d.Gas)
-	p.UpperDecayRate = d.Levels.UpperDecayRate(p.UpperLifetime, d.Gas)
-	p.LowerDecayRate = d.Levels.LowerDecayRate(d.Gas)
+	p.UpperDecayRate = upperDecayRate(d.Levels, p.UpperLifetime, d.Gas)
+	p.LowerDecayRate = lowerDecayRate(d.Levels, d.Gas)
 	return p, over, nil
 }
 
 // waveforms are the circuit and discharge quantities sampled at the middle of every optical
 // step, (k+½)·Δt.
 type waveforms struct {
-	voltage, current, field, density []float64 // V_ch [V], channel current [A], E/N [V m²], n_e [m⁻³]
-	pumpC, pumpB                     []float64 // excitation rates into C(0) and B(0) [m⁻³ s⁻¹]
-	stored, deposited                float64   // [J]
+	voltage, current, field, density []float64                  // V_ch [V], channel current [A], E/N [V m²], n_e [m⁻³]
+	pumpC, pumpB                     []float64                  // excitation rates into C(0) and B(0) [m⁻³ s⁻¹]
+	stored, deposited                float64                    // [J]
+	switchLoss, shuntLoss, left      float64                    // dissipated in the switch and the shunt, left in the circuit [J]
+	plasmaSplit                      [swarm.NumChannels]float64 // Σ plasma power × channel share × Δt over the samples [J]
+	plasmaSampled                    float64                    // Σ plasma power × Δt over the samples [J]
+	split                            bool                       // the swarm table has a power split
 	energyResidual                   float64
 	peakField, peakCurrent           float64
 	peakDensity                      float64
@@ -139,7 +147,7 @@ type waveforms struct {
 }
 
 // solveCircuit integrates the circuit and discharge from closure to steps·dt and samples them.
-func solveCircuit(c *circuit, d *Design, par *Parameters, steps int) (*waveforms, Stats, error) {
+func solveCircuit(c *circuit, d *design.Design, par *Parameters, steps int) (*waveforms, Stats, error) {
 	dt := par.TimeStep
 	y0, stored := c.initial(d.Circuit.ChargeVoltage, d.Discharge.SeedDensity)
 	v0 := d.Circuit.ChargeVoltage
@@ -196,6 +204,14 @@ func solveCircuit(c *circuit, d *Design, par *Parameters, steps int) (*waveforms
 			w.density[k] = ne
 			w.pumpC[k] = kC * ne * shareC
 			w.pumpB[k] = kB * ne * shareB
+			if share, ok := c.powerSplit(y[iVg]); ok {
+				pw := y[iVg] * c.plasmaCurrentQuiet(y[iVg], ne) * dt
+				w.split = true
+				w.plasmaSampled += pw
+				for j, f := range share {
+					w.plasmaSplit[j] += f * pw
+				}
+			}
 			w.peakField = math.Max(w.peakField, w.field[k])
 			w.peakCurrent = math.Max(w.peakCurrent, math.Abs(y[iIc]))
 			w.peakDensity = math.Max(w.peakDensity, ne)
@@ -207,6 +223,7 @@ func solveCircuit(c *circuit, d *Design, par *Parameters, steps int) (*waveforms
 	_, yEnd := integ.State()
 	w.deposited = yEnd[iEPlasma]
 	left := c.storedEnergy(yEnd)
+	w.switchLoss, w.shuntLoss, w.left = yEnd[iESwitch], yEnd[iEShunt], left
 	w.energyResidual = math.Abs(stored-(left+yEnd[iESwitch]+yEnd[iEPlasma]+yEnd[iEShunt])) / stored
 	return w, Stats{Circuit: integ.Stats()}, nil
 }

@@ -4,12 +4,14 @@ import (
 	"math"
 
 	"gonum.org/v1/gonum/floats"
+
+	"n2pulse/kinetics/design"
 )
 
 // shot advances the populations and photon fluxes of every cell through the optical steps,
 // driven by the sampled discharge, and records waveforms and the gain map.
 type shot struct {
-	d     *Design
+	d     *design.Design
 	p     *Parameters
 	wf    *waveforms
 	steps int
@@ -34,7 +36,7 @@ type shot struct {
 	lit      int     // optical steps propagated (between dawn and dark)
 }
 
-func newShot(d *Design, p *Parameters, wf *waveforms, steps int, s *RunSettings) *shot {
+func newShot(d *design.Design, p *Parameters, wf *waveforms, steps int, s *RunSettings) *shot {
 	n := d.Numerics.Cells
 	omega := apertureSolidAngle(p.OpticalArea, d.Channel.Length)
 	spontPerC := p.EinsteinA00 * omega / (4 * math.Pi)

@@ -55,9 +55,9 @@ func values(t *study.Table, metric string) []float64 {
 // Best is the optimum of one metric over a sweep.
 type Best struct {
 	Metric string  `json:"metric"`
-	Word   string  `json:"optimum"`         // "maximum" or "minimum"
-	Row    int     `json:"point"`           // row (point) of the table, −1 when no point counts
-	Value  float64 `json:"value"`           // in the metric's stored (SI) unit
+	Word   string  `json:"optimum"` // "maximum" or "minimum"
+	Row    int     `json:"point"`   // row (point) of the table, −1 when no point counts
+	Value  float64 `json:"value"`   // in the metric's stored (SI) unit
 	// At holds the varied keys' values at the optimum, in SI, under their column headings.
 	At map[string]float64 `json:"at,omitempty"`
 	// Edge lists the varied keys at whose first or last grid value the optimum lies: the best

@@ -171,7 +171,6 @@ func studySave(base string, w, h vg.Length, render func(c draw.Canvas)) ([]strin
 	return files, nil
 }
 
-
 // haloRing is a ring drawn twice: wide in white, then thin in the glyph's colour.
 type haloRing struct{}
 

@@ -2,8 +2,8 @@ package plots
 
 import (
 	"bytes"
-	"html"
 	"context"
+	"html"
 	"image/png"
 	"math"
 	"os"
@@ -14,6 +14,7 @@ import (
 	"gonum.org/v1/gonum/floats/scalar"
 
 	"n2pulse/kinetics"
+	"n2pulse/kinetics/design"
 	"n2pulse/kinetics/study"
 	"n2pulse/units"
 )
@@ -21,7 +22,7 @@ import (
 // bumpRunner stands in for the model when testing the drawing: energy has one maximum at
 // 100 Torr and 12 kV; points from 400 to 600 Torr do not lase (their width is reported as 0,
 // the smallest of all, which must never be chosen), points above 600 Torr fail.
-func bumpRunner(d *kinetics.Design) (kinetics.Summary, error) {
+func bumpRunner(d *design.Design) (kinetics.Summary, error) {
 	p := d.Gas.Pressure / units.Torr
 	v := d.Circuit.ChargeVoltage / 1e3
 	if p > 600 {
@@ -37,7 +38,7 @@ func bumpRunner(d *kinetics.Design) (kinetics.Summary, error) {
 
 func sweepTable(t *testing.T, vary ...string) (*study.Table, []study.Axis) {
 	t.Helper()
-	d := kinetics.ExampleDesign()
+	d := design.ExampleDesign()
 	var axes []study.Axis
 	for _, v := range vary {
 		a, err := study.ParseAxis(v, d)
@@ -106,11 +107,10 @@ func TestSweepCurves(t *testing.T) {
 	checkFigures(t, files, 4)
 }
 
-
 func TestLengthFigure(t *testing.T) {
-	s := &study.LengthScan{Design: kinetics.ExampleDesign(), From: 0.05, To: 0.6, Points: 8,
+	s := &study.LengthScan{Design: design.ExampleDesign(), From: 0.05, To: 0.6, Points: 8,
 		TravellingWave: units.SpeedOfLight, Workers: 2,
-		Runner: func(d *kinetics.Design) (kinetics.Summary, error) {
+		Runner: func(d *design.Design) (kinetics.Summary, error) {
 			e := 1e-4 * (1 - math.Exp(-d.Channel.Length/0.1))
 			return kinetics.Summary{EnergyFront: e, PeakPower: 1e5 * e, FWHM: 1e-9, InversionDuration: 1e-9}, nil
 		}}
