@@ -33,9 +33,16 @@ func Run(d *design.Design, s *RunSettings) (*Result, error) {
 
 	circ := newCircuit(d, table)
 	par.GapCapacitance = circ.cg
-	par.OpticalArea = d.Channel.Aperture
-	if par.OpticalArea == 0 {
-		par.OpticalArea = d.Channel.Gap * d.Channel.Width
+	var warnings []string
+	par.OpticalArea = d.Channel.Gap * d.Channel.Width // the discharge cross-section
+	if a := d.Channel.Aperture; a > par.OpticalArea {
+		// Light gains only inside the excited volume: an optical cross-section larger than
+		// the discharge's would multiply the photons of the same populations.
+		warnings = append(warnings, fmt.Sprintf(
+			"channel.aperture = %s is larger than the discharge cross-section channel.gap × channel.width = %s: the optics use %s (no gain outside the excited volume)",
+			squareMM(a), squareMM(par.OpticalArea), squareMM(par.OpticalArea)))
+	} else if a > 0 {
+		par.OpticalArea = a
 	}
 	n := d.Numerics.Cells
 	par.CellLength = d.Channel.Length / float64(n)
@@ -51,6 +58,10 @@ func Run(d *design.Design, s *RunSettings) (*Result, error) {
 	sh := newShot(d, &res.Parameters, wf, steps, s)
 	sh.run(res)
 	sh.summarise(res)
+	res.Warnings = append(res.Warnings, warnings...)
+	if err := checkPumpBound(&res.Summary); err != nil {
+		return nil, err
+	}
 	res.Summary.StoredEnergy = wf.stored
 	res.Summary.DepositedEnergy = wf.deposited
 	res.Summary.EnergyBalanceResidual = wf.energyResidual
@@ -83,6 +94,20 @@ func Run(d *design.Design, s *RunSettings) (*Result, error) {
 		res.Z, res.GainTime, res.Gain = nil, nil, nil
 	}
 	return res, nil
+}
+
+// squareMM formats an area in mm² (units.Format would put its prefix on the metre).
+func squareMM(a float64) string { return fmt.Sprintf("%.3g mm²", a*1e6) }
+
+// checkPumpBound is the invariant energy in ≥ light out: the pulse energy cannot exceed one
+// laser photon for every excitation into C(0) of the discharge volume. A violation is a
+// fault of the model, not of the design, and is returned as an error.
+func checkPumpBound(s *Summary) error {
+	if s.EnergyTotal <= s.UpperPumpedPhotonEnergy*(1+1e-9) {
+		return nil
+	}
+	return fmt.Errorf("kinetics: the pulse energy %s exceeds the %s of one laser photon per excitation into C(0): light from nowhere, a fault of the model (please report it with the design)",
+		units.Format(s.EnergyTotal, "J"), units.Format(s.UpperPumpedPhotonEnergy, "J"))
 }
 
 // laserParameters takes σ, g_C/g_B, A₀₀, τ_C, f_C, f_B and λ from package spectro for the
