@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"strings"
 
+	"n2pulse/kinetics/design"
 	"n2pulse/units"
 )
 
@@ -50,7 +51,7 @@ type RegimeCheck struct {
 }
 
 // regimeChecks compares the shot with the limits of a uniform glow.
-func regimeChecks(d *Design, p *Parameters, wf *waveforms, s *Summary) []RegimeCheck {
+func regimeChecks(d *design.Design, p *Parameters, wf *waveforms, s *Summary) []RegimeCheck {
 	atm := units.GasDensity(101325, 300)
 	tc := constrictionTime1atm * atm / p.GasDensity
 	checks := []RegimeCheck{

@@ -6,6 +6,7 @@ import (
 
 	"gonum.org/v1/gonum/floats/scalar"
 
+	"n2pulse/kinetics/design"
 	"n2pulse/units"
 )
 
@@ -32,7 +33,7 @@ func TestDepositionTime(t *testing.T) {
 // time is the estimate's 100 ns, at 2 atm half of it (scaled as 1/N).
 func TestRegimeChecks(t *testing.T) {
 	t.Parallel()
-	d := ExampleDesign()
+	d := design.ExampleDesign()
 	n := units.GasDensity(101325, 300)
 	p := &Parameters{GasDensity: n, TimeStep: 1e-9}
 	wf := &waveforms{plasmaPower: []float64{1, 1, 1, 1, 1, 1, 1, 1, 1, 1}, plasmaSampled: 10e-9}
@@ -76,7 +77,7 @@ func TestRegimeChecks(t *testing.T) {
 // outside the uniform-glow regime, in the flag and the verdict.
 func TestRegimeInRun(t *testing.T) {
 	t.Parallel()
-	d := ExampleDesign()
+	d := design.ExampleDesign()
 	r, err := Run(d, &RunSettings{Light: true})
 	if err != nil {
 		t.Fatal(err)

@@ -11,13 +11,14 @@ import (
 	"testing"
 
 	"n2pulse/kinetics"
+	"n2pulse/kinetics/design"
 	"n2pulse/kinetics/study"
 	"n2pulse/units"
 )
 
 // bumpRunner stands in for the model when testing the drawing: energy has one maximum at
 // 100 Torr and 12 kV; points above 600 Torr fail, leaving holes in the map.
-func bumpRunner(d *kinetics.Design) (kinetics.Summary, error) {
+func bumpRunner(d *design.Design) (kinetics.Summary, error) {
 	p := d.Gas.Pressure / units.Torr
 	v := d.Circuit.ChargeVoltage / 1e3
 	if p > 600 {
@@ -29,7 +30,7 @@ func bumpRunner(d *kinetics.Design) (kinetics.Summary, error) {
 
 func sweepTable(t *testing.T, vary ...string) (*study.Table, []study.Axis) {
 	t.Helper()
-	d := kinetics.ExampleDesign()
+	d := design.ExampleDesign()
 	var axes []study.Axis
 	for _, v := range vary {
 		a, err := study.ParseAxis(v, d)
@@ -106,9 +107,9 @@ func TestOptimum(t *testing.T) {
 }
 
 func TestLengthFigure(t *testing.T) {
-	s := &study.LengthScan{Design: kinetics.ExampleDesign(), From: 0.05, To: 0.6, Points: 8,
+	s := &study.LengthScan{Design: design.ExampleDesign(), From: 0.05, To: 0.6, Points: 8,
 		TravellingWave: units.SpeedOfLight, Workers: 2,
-		Runner: func(d *kinetics.Design) (kinetics.Summary, error) {
+		Runner: func(d *design.Design) (kinetics.Summary, error) {
 			e := 1e-4 * (1 - math.Exp(-d.Channel.Length/0.1))
 			return kinetics.Summary{EnergyFront: e, PeakPower: 1e5 * e, FWHM: 1e-9, InversionDuration: 1e-9}, nil
 		}}

@@ -12,6 +12,7 @@ import (
 	"strings"
 
 	"n2pulse/kinetics"
+	"n2pulse/kinetics/design"
 	"n2pulse/kinetics/study"
 	"n2pulse/units"
 )
@@ -25,14 +26,14 @@ func init() {
 }
 
 // loadDesign reads the design named by args (or the built-in example) and applies --set.
-func loadDesign(args []string, sets []string) (*kinetics.Design, error) {
-	var d *kinetics.Design
+func loadDesign(args []string, sets []string) (*design.Design, error) {
+	var d *design.Design
 	switch len(args) {
 	case 0:
-		d = kinetics.ExampleDesign()
+		d = design.ExampleDesign()
 	case 1:
 		var err error
-		if d, err = kinetics.LoadDesign(args[0]); err != nil {
+		if d, err = design.LoadDesign(args[0]); err != nil {
 			return nil, err
 		}
 	default:
@@ -112,7 +113,7 @@ func runRun(args []string, stdout, stderr io.Writer) error {
 }
 
 // printSummary writes the readable summary and the caution line.
-func printSummary(w io.Writer, d *kinetics.Design, r *kinetics.Result) {
+func printSummary(w io.Writer, d *design.Design, r *kinetics.Result) {
 	s := r.Summary
 	name := d.Name
 	if name == "" {
@@ -223,7 +224,7 @@ func caution(stored, pulse float64) string {
 }
 
 // writeRunOutputs writes waveforms.csv, summary.json and the figures into dir.
-func writeRunOutputs(dir string, d *kinetics.Design, r *kinetics.Result) error {
+func writeRunOutputs(dir string, d *design.Design, r *kinetics.Result) error {
 	if err := os.MkdirAll(dir, 0o755); err != nil {
 		return err
 	}

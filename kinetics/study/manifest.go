@@ -20,7 +20,7 @@ type Manifest struct {
 	Version    int      `json:"version"`
 	DesignName string   `json:"design_name"`
 	DesignHash string   `json:"design_hash"` // DesignHash of the base design
-	Design     string   `json:"design"`      // kinetics.Design.String of the base design
+	Design     string   `json:"design"`      // design.Design.String of the base design
 	Axes       []Axis   `json:"axes"`
 	Points     int      `json:"points"` // of the whole grid
 	Columns    []string `json:"columns"`

@@ -1,4 +1,4 @@
-package kinetics
+package design
 
 import (
 	"fmt"
@@ -9,7 +9,6 @@ import (
 	"strings"
 
 	"n2pulse/kinetics/build"
-	"n2pulse/kinetics/spectro"
 	"n2pulse/units"
 )
 
@@ -120,18 +119,18 @@ func setBuild(s *build.Spec, key string, v any) error {
 	return nil
 }
 
-// Built is a design read together with its [build] section.
+// Built is a design read together with its [build] section. The bench report of the
+// stresses is physics: kinetics.Bench gives it.
 type Built struct {
-	Design  *Design      // the design; its Build and Derived are those of the file too
-	Spec    build.Spec   // the [build] section as given, in SI (a copy of Design.Build)
-	Bench   *build.Bench // derived circuit values, stresses and warnings
-	Derived []string     // design keys whose values came from the build, not the file (as Design.Derived)
+	Design  *Design    // the design; its Build and Derived are those of the file too
+	Spec    build.Spec // the [build] section as given, in SI (a copy of Design.Build)
+	Derived []string   // design keys whose values came from the build, not the file (as Design.Derived)
 }
 
 // ParseBuiltDesign decodes a TOML design that may describe the laser as built: a [build]
 // section of plates, dielectric, rails and switch gap gives the circuit keys the file leaves
 // out (explicit circuit values win). Without a [build] section it reads the design like
-// ParseDesign and rates the stresses the circuit values allow.
+// ParseDesign.
 func ParseBuiltDesign(b []byte, name string) (*Built, error) {
 	flat, err := decodeFlat(b, name)
 	if err != nil {
@@ -196,11 +195,11 @@ func parseBuilt(flat map[string]any) (*Built, error) {
 			return nil, &KeyError{Key: x.key, Problem: "missing: give it, or describe the capacitor plates and dielectric in [build]"}
 		}
 	}
-	bench, derived, err := d.ApplyBuild(&d.Build)
+	derived, err := d.ApplyBuild(&d.Build)
 	if err != nil {
 		return nil, err
 	}
-	out.Bench, out.Derived = bench, append(out.Derived, derived...)
+	out.Derived = append(out.Derived, derived...)
 	out.Spec, d.Derived = d.Build, append([]string(nil), out.Derived...)
 	if err := d.Validate(); err != nil {
 		return nil, err
@@ -214,12 +213,12 @@ func parseBuilt(flat map[string]any) (*Built, error) {
 }
 
 // ApplyBuild fills the design's zero circuit values (capacitances, loop inductances) from the
-// build s and returns the bench report and the design keys it filled. Non-zero circuit values
-// are kept: explicit values win over derived ones.
-func (d *Design) ApplyBuild(s *build.Spec) (*build.Bench, []string, error) {
-	b, err := build.Evaluate(*s, d.benchConditions())
+// build s and returns the design keys it filled. Non-zero circuit values are kept: explicit
+// values win over derived ones.
+func (d *Design) ApplyBuild(s *build.Spec) ([]string, error) {
+	b, err := build.Evaluate(*s, d.BenchConditions())
 	if err != nil {
-		return nil, nil, fmt.Errorf("design: [build]: %w", err)
+		return nil, fmt.Errorf("design: [build]: %w", err)
 	}
 	var derived []string
 	for _, x := range derivable {
@@ -228,32 +227,24 @@ func (d *Design) ApplyBuild(s *build.Spec) (*build.Bench, []string, error) {
 			derived = append(derived, x.key)
 		}
 	}
-	return b, derived, nil
+	return derived, nil
 }
 
-// Bench rates the stresses of a design given by circuit values only (no [build] section):
-// channel breakdown, shunt, switch against the upper-level lifetime.
-func (d *Design) Bench() (*build.Bench, error) {
-	b, err := build.Evaluate(build.Spec{}, d.benchConditions())
-	if err != nil {
-		return nil, fmt.Errorf("design: %w", err)
-	}
-	return b, nil
-}
-
-func (d *Design) benchConditions() build.Conditions {
+// BenchConditions returns the design values package build needs besides the build itself.
+// The two that are physics, the gap capacitance and the effective lifetime of C(0), are left
+// zero here (the circuit values the build derives do not depend on them); kinetics.Bench fills
+// them for the full report of stresses.
+func (d *Design) BenchConditions() build.Conditions {
 	c := d.Circuit
 	cond := build.Conditions{
 		Transfer:           c.Topology == ChargeTransfer,
 		ChargeVoltage:      c.ChargeVoltage,
 		ChannelLength:      d.Channel.Length,
 		ChannelGap:         d.Channel.Gap,
-		GapCapacitance:     gapCapacitance(d.Channel),
 		Pressure:           d.Gas.Pressure,
 		Temperature:        d.Gas.Temperature,
 		Nitrogen:           d.Gas.Nitrogen,
 		Shunt:              c.ShuntInductance > 0 || c.ShuntResistance > 0,
-		UpperLifetime:      d.EffectiveUpperLifetime(),
 		SwitchCapacitance:  c.SwitchCapacitance,
 		ChannelCapacitance: c.ChannelCapacitance,
 		SwitchInductance:   c.SwitchInductance,
@@ -266,30 +257,6 @@ func (d *Design) benchConditions() build.Conditions {
 		cond.SwitchRiseTime = d.Switch.RiseTime
 	}
 	return cond
-}
-
-// fallbackUpperLifetime is the radiative lifetime of C(0) used when package spectro cannot
-// give one: 40.8 ns, Capitelli et al., Plasma Kinetics in Atmospheric Gases (Springer 2000),
-// p. 157, via air-plasma mechanism files (seen, secondary).
-const fallbackUpperLifetime = 40.8e-9
-
-// EffectiveUpperLifetime returns the lifetime of C(0) in the design's gas without electrons
-// or stimulated emission, 1/(1/τ_C + Σk_q·N) = τ_C/(1 + p/p_q) [s] (Stern–Volmer), with τ_C
-// from spectroscopy.upper_lifetime, else package spectro, else 40.8 ns.
-func (d *Design) EffectiveUpperLifetime() float64 {
-	return 1 / d.Levels.UpperDecayRate(d.radiativeUpperLifetime(), d.Gas)
-}
-
-// radiativeUpperLifetime is τ_C, the radiative lifetime of C(0) [s]: spectroscopy.upper_lifetime,
-// else package spectro at the design's p and T, else 40.8 ns.
-func (d *Design) radiativeUpperLifetime() float64 {
-	if tau := d.Spectroscopy.UpperLifetime; tau != 0 {
-		return tau
-	}
-	if lp, err := spectro.Laser(d.Gas.Pressure, d.Gas.Temperature); err == nil && lp.UpperLifetime > 0 {
-		return lp.UpperLifetime
-	}
-	return fallbackUpperLifetime
 }
 
 // hasBuild reports whether a flattened design has a [build] section: the hook by which
@@ -332,7 +299,7 @@ func (d *Design) rederive() error {
 			*x.set(d) = 0
 		}
 	}
-	_, got, err := d.ApplyBuild(&d.Build)
+	got, err := d.ApplyBuild(&d.Build)
 	if err != nil {
 		d.Circuit, d.Switch.Gap = circuit, gap
 		return err

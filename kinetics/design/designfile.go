@@ -1,4 +1,4 @@
-package kinetics
+package design
 
 import (
 	"bytes"
@@ -38,7 +38,7 @@ func LoadDesign(path string) (*Design, error) {
 func ExampleDesign() *Design {
 	d, err := ParseDesign(data.ExampleDesign(), "example.toml")
 	if err != nil {
-		panic("kinetics: built-in example design is invalid: " + err.Error()) // programmer error
+		panic("design: built-in example design is invalid: " + err.Error()) // programmer error
 	}
 	return d
 }
@@ -203,7 +203,7 @@ func (d *Design) Validate() error {
 		return &KeyError{Key: "optics.excitation_velocity", Value: "0", Problem: `must not be zero: use "infinite" for a simultaneous discharge`}
 	}
 	if d.Build != (build.Spec{}) {
-		if _, err := build.Evaluate(d.Build, d.benchConditions()); err != nil {
+		if _, err := build.Evaluate(d.Build, d.BenchConditions()); err != nil {
 			return fmt.Errorf("design: [build]: %w", err)
 		}
 	}
