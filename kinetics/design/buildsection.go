@@ -3,7 +3,6 @@ package design
 import (
 	"fmt"
 	"maps"
-	"math"
 	"slices"
 	"sort"
 	"strings"
@@ -12,42 +11,13 @@ import (
 	"n2pulse/units"
 )
 
-// buildField is one key of the [build] section of a design file.
-type buildField struct {
-	key      string
-	dim      units.Dimension
-	unit     string // SI unit shown in sweep headers ("" for a pure number or text)
-	num      func(s *build.Spec) *float64
-	str      func(s *build.Spec) *string
-	choices  func() []string
-	min, max float64 // allowed closed range in SI
-	help     string
-}
-
-var buildFields = []buildField{
-	{key: "build.switch_plate_length", dim: units.Length, unit: "m", num: func(s *build.Spec) *float64 { return &s.SwitchPlateLength }, min: 1e-3, max: 10, help: "switch-side capacitor plate, along the current away from the switch edge"},
-	{key: "build.switch_plate_width", dim: units.Length, unit: "m", num: func(s *build.Spec) *float64 { return &s.SwitchPlateWidth }, min: 1e-3, max: 10, help: "switch-side capacitor plate, along the switch edge"},
-	{key: "build.channel_plate_length", dim: units.Length, unit: "m", num: func(s *build.Spec) *float64 { return &s.ChannelPlateLength }, min: 1e-3, max: 10, help: "channel-side capacitor plate, along the current away from the rails"},
-	{key: "build.channel_plate_width", dim: units.Length, unit: "m", num: func(s *build.Spec) *float64 { return &s.ChannelPlateWidth }, min: 1e-3, max: 10, help: "channel-side capacitor plate, along the rails"},
-	{key: "build.dielectric", str: func(s *build.Spec) *string { return &s.Dielectric }, choices: build.DielectricKeys, help: "dielectric preset between the plates"},
-	{key: "build.dielectric_thickness", dim: units.Length, unit: "m", num: func(s *build.Spec) *float64 { return &s.DielectricThickness }, min: 1e-6, max: 0.05, help: "dielectric thickness between the plates"},
-	{key: "build.permittivity", dim: units.Dimensionless, num: func(s *build.Spec) *float64 { return &s.Permittivity }, min: 1, max: 1e4, help: "relative permittivity (overrides the preset)"},
-	{key: "build.dielectric_strength", dim: units.ElectricField, unit: "V/m", num: func(s *build.Spec) *float64 { return &s.DielectricStrength }, min: 1e5, max: 1e10, help: "short-time dielectric strength (overrides the preset)"},
-	{key: "build.fringe_correction", str: func(s *build.Spec) *string { return (*string)(&s.Fringe) }, choices: func() []string { return []string{string(build.NoFringe), string(build.Palmer)} }, help: "edge-field correction of the plate capacitance: \"none\" or \"palmer\" (true means palmer)"},
-	{key: "build.rail_length", dim: units.Length, unit: "m", num: func(s *build.Spec) *float64 { return &s.RailLength }, min: 1e-3, max: 10, help: "electrode rail length (default: channel.length)"},
-	{key: "build.rail_height", dim: units.Length, unit: "m", num: func(s *build.Spec) *float64 { return &s.RailHeight }, min: 0, max: 0.5, help: "rail height from the plate to the discharge"},
-	{key: "build.rail_gap", dim: units.Length, unit: "m", num: func(s *build.Spec) *float64 { return &s.RailGap }, min: 1e-4, max: 0.2, help: "rail separation (default: channel.gap)"},
-	{key: "build.switch_gap", dim: units.Length, unit: "m", num: func(s *build.Spec) *float64 { return &s.SwitchGap }, min: 1e-5, max: 0.1, help: "spark-gap length (also sets switch.gap)"},
-	{key: "build.switch_own_inductance", dim: units.Inductance, unit: "H", num: func(s *build.Spec) *float64 { return &s.SwitchOwnInductance }, min: 0, max: 1e-5, help: "inductance of the spark channel and its leads, added to the switch loop"},
-	{key: "build.switch_gas", str: func(s *build.Spec) *string { return &s.SwitchGas }, choices: func() []string { return []string{"air", "nitrogen"} }, help: "gas in the spark gap"},
-	{key: "build.secondary_emission", dim: units.Dimensionless, num: func(s *build.Spec) *float64 { return &s.SecondaryEmission }, min: 1e-6, max: 0.9, help: "secondary-emission coefficient γ of the channel cathode (default: copper)"},
-}
-
 // BuildKeys returns the keys of the [build] section of a design file, sorted.
 func BuildKeys() []string {
-	k := make([]string, 0, len(buildFields))
-	for _, f := range buildFields {
-		k = append(k, f.key)
+	var k []string
+	for _, f := range fieldList {
+		if isBuildKey(f.key) {
+			k = append(k, f.key)
+		}
 	}
 	sort.Strings(k)
 	return k
@@ -55,68 +25,10 @@ func BuildKeys() []string {
 
 // BuildKeyHelp returns the one-line description of a [build] key and whether it exists.
 func BuildKeyHelp(key string) (string, bool) {
-	for _, f := range buildFields {
-		if f.key == key {
-			return f.help, true
-		}
+	if f, ok := fieldIndex[key]; ok && isBuildKey(key) {
+		return f.help, true
 	}
 	return "", false
-}
-
-var buildIndex = func() map[string]*buildField {
-	m := make(map[string]*buildField, len(buildFields))
-	for i := range buildFields {
-		m[buildFields[i].key] = &buildFields[i]
-	}
-	return m
-}()
-
-// setBuild assigns one decoded TOML value of the [build] section (or the text of Set).
-func setBuild(s *build.Spec, key string, v any) error {
-	f := buildIndex[key]
-	if f == nil {
-		return &KeyError{Key: key, Problem: "unknown key" + suggest(key)}
-	}
-	if on, isBool := v.(bool); isBool && key == "build.fringe_correction" {
-		*f.str(s) = string(build.NoFringe)
-		if on {
-			*f.str(s) = string(build.Palmer)
-		}
-		return nil
-	}
-	if f.str != nil {
-		t, ok := v.(string)
-		if !ok {
-			return &KeyError{Key: key, Value: fmt.Sprint(v), Problem: "want text in quotes"}
-		}
-		c, err := choose(key, t, f.choices())
-		if err != nil {
-			return err
-		}
-		*f.str(s) = c
-		return nil
-	}
-	var x float64
-	given := fmt.Sprint(v)
-	switch y := v.(type) {
-	case int64:
-		x = float64(y)
-	case float64:
-		x = y
-	case string:
-		p, err := units.Parse(strings.TrimSpace(y), f.dim)
-		if err != nil {
-			return &KeyError{Key: key, Value: y, Problem: fmt.Sprintf("%v (want a number in %s or with a unit)", strings.TrimPrefix(err.Error(), "units: "), f.dim)}
-		}
-		x = p
-	default:
-		return &KeyError{Key: key, Value: given, Problem: "want a number or a quoted value with a unit"}
-	}
-	if math.IsNaN(x) || x < f.min || x > f.max {
-		return &KeyError{Key: key, Value: given, Problem: fmt.Sprintf("out of range: allowed %g to %g %s", f.min, f.max, f.dim)}
-	}
-	*f.num(s) = x
-	return nil
 }
 
 // Built is a design read together with its [build] section. The bench report of the
@@ -164,12 +76,7 @@ func parseBuilt(flat map[string]any) (*Built, error) {
 	for _, k := range keys {
 		var err error
 		d.given[k] = true
-		if strings.HasPrefix(k, "build.") {
-			err = setBuild(&d.Build, k, flat[k])
-		} else {
-			err = d.setValue(k, flat[k])
-		}
-		if err != nil {
+		if err = d.setValue(k, flat[k]); err != nil {
 			return nil, err
 		}
 	}
@@ -306,30 +213,4 @@ func (d *Design) rederive() error {
 	}
 	d.Derived = append(derived, got...)
 	return nil
-}
-
-// setBuildText assigns a build key from text, as on the command line; build.fringe_correction
-// also takes true (palmer) and false (none), as in a design file.
-func (d *Design) setBuildText(key, value string) error {
-	var v any = strings.TrimSpace(value)
-	if key == "build.fringe_correction" {
-		switch strings.ToLower(strings.TrimSpace(value)) {
-		case "true":
-			v = true
-		case "false":
-			v = false
-		}
-	}
-	return setBuild(&d.Build, key, v)
-}
-
-// buildString lists the build keys as dotted key = value lines, in SI.
-func (d *Design) buildString(b *strings.Builder) {
-	for _, f := range buildFields {
-		if f.str != nil {
-			fmt.Fprintf(b, "%s = %q\n", f.key, *f.str(&d.Build))
-		} else {
-			fmt.Fprintf(b, "%s = %g\n", f.key, *f.num(&d.Build))
-		}
-	}
 }

@@ -170,6 +170,10 @@ func (d *Design) setValue(key string, v any) error {
 			return &KeyError{Key: key, Value: strconv.FormatFloat(x, 'g', -1, 64), Problem: "want text in quotes"}
 		}
 		return f.setNumber(d, x, strconv.FormatFloat(x, 'g', -1, 64))
+	case bool:
+		if f.aliases != nil {
+			return f.setString(d, strconv.FormatBool(x))
+		}
 	}
 	return &KeyError{Key: key, Value: fmt.Sprint(v), Problem: "want a number or a quoted value with a unit"}
 }
@@ -232,6 +236,5 @@ func (d *Design) String() string {
 			fmt.Fprintf(&b, "%s = %g\n", f.key, *f.num(d))
 		}
 	}
-	d.buildString(&b)
 	return b.String()
 }
