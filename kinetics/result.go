@@ -5,15 +5,21 @@ import "n2pulse/kinetics/ode"
 // Summary holds the figures of merit of one shot, in SI. The JSON names are part of the
 // program's interface (`run --json`, sweep tables): scripts rely on them.
 type Summary struct {
-	EnergyFront     float64 `json:"energy_front_J"`     // pulse energy leaving the output end z = L [J]
-	EnergyRear      float64 `json:"energy_rear_J"`      // pulse energy leaving the rear end z = 0 [J]
-	EnergyTotal     float64 `json:"energy_total_J"`     // both ends [J]
-	PeakPower       float64 `json:"peak_power_W"`       // peak power at the output end [W]
-	FWHM            float64 `json:"fwhm_s"`             // width of the output-end pulse: 2·sqrt(2 ln 2) × its rms duration, the FWHM of a Gaussian of the same rms width [s]
-	HalfMaxWidth    float64 `json:"half_max_width_s"`   // time between the first and last half-maximum crossings of the output-end pulse [s]
-	PulseCentre     float64 `json:"pulse_centre_s"`     // power-weighted mean time of the output-end pulse [s]
-	Rise            float64 `json:"rise_s"`             // 10–90 % rise time of the output-end pulse [s]
-	Delay           float64 `json:"delay_s"`            // switch closure to the half-maximum of the rising edge [s]
+	EnergyFront  float64 `json:"energy_front_J"`   // pulse energy leaving the output end z = L [J]
+	EnergyRear   float64 `json:"energy_rear_J"`    // pulse energy leaving the rear end z = 0 [J]
+	EnergyTotal  float64 `json:"energy_total_J"`   // both ends [J]
+	PeakPower    float64 `json:"peak_power_W"`     // peak power at the output end [W]
+	FWHM         float64 `json:"fwhm_s"`           // width of the output-end pulse: 2·sqrt(2 ln 2) × its rms duration, the FWHM of a Gaussian of the same rms width [s]
+	HalfMaxWidth float64 `json:"half_max_width_s"` // time between the first and last half-maximum crossings of the output-end pulse [s]
+	PulseCentre  float64 `json:"pulse_centre_s"`   // power-weighted mean time of the output-end pulse [s]
+	Rise         float64 `json:"rise_s"`           // 10–90 % rise time of the output-end pulse [s]
+	Delay        float64 `json:"delay_s"`          // switch closure to the half-maximum of the rising edge [s]
+	// EndTime is how long after closure the shot was followed: numerics.end_time, or up to
+	// 16 times that (at most 10 µs) when the pulse outlasted it [s].
+	EndTime float64 `json:"end_time_s"`
+	// Truncated is set when the output, the gain or the discharge was still going at EndTime,
+	// the longest a run may take: energies and widths are then cut short.
+	Truncated       bool    `json:"truncated"`
 	Efficiency      float64 `json:"efficiency"`         // total pulse energy / stored energy
 	StoredEnergy    float64 `json:"stored_energy_J"`    // ½ΣCV₀² [J]
 	DepositedEnergy float64 `json:"deposited_energy_J"` // energy delivered to the plasma [J]
@@ -34,21 +40,17 @@ type Summary struct {
 	SpecificEnergy          float64       `json:"specific_energy_J_m3"`      // energy into the plasma per discharge volume L·w·d [J/m³]
 	EnergyPerMolecule       float64       `json:"energy_per_molecule_eV"`    // energy into the plasma per gas molecule in the discharge volume [eV]
 	Energy                  EnergyAccount `json:"energy_account"`            // where the stored energy went
-	// EndTime is how long after closure the shot was followed: numerics.end_time, or up to
-	// 16 times that (at most 10 µs) when the pulse outlasted it [s].
-	EndTime float64 `json:"end_time_s"`
-	// Truncated is set when the output, the gain or the discharge was still going at EndTime,
-	// the longest a run may take: energies and widths are then cut short.
-	Truncated             bool     `json:"truncated"`
-	EnergyBalanceResidual float64  `json:"energy_balance_residual"`   // |stored − (left + dissipated)| / stored
-	PhotonBalanceResidual float64  `json:"photon_balance_residual"`   // |created − (emitted + lost + left)| / created
-	Lases                 bool     `json:"lases"`                     // net gain-length at or above the threshold of amplified spontaneous emission (see Verdict)
-	Verdict               string   `json:"verdict"`                   // one line: lases, or the limiting cause
-	Advice                string   `json:"advice,omitempty"`          // what to change when it does not lase, naming design keys
-	StimulatedRatio       float64  `json:"stimulated_to_spontaneous"` // photons from stimulated emission per spontaneous seed photon
-	Derived               []string `json:"derived,omitempty"`         // circuit keys computed from the [build] section
-	Overridden            []string `json:"overridden,omitempty"`      // spectroscopic values taken from the design, not computed
-	Warnings              []string `json:"warnings,omitempty"`        // what the run could not do as asked (Result.Warnings)
+	UniformGlow             bool          `json:"uniform_glow"`              // every limit of the uniform-glow regime is kept (see Regime); if not, the prediction is an upper bound
+	Regime                  []RegimeCheck `json:"regime_checks"`             // the shot against each limit of a uniform glow
+	EnergyBalanceResidual   float64       `json:"energy_balance_residual"`   // |stored − (left + dissipated)| / stored
+	PhotonBalanceResidual   float64       `json:"photon_balance_residual"`   // |created − (emitted + lost + left)| / created
+	Lases                   bool          `json:"lases"`                     // net gain-length at or above the threshold of amplified spontaneous emission (see Verdict)
+	Verdict                 string        `json:"verdict"`                   // one line: lases, or the limiting cause
+	Advice                  string        `json:"advice,omitempty"`          // what to change when it does not lase, naming design keys
+	StimulatedRatio         float64       `json:"stimulated_to_spontaneous"` // photons from stimulated emission per spontaneous seed photon
+	Derived                 []string      `json:"derived,omitempty"`         // circuit keys computed from the [build] section
+	Overridden              []string      `json:"overridden,omitempty"`      // spectroscopic values taken from the design, not computed
+	Warnings                []string      `json:"warnings,omitempty"`        // what the run could not do as asked (Result.Warnings)
 }
 
 // EnergyAccount says where the stored energy of a shot went [J]: the switch, the shunt, the
