@@ -42,6 +42,7 @@ type Summary struct {
 	StimulatedRatio         float64       `json:"stimulated_to_spontaneous"` // photons from stimulated emission per spontaneous seed photon
 	Derived                 []string      `json:"derived,omitempty"`         // circuit keys computed from the [build] section
 	Overridden              []string      `json:"overridden,omitempty"`      // spectroscopic values taken from the design, not computed
+	Warnings                []string      `json:"warnings,omitempty"`        // what the run could not do as asked (Result.Warnings)
 }
 
 // EnergyAccount says where the stored energy of a shot went [J]: the switch, the shunt, the

@@ -85,6 +85,7 @@ func Run(d *design.Design, s *RunSettings) (*Result, error) {
 			units.Format(d.Numerics.EndTime, "s")))
 	}
 	res.Summary.Derived = append([]string(nil), d.Derived...)
+	res.Summary.Warnings = append([]string(nil), res.Warnings...)
 	v := Verdict(d, res)
 	res.Summary.Lases, res.Summary.Verdict, res.Summary.Advice = v.Lases, v.Summary, v.Advice
 	if s.Light {

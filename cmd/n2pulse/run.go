@@ -128,7 +128,7 @@ func printSummary(w io.Writer, d *design.Design, r *kinetics.Result) {
 	row("first to last half maximum", units.Format(s.HalfMaxWidth, "s"))
 	row("rise 10–90 %", units.Format(s.Rise, "s"))
 	row("delay from switch closure", units.Format(s.Delay, "s"))
-	row("efficiency", fmt.Sprintf("%.3g %% of %s stored", 100*s.Efficiency, units.Format(s.StoredEnergy, "J")))
+	row("efficiency (fraction)", fmt.Sprintf("%.3g of %s stored (%.3g %%)", s.Efficiency, units.Format(s.StoredEnergy, "J"), 100*s.Efficiency))
 	row("energy into the plasma", units.Format(s.DepositedEnergy, "J"))
 	printAccount(row, s)
 	row("peak E/N", fmt.Sprintf("%.0f Td", s.PeakReducedField))

@@ -7,6 +7,7 @@ import (
 	"strings"
 
 	"n2pulse/kinetics/design"
+	"n2pulse/units"
 )
 
 // Axis is one varied design key: N values from From to To, evenly spaced or, with Log,
@@ -18,6 +19,9 @@ type Axis struct {
 	To   float64 `json:"to"`   // last value [SI]
 	N    int     `json:"n"`    // number of values, at least 1
 	Log  bool    `json:"log"`  // logarithmic spacing
+	// Display is the unit the user typed for FROM ("Torr", "kV"), in which figures show the
+	// axis; "" when FROM was a bare SI number. It does not change the grid.
+	Display string `json:"display,omitempty"`
 }
 
 // maxAxisPoints bounds one axis; more points than this are a typing mistake.
@@ -44,7 +48,7 @@ func ParseAxis(text string, base *design.Design) (Axis, error) {
 	if _, err := base.Get(key); err != nil {
 		return Axis{}, fmt.Errorf("study: --vary %q: %w", text, err)
 	}
-	a := Axis{Key: key, Unit: unit}
+	a := Axis{Key: key, Unit: unit, Display: units.UnitOf(parts[0])}
 	var err error
 	if a.From, err = valueOf(base, key, parts[0]); err != nil {
 		return Axis{}, fmt.Errorf("study: --vary %q: FROM: %w", text, err)
