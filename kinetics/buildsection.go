@@ -113,6 +113,11 @@ func setBuild(s *build.Spec, key string, v any) error {
 	default:
 		return &KeyError{Key: key, Value: given, Problem: "want a number or a quoted value with a unit"}
 	}
+	if _, text := v.(string); !text {
+		if err := bareNumber(key, f.dim, x); err != nil {
+			return err
+		}
+	}
 	if math.IsNaN(x) || x < f.min || x > f.max {
 		return &KeyError{Key: key, Value: given, Problem: fmt.Sprintf("out of range: allowed %g to %g %s", f.min, f.max, f.dim)}
 	}

@@ -1,6 +1,7 @@
 package kinetics
 
 import (
+	"errors"
 	"fmt"
 	"math"
 	"slices"
@@ -223,10 +224,27 @@ func (f *field) parse(text string) (float64, error) {
 		}
 	}
 	v, err := units.Parse(t, f.dim)
+	var nu *units.NoUnitError
+	if errors.As(err, &nu) {
+		return 0, &KeyError{Key: f.key, Value: text, Problem: nu.Error()}
+	}
 	if err != nil {
 		return 0, &KeyError{Key: f.key, Value: text, Problem: fmt.Sprintf("%v (want %s)", strings.TrimPrefix(err.Error(), "units: "), f.want())}
 	}
 	return v, nil
+}
+
+// bareNumber is the one rule for a number without a unit, from a design file or the command
+// line: it stands for itself only in a dimensionless key or as 0; for any other dimensioned
+// key it is an error that suggests the unit (a builder writing pressure = 40 means Torr or
+// mbar, never pascal).
+func bareNumber(key string, dim units.Dimension, x float64) error {
+	if dim == units.Dimensionless || x == 0 {
+		return nil
+	}
+	text := strconv.FormatFloat(x, 'g', -1, 64)
+	return &KeyError{Key: key, Value: text, Problem: (&units.NoUnitError{Text: text, Want: dim}).Error() +
+		"; in a design file quote it: key = \"" + text + " " + dim.String() + "\""}
 }
 
 func (f *field) want() string {

@@ -3,6 +3,7 @@ package units
 import (
 	"fmt"
 	"math"
+	"slices"
 	"strconv"
 	"strings"
 	"unicode"
@@ -52,18 +53,31 @@ func (d Dimension) String() string {
 	return fmt.Sprintf("m^%d kg^%d s^%d A^%d K^%d", d[0], d[1], d[2], d[3], d[4])
 }
 
-func (d Dimension) add(o Dimension, k int8) Dimension {
-	for i := range d {
-		d[i] += k * o[i]
-	}
-	return d
-}
-
 type baseUnit struct {
 	factor float64
 	dim    Dimension
 	prefix bool // whether SI prefixes may be applied
 }
+
+// Units of the trade beyond the SI. The inch-pound values follow from the exact definitions of
+// the inch (0.0254 m), the pound (0.45359237 kg) and standard gravity (9.80665 m/s²) of the 1959
+// international yard and pound agreement and the 3rd CGPM (1901); the conventional millimetre of
+// mercury is 13.5951 g/cm³ × 9.80665 m/s² × 1 mm (NIST SP 811 (2008), App. B.8 lists
+// 1.333 224 E+02 Pa; from memory).
+const (
+	// Bar is 1 bar in pascal (exact).
+	Bar = 1e5
+	// PoundPerSquareInch is 1 psi (lbf/in²) in pascal (exact from its definition).
+	PoundPerSquareInch = 0.45359237 * 9.80665 / (0.0254 * 0.0254)
+	// MillimetreOfMercury is 1 mmHg (conventional) in pascal.
+	MillimetreOfMercury = 13.5951e3 * 9.80665 * 1e-3
+	// Mil is one thousandth of an inch in metre (exact), the trade's unit of dielectric film.
+	Mil = 0.0254e-3
+	// Inch is 0.0254 m (exact).
+	Inch = 0.0254
+	// ZeroCelsius is 0 °C in kelvin (exact).
+	ZeroCelsius = 273.15
+)
 
 var baseUnits = map[string]baseUnit{
 	"m":    {1, Length, true},
@@ -86,21 +100,61 @@ var baseUnits = map[string]baseUnit{
 	"Torr": {Torr, Pressure, true},
 	"torr": {Torr, Pressure, true},
 	"atm":  {Atmosphere, Pressure, false},
-	"bar":  {1e5, Pressure, true},
+	"bar":  {Bar, Pressure, true},
+	"psi":  {PoundPerSquareInch, Pressure, false},
+	"mmHg": {MillimetreOfMercury, Pressure, false},
+	"mil":  {Mil, Length, false},
+	"in":   {Inch, Length, false},
+	"inch": {Inch, Length, false},
 	"%":    {0.01, Dimensionless, false},
 }
 
 var prefixes = map[string]float64{
 	"f": 1e-15, "p": 1e-12, "n": 1e-9, "u": 1e-6, "µ": 1e-6, "μ": 1e-6, "m": 1e-3,
-	"c": 1e-2, "d": 1e-1, "k": 1e3, "M": 1e6, "G": 1e9, "T": 1e12,
+	"c": 1e-2, "d": 1e-1, "h": 1e2, "k": 1e3, "M": 1e6, "G": 1e9, "T": 1e12,
+}
+
+// celsius are the spellings of the degree Celsius, an offset unit allowed only on its own.
+var celsius = []string{"°C", "℃", "degC", "deg C"}
+
+// MaxPower bounds the power of each SI base unit in a unit expression: no quantity of the
+// trade needs more, and a larger power is a typing mistake ("m^256").
+const MaxPower = 30
+
+// examples suggests, per dimension, the units a builder would write.
+var examples = map[Dimension]string{
+	Length: "mm, cm, m, mil", Time: "ns, µs", Temperature: "K, °C", Pressure: "Pa, Torr, mbar, bar, atm, psi",
+	Voltage: "V, kV", Capacitance: "pF, nF", Inductance: "nH, µH", Resistance: "ohm, kohm",
+	Area: "mm2, cm2", Speed: "m/s", Frequency: "Hz, s-1", Density: "cm-3, m-3",
+	RateConstant: "cm3/s, m3/s", Attenuation: "/m, /cm", ElectricField: "V/m, kV/cm",
+	ReducedField: "Td", Energy: "J, eV", Power: "W", Current: "A",
 }
 
 var superscripts = strings.NewReplacer("⁻", "-", "¹", "1", "²", "2", "³", "3", "⁴", "4", "⁵", "5")
 
-// Parse reads a number with an optional unit ("12 kV", "3.3nF", "1e-9 cm3/s", "40 Torr") and
-// returns it in SI. want is the dimension the caller expects; a number without a unit is taken
-// as SI already. The unit may be a product of symbols with integer powers, separated by spaces,
-// '*', '·' or '/': "cm^-3", "cm³/s", "atm cm2 V-2 s-1".
+// NoUnitError is a dimensioned value given as a bare number (other than 0): such a number is
+// never taken as SI silently, since a builder typing "40" for a pressure means Torr or mbar.
+type NoUnitError struct {
+	Text string    // the value as given
+	Want Dimension // the dimension expected
+}
+
+func (e *NoUnitError) Error() string {
+	ex := examples[e.Want]
+	if ex == "" {
+		ex = e.Want.String()
+	}
+	return fmt.Sprintf("%q has no unit: write e.g. \"%s %v\" (units of this quantity: %s; a bare number is taken as SI only for 0)",
+		e.Text, strings.TrimSpace(e.Text), e.Want, ex)
+}
+
+// Parse reads a number with a unit ("12 kV", "3.3nF", "1e-9 cm3/s", "40 Torr", "20 °C") and
+// returns it in SI. want is the dimension the caller expects. A bare number is accepted only
+// for a dimensionless quantity or for zero; any other bare number is a *NoUnitError that
+// suggests the unit. The unit may be a product of symbols with integer powers (at most
+// MaxPower in size), separated by spaces, '*', '·' or '/': "cm^-3", "cm³/s",
+// "atm cm2 V-2 s-1". Degrees Celsius ("°C", "℃", "degC") stand alone and only for a
+// temperature. The result is always finite.
 func Parse(text string, want Dimension) (float64, error) {
 	s := strings.TrimSpace(text)
 	if s == "" {
@@ -112,20 +166,40 @@ func Parse(text string, want Dimension) (float64, error) {
 	}
 	v, err := strconv.ParseFloat(s[:i], 64)
 	if err != nil {
-		return 0, fmt.Errorf("units: %q: bad number: %w", text, err)
+		return 0, fmt.Errorf("units: %q: number out of range of a float64", text)
 	}
 	unit := strings.TrimSpace(s[i:])
 	if unit == "" {
+		if want != Dimensionless && v != 0 {
+			return 0, &NoUnitError{Text: s, Want: want}
+		}
 		return v, nil
+	}
+	if slices.Contains(celsius, unit) {
+		if want != Temperature {
+			return 0, fmt.Errorf("units: %q is a temperature, want %v", text, want)
+		}
+		if v+ZeroCelsius < 0 {
+			return 0, fmt.Errorf("units: %q is below absolute zero", text)
+		}
+		return v + ZeroCelsius, nil
 	}
 	factor, dim, err := ParseUnit(unit)
 	if err != nil {
 		return 0, fmt.Errorf("units: %q: %w", text, err)
 	}
 	if dim != want {
-		return 0, fmt.Errorf("units: %q is in %v, want %v", text, dim, want)
+		hint := ""
+		if want == Temperature && unit == "C" {
+			hint = " (C is the coulomb; for degrees Celsius write °C or degC)"
+		}
+		return 0, fmt.Errorf("units: %q is in %v, want %v%s", text, dim, want, hint)
 	}
-	return v * factor, nil
+	r := v * factor
+	if math.IsInf(r, 0) || math.IsNaN(r) {
+		return 0, fmt.Errorf("units: %q is out of range of a float64 in SI", text)
+	}
+	return r, nil
 }
 
 // numberEnd returns the length of the leading floating-point literal of s.
@@ -158,11 +232,14 @@ func numberEnd(s string) int {
 	return i
 }
 
-// ParseUnit returns the SI factor and dimension of a unit expression such as "kV/cm" or "cm^-3".
+// ParseUnit returns the SI factor and dimension of a unit expression such as "kV/cm" or
+// "cm^-3". A power of any base unit beyond ±MaxPower, or a factor outside the range of a
+// float64, is an error.
 func ParseUnit(unit string) (float64, Dimension, error) {
 	unit = superscripts.Replace(unit)
-	factor, dim := 1.0, Dimension{}
-	sign := int8(1)
+	factor := 1.0
+	var dim [5]int
+	sign := 1
 	tok := strings.Builder{}
 	flush := func() error {
 		t := tok.String()
@@ -170,43 +247,59 @@ func ParseUnit(unit string) (float64, Dimension, error) {
 		if t == "" {
 			return nil
 		}
-		f, d, err := parseFactor(t)
+		f, d, pow, err := parseFactor(t)
 		if err != nil {
 			return err
 		}
-		factor *= math.Pow(f, float64(sign))
-		dim = dim.add(d, sign)
+		factor *= math.Pow(f, float64(sign*pow))
+		for k := range dim {
+			dim[k] += sign * pow * int(d[k])
+			if dim[k] > MaxPower || dim[k] < -MaxPower {
+				return fmt.Errorf("power of a base unit in %q beyond ±%d", unit, MaxPower)
+			}
+		}
 		return nil
 	}
 	for _, r := range unit {
 		switch {
 		case r == '/':
 			if err := flush(); err != nil {
-				return 0, dim, err
+				return 0, Dimension{}, err
 			}
 			sign = -1
 		case r == '*' || r == '·' || unicode.IsSpace(r):
 			if err := flush(); err != nil {
-				return 0, dim, err
+				return 0, Dimension{}, err
 			}
 		default:
 			tok.WriteRune(r)
 		}
 	}
 	if err := flush(); err != nil {
-		return 0, dim, err
+		return 0, Dimension{}, err
 	}
-	return factor, dim, nil
+	if factor == 0 || math.IsInf(factor, 0) || math.IsNaN(factor) {
+		return 0, Dimension{}, fmt.Errorf("unit %q is out of range of a float64", unit)
+	}
+	var d Dimension
+	for k := range dim {
+		d[k] = int8(dim[k])
+	}
+	return factor, d, nil
 }
 
-// parseFactor reads one symbol with optional prefix and power: "cm^-3", "cm3", "kV", "s-1".
-func parseFactor(t string) (float64, Dimension, error) {
+// parseFactor reads one symbol with optional prefix and power: "cm^-3", "cm3", "kV", "s-1". It
+// returns the factor of the prefixed symbol, its dimension and the power.
+func parseFactor(t string) (float64, Dimension, int, error) {
 	sym, pow := t, 1
 	if j := strings.IndexAny(t, "^-0123456789"); j > 0 {
 		sym = t[:j]
 		p, err := strconv.Atoi(strings.TrimPrefix(t[j:], "^"))
 		if err != nil {
-			return 0, Dimension{}, fmt.Errorf("bad power in unit %q", t)
+			return 0, Dimension{}, 0, fmt.Errorf("bad power in unit %q", t)
+		}
+		if p > MaxPower || p < -MaxPower {
+			return 0, Dimension{}, 0, fmt.Errorf("power %d in unit %q: allowed -%d to %d", p, t, MaxPower, MaxPower)
 		}
 		pow = p
 	}
@@ -223,10 +316,12 @@ func parseFactor(t string) (float64, Dimension, error) {
 		}
 	}
 	if !ok {
-		return 0, Dimension{}, fmt.Errorf("unknown unit %q", sym)
+		if slices.Contains(celsius, sym) || sym == "°" || sym == "deg" {
+			return 0, Dimension{}, 0, fmt.Errorf("°C stands alone, not in a product of units (%q)", t)
+		}
+		return 0, Dimension{}, 0, fmt.Errorf("unknown unit %q", sym)
 	}
-	f := math.Pow(b.factor*scale, float64(pow))
-	return f, Dimension{}.add(b.dim, int8(pow)), nil
+	return b.factor * scale, b.dim, pow, nil
 }
 
 // Format writes v (in the SI unit unit) with an SI prefix and three significant figures:

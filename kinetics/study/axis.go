@@ -124,3 +124,13 @@ func (a Axis) Header() string {
 
 // formatNumber writes v as the shortest decimal that reads back to the same float64.
 func formatNumber(v float64) string { return strconv.FormatFloat(v, 'g', -1, 64) }
+
+// siText writes an SI value of a design key as text that Design.Set reads back to the same
+// float64: the shortest decimal and the key's SI unit (a bare number is refused for a
+// dimensioned key).
+func siText(key string, v float64) string {
+	if u, _ := kinetics.KeyUnit(key); u != "" {
+		return formatNumber(v) + " " + u
+	}
+	return formatNumber(v)
+}
