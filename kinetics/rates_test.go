@@ -28,14 +28,15 @@ func TestSwarmRates(t *testing.T) {
 		}
 		for _, en := range ens {
 			c := tb.At(en)
-			want := [nRates]float64{c.DriftVelocity, c.Ionisation, c.Attachment, c.ExciteB, c.ExciteC}
+			want := [nRates]float64{c.DriftVelocity, c.Ionisation, c.Attachment, c.ExciteB, c.ExciteC, c.ExciteW, c.ExciteBPrime}
+			copy(want[ratePower:], c.Power[:])
 			var v, d [nRates]float64
 			r.at(en, 0, nRates, &v, &d)
 			if v != want {
 				t.Fatalf("%s at %g V m²: %v, Table.At %v", name, en, v, want)
 			}
 			var v1 [nRates]float64
-			r.at(en, rateExcB, nRates, &v1, nil)
+			r.at(en, rateExcB, rateExcC+1, &v1, nil)
 			if v1[rateExcB] != want[rateExcB] || v1[rateExcC] != want[rateExcC] {
 				t.Fatalf("%s at %g V m²: pump rates %v, want %v", name, en, v1, want)
 			}

@@ -5,15 +5,17 @@ import (
 	"fmt"
 	"math"
 
+	"n2pulse/kinetics/design"
 	"n2pulse/kinetics/ode"
 	"n2pulse/kinetics/spectro"
+	"n2pulse/kinetics/swarm"
 	"n2pulse/units"
 )
 
 // Run simulates one shot of the design and returns the waveforms and figures of merit.
 // Errors name what failed: a design value out of range, a swarm table that cannot be read,
 // or an integration that did not converge.
-func Run(d *Design, s *RunSettings) (*Result, error) {
+func Run(d *design.Design, s *RunSettings) (*Result, error) {
 	if s == nil {
 		s = &RunSettings{}
 	}
@@ -31,9 +33,16 @@ func Run(d *Design, s *RunSettings) (*Result, error) {
 
 	circ := newCircuit(d, table)
 	par.GapCapacitance = circ.cg
-	par.OpticalArea = d.Channel.Aperture
-	if par.OpticalArea == 0 {
-		par.OpticalArea = d.Channel.Gap * d.Channel.Width
+	var warnings []string
+	par.OpticalArea = d.Channel.Gap * d.Channel.Width // the discharge cross-section
+	if a := d.Channel.Aperture; a > par.OpticalArea {
+		// Light gains only inside the excited volume: an optical cross-section larger than
+		// the discharge's would multiply the photons of the same populations.
+		warnings = append(warnings, fmt.Sprintf(
+			"channel.aperture = %s is larger than the discharge cross-section channel.gap × channel.width = %s: the optics use %s (no gain outside the excited volume)",
+			squareMM(a), squareMM(par.OpticalArea), squareMM(par.OpticalArea)))
+	} else if a > 0 {
+		par.OpticalArea = a
 	}
 	n := d.Numerics.Cells
 	par.CellLength = d.Channel.Length / float64(n)
@@ -49,6 +58,10 @@ func Run(d *Design, s *RunSettings) (*Result, error) {
 	sh := newShot(d, &res.Parameters, wf, steps, s)
 	sh.run(res)
 	sh.summarise(res)
+	res.Warnings = append(res.Warnings, warnings...)
+	if err := checkPumpBound(&res.Summary); err != nil {
+		return nil, err
+	}
 	res.Summary.StoredEnergy = wf.stored
 	res.Summary.DepositedEnergy = wf.deposited
 	res.Summary.EnergyBalanceResidual = wf.energyResidual
@@ -58,6 +71,7 @@ func Run(d *Design, s *RunSettings) (*Result, error) {
 	if wf.stored > 0 {
 		res.Summary.Efficiency = res.Summary.EnergyTotal / wf.stored
 	}
+	account(d, &res.Parameters, wf, &res.Summary)
 	res.Stats.TableBelow, res.Stats.TableAbove = circ.below, circ.above
 	if wf.fieldAbove {
 		lo, hi := table.Range()
@@ -71,6 +85,7 @@ func Run(d *Design, s *RunSettings) (*Result, error) {
 			units.Format(d.Numerics.EndTime, "s")))
 	}
 	res.Summary.Derived = append([]string(nil), d.Derived...)
+	res.Summary.Warnings = append([]string(nil), res.Warnings...)
 	v := Verdict(d, res)
 	res.Summary.Lases, res.Summary.Verdict, res.Summary.Advice = v.Lases, v.Summary, v.Advice
 	if s.Light {
@@ -82,9 +97,23 @@ func Run(d *Design, s *RunSettings) (*Result, error) {
 	return res, nil
 }
 
+// squareMM formats an area in mm² (units.Format would put its prefix on the metre).
+func squareMM(a float64) string { return fmt.Sprintf("%.3g mm²", a*1e6) }
+
+// checkPumpBound is the invariant energy in ≥ light out: the pulse energy cannot exceed one
+// laser photon for every excitation into C(0) of the discharge volume. A violation is a
+// fault of the model, not of the design, and is returned as an error.
+func checkPumpBound(s *Summary) error {
+	if s.EnergyTotal <= s.UpperPumpedPhotonEnergy*(1+1e-9) {
+		return nil
+	}
+	return fmt.Errorf("kinetics: the pulse energy %s exceeds the %s of one laser photon per excitation into C(0): light from nowhere, a fault of the model (please report it with the design)",
+		units.Format(s.EnergyTotal, "J"), units.Format(s.UpperPumpedPhotonEnergy, "J"))
+}
+
 // laserParameters takes σ, g_C/g_B, A₀₀, τ_C, f_C, f_B and λ from package spectro for the
 // design's pressure and temperature, then applies the design's overrides.
-func laserParameters(d *Design) (Parameters, []string, error) {
+func laserParameters(d *design.Design) (Parameters, []string, error) {
 	lp, err := spectro.Laser(d.Gas.Pressure, d.Gas.Temperature)
 	if err != nil {
 		return Parameters{}, nil, fmt.Errorf("kinetics: spectroscopy: %w", err)
@@ -93,6 +122,7 @@ func laserParameters(d *Design) (Parameters, []string, error) {
 		CrossSection: lp.CrossSection, DegeneracyRatio: lp.DegeneracyRatio,
 		EinsteinA00: lp.EinsteinA00, UpperLifetime: lp.UpperLifetime,
 		UpperShare: lp.UpperShare, LowerShare: lp.LowerShare, Wavelength: lp.VacuumWavelength,
+		UpperEnergy: lp.UpperEnergy,
 	}
 	var over []string
 	o := d.Spectroscopy
@@ -115,22 +145,26 @@ func laserParameters(d *Design) (Parameters, []string, error) {
 		}
 	}
 	if p.EinsteinA00*p.UpperLifetime > 1 {
-		return p, over, &KeyError{Key: "spectroscopy.einstein_a00", Value: fmt.Sprintf("%g s⁻¹", p.EinsteinA00),
+		return p, over, &design.KeyError{Key: "spectroscopy.einstein_a00", Value: fmt.Sprintf("%g s⁻¹", p.EinsteinA00),
 			Problem: fmt.Sprintf("A₀₀ exceeds the total radiative rate 1/τ_C = %g s⁻¹", 1/p.UpperLifetime)}
 	}
 	p.PhotonEnergy = units.Planck * units.SpeedOfLight / p.Wavelength
 	p.GasDensity = gasDensity(d.Gas)
-	p.UpperDecayRate = d.Levels.UpperDecayRate(p.UpperLifetime, d.Gas)
-	p.LowerDecayRate = d.Levels.LowerDecayRate(d.Gas)
+	p.UpperDecayRate = upperDecayRate(d.Levels, p.UpperLifetime, d.Gas)
+	p.LowerDecayRate = lowerDecayRate(d.Levels, d.Gas)
 	return p, over, nil
 }
 
 // waveforms are the circuit and discharge quantities sampled at the middle of every optical
 // step, (k+½)·Δt.
 type waveforms struct {
-	voltage, current, field, density []float64 // V_ch [V], channel current [A], E/N [V m²], n_e [m⁻³]
-	pumpC, pumpB                     []float64 // excitation rates into C(0) and B(0) [m⁻³ s⁻¹]
-	stored, deposited                float64   // [J]
+	voltage, current, field, density []float64                  // V_ch [V], channel current [A], E/N [V m²], n_e [m⁻³]
+	pumpC, pumpB                     []float64                  // excitation rates into C(0) and B(0) [m⁻³ s⁻¹]
+	stored, deposited                float64                    // [J]
+	switchLoss, shuntLoss, left      float64                    // dissipated in the switch and the shunt, left in the circuit [J]
+	plasmaSplit                      [swarm.NumChannels]float64 // Σ plasma power × channel share × Δt over the samples [J]
+	plasmaSampled                    float64                    // Σ plasma power × Δt over the samples [J]
+	split                            bool                       // the swarm table has a power split
 	energyResidual                   float64
 	peakField, peakCurrent           float64
 	peakDensity                      float64
@@ -138,7 +172,7 @@ type waveforms struct {
 }
 
 // solveCircuit integrates the circuit and discharge from closure to steps·dt and samples them.
-func solveCircuit(c *circuit, d *Design, par *Parameters, steps int) (*waveforms, Stats, error) {
+func solveCircuit(c *circuit, d *design.Design, par *Parameters, steps int) (*waveforms, Stats, error) {
 	dt := par.TimeStep
 	y0, stored := c.initial(d.Circuit.ChargeVoltage, d.Discharge.SeedDensity)
 	v0 := d.Circuit.ChargeVoltage
@@ -195,6 +229,14 @@ func solveCircuit(c *circuit, d *Design, par *Parameters, steps int) (*waveforms
 			w.density[k] = ne
 			w.pumpC[k] = kC * ne * shareC
 			w.pumpB[k] = kB * ne * shareB
+			if share, ok := c.powerSplit(y[iVg]); ok {
+				pw := y[iVg] * c.plasmaCurrentQuiet(y[iVg], ne) * dt
+				w.split = true
+				w.plasmaSampled += pw
+				for j, f := range share {
+					w.plasmaSplit[j] += f * pw
+				}
+			}
 			w.peakField = math.Max(w.peakField, w.field[k])
 			w.peakCurrent = math.Max(w.peakCurrent, math.Abs(y[iIc]))
 			w.peakDensity = math.Max(w.peakDensity, ne)
@@ -206,6 +248,7 @@ func solveCircuit(c *circuit, d *Design, par *Parameters, steps int) (*waveforms
 	_, yEnd := integ.State()
 	w.deposited = yEnd[iEPlasma]
 	left := c.storedEnergy(yEnd)
+	w.switchLoss, w.shuntLoss, w.left = yEnd[iESwitch], yEnd[iEShunt], left
 	w.energyResidual = math.Abs(stored-(left+yEnd[iESwitch]+yEnd[iEPlasma]+yEnd[iEShunt])) / stored
 	return w, Stats{Circuit: integ.Stats()}, nil
 }

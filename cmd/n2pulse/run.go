@@ -12,6 +12,7 @@ import (
 	"strings"
 
 	"n2pulse/kinetics"
+	"n2pulse/kinetics/design"
 	"n2pulse/kinetics/study"
 	"n2pulse/units"
 )
@@ -25,14 +26,14 @@ func init() {
 }
 
 // loadDesign reads the design named by args (or the built-in example) and applies --set.
-func loadDesign(args []string, sets []string) (*kinetics.Design, error) {
-	var d *kinetics.Design
+func loadDesign(args []string, sets []string) (*design.Design, error) {
+	var d *design.Design
 	switch len(args) {
 	case 0:
-		d = kinetics.ExampleDesign()
+		d = design.ExampleDesign()
 	case 1:
 		var err error
-		if d, err = kinetics.LoadDesign(args[0]); err != nil {
+		if d, err = design.LoadDesign(args[0]); err != nil {
 			return nil, err
 		}
 	default:
@@ -112,7 +113,7 @@ func runRun(args []string, stdout, stderr io.Writer) error {
 }
 
 // printSummary writes the readable summary and the caution line.
-func printSummary(w io.Writer, d *kinetics.Design, r *kinetics.Result) {
+func printSummary(w io.Writer, d *design.Design, r *kinetics.Result) {
 	s := r.Summary
 	name := d.Name
 	if name == "" {
@@ -127,10 +128,11 @@ func printSummary(w io.Writer, d *kinetics.Design, r *kinetics.Result) {
 	row("first to last half maximum", units.Format(s.HalfMaxWidth, "s"))
 	row("rise 10–90 %", units.Format(s.Rise, "s"))
 	row("delay from switch closure", units.Format(s.Delay, "s"))
-	row("efficiency", fmt.Sprintf("%.3g %% of %s stored", 100*s.Efficiency, units.Format(s.StoredEnergy, "J")))
+	row("efficiency (fraction)", fmt.Sprintf("%.3g of %s stored (%.3g %%)", s.Efficiency, units.Format(s.StoredEnergy, "J"), 100*s.Efficiency))
 	row("energy into the plasma", units.Format(s.DepositedEnergy, "J"))
+	printAccount(row, s)
 	row("peak E/N", fmt.Sprintf("%.0f Td", s.PeakReducedField))
-	row("peak current", units.Format(s.PeakCurrent, "A"))
+	row("peak current", fmt.Sprintf("%s (%.3g kA/cm²)", units.Format(s.PeakCurrent, "A"), s.PeakCurrentDensity*1e-7))
 	row("peak electron density", fmt.Sprintf("%.3g cm⁻³", s.PeakElectronDensity*1e-6))
 	row("peak gain", fmt.Sprintf("%.3g cm⁻¹ (gain × length %.3g)", s.PeakGain/100, s.GainLength))
 	row("inversion duration", units.Format(s.InversionDuration, "s"))
@@ -153,6 +155,30 @@ func printSummary(w io.Writer, d *kinetics.Design, r *kinetics.Result) {
 	}
 }
 
+// printAccount writes the loading and where the stored energy went, in per cent of the
+// stored energy (plasma channels in per cent of the plasma's share).
+func printAccount(row func(label, value string), s kinetics.Summary) {
+	a := s.Energy
+	row("specific loading", fmt.Sprintf("%.3g J/cm³, %.3g eV per molecule", s.SpecificEnergy*1e-6, s.EnergyPerMolecule))
+	if a.Stored <= 0 {
+		return
+	}
+	pc := func(x float64) string { return fmt.Sprintf("%.3g %%", 100*x/a.Stored) }
+	parts := fmt.Sprintf("switch %s, plasma %s, left in the circuit %s", pc(a.Switch), pc(a.Plasma), pc(a.LeftInCircuit))
+	if a.Shunt > 0 {
+		parts += ", shunt " + pc(a.Shunt)
+	}
+	row("stored energy went to", parts)
+	sp := a.PlasmaSplit
+	if a.Plasma > 0 && sp != (kinetics.PlasmaSplit{}) {
+		q := func(x float64) string { return fmt.Sprintf("%.2g %%", 100*x/a.Plasma) }
+		row("plasma energy by channel", fmt.Sprintf("vibrational %s, elastic %s, A %s, B %s, W %s, B′ %s, C %s, other electronic %s, ionisation %s, attachment %s",
+			q(sp.Vibrational), q(sp.Elastic), q(sp.StateA), q(sp.StateB), q(sp.StateW), q(sp.StateBPrime), q(sp.StateC),
+			q(sp.OtherElectronic), q(sp.Ionisation), q(sp.Attachment)))
+	}
+	row("into C(0), out as light", fmt.Sprintf("%s (%s of stored), %s", units.Format(a.UpperLevel, "J"), pc(a.UpperLevel), units.Format(a.Laser, "J")))
+}
+
 // caution returns the safety line for a design whose stored or pulse energy is above harmless
 // levels (0.1 J stored: common practice, no source; a 337 nm pulse of 1 µJ exceeds eye
 // exposure limits, common practice, no source).
@@ -171,7 +197,7 @@ func caution(stored, pulse float64) string {
 }
 
 // writeRunOutputs writes waveforms.csv, summary.json and the figures into dir.
-func writeRunOutputs(dir string, d *kinetics.Design, r *kinetics.Result) error {
+func writeRunOutputs(dir string, d *design.Design, r *kinetics.Result) error {
 	if err := os.MkdirAll(dir, 0o755); err != nil {
 		return err
 	}

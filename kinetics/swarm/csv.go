@@ -21,6 +21,40 @@ var Columns = []string{"reduced_field_Td", "mean_energy_eV", "drift_velocity_m_s
 // ncols is the number of required columns.
 const ncols = 10
 
+// OptionalColumns may follow the Columns anywhere in the header, found by name: the rate
+// coefficients of X → W³Δu and X → B′³Σu⁻ per N₂ molecule, and the power per electron and
+// per molecule of the whole gas taken by each Channel of the power split, in eV m³/s. A
+// table without them reads as zeros (no power split, no W and B′ feed).
+var OptionalColumns = func() []string {
+	c := []string{"k_W_m3_s", "k_Bp_m3_s"}
+	for ch := range NumChannels {
+		c = append(c, "power_"+ch.String()+"_eV_m3_s")
+	}
+	return c
+}()
+
+// optionalValues returns the optional values of c in the order of OptionalColumns, in the
+// CSV's units.
+func optionalValues(c *Coefficients) []float64 {
+	v := []float64{c.ExciteW, c.ExciteBPrime}
+	for _, p := range c.Power {
+		v = append(v, p/units.ElectronVolt)
+	}
+	return v
+}
+
+// setOptional sets the optional value number i (in the order of OptionalColumns, CSV units).
+func setOptional(c *Coefficients, i int, x float64) {
+	switch i {
+	case 0:
+		c.ExciteW = x
+	case 1:
+		c.ExciteBPrime = x
+	default:
+		c.Power[i-2] = x * units.ElectronVolt
+	}
+}
+
 // ReadCSV reads a swarm table: an optional block of '#' comment lines, a header with at least
 // the Columns in order, then one row per reduced field. Errors read "name:line: column: problem".
 func ReadCSV(r io.Reader, name string) (*Table, error) {
@@ -42,6 +76,16 @@ func ReadCSV(r io.Reader, name string) (*Table, error) {
 	for i, c := range Columns {
 		if strings.TrimSpace(head[i]) != c {
 			return nil, fmt.Errorf("swarm: %s:%d: header: column %d is %q, want %q", name, hline, i+1, head[i], c)
+		}
+	}
+	optAt := make([]int, len(OptionalColumns)) // header index of each optional column, or −1
+	for i, name := range OptionalColumns {
+		optAt[i] = -1
+		for j := len(Columns); j < len(head); j++ {
+			if strings.TrimSpace(head[j]) == name {
+				optAt[i] = j
+				break
+			}
 		}
 	}
 	var rows []Coefficients
@@ -81,11 +125,28 @@ func ReadCSV(r io.Reader, name string) (*Table, error) {
 		if n := len(rows); n > 0 && v[0]*units.Townsend <= rows[n-1].ReducedField {
 			return nil, fmt.Errorf("swarm: %s:%d: %s: %g Td is not above the previous row", name, ln, Columns[0], v[0])
 		}
-		rows = append(rows, Coefficients{
+		row := Coefficients{
 			ReducedField: v[0] * units.Townsend, MeanEnergy: v[1] * units.ElectronVolt,
 			DriftVelocity: v[2], AlphaN: v[3], EtaN: v[4], Ionisation: v[5], Attachment: v[6],
 			ExciteA: v[7], ExciteB: v[8], ExciteC: v[9],
-		})
+		}
+		for i, j := range optAt {
+			if j < 0 {
+				continue
+			}
+			if j >= len(rec) {
+				return nil, fmt.Errorf("swarm: %s:%d: %s: missing (row has %d columns, the header %d)", name, ln, OptionalColumns[i], len(rec), len(head))
+			}
+			x, err := strconv.ParseFloat(strings.TrimSpace(rec[j]), 64)
+			if err != nil || math.IsNaN(x) || math.IsInf(x, 0) {
+				return nil, fmt.Errorf("swarm: %s:%d: %s: %q is not a finite number", name, ln, OptionalColumns[i], rec[j])
+			}
+			if x < 0 {
+				return nil, fmt.Errorf("swarm: %s:%d: %s: %g is negative", name, ln, OptionalColumns[i], x)
+			}
+			setOptional(&row, i, x)
+		}
+		rows = append(rows, row)
 	}
 	if len(rows) == 0 {
 		return nil, fmt.Errorf("swarm: %s: %w", name, ErrEmpty)
@@ -100,7 +161,8 @@ func ReadCSV(r io.Reader, name string) (*Table, error) {
 	return t, nil
 }
 
-// WriteCSV writes the table with the Columns header, E/N in Td and mean energy in eV.
+// WriteCSV writes the table with the Columns and OptionalColumns header, E/N in Td and mean
+// energy in eV.
 func (t *Table) WriteCSV(w io.Writer) error {
 	return writeCSV(w, nil, t.rows, nil, nil)
 }
@@ -112,11 +174,13 @@ func writeCSV(w io.Writer, comments []string, rows []Coefficients, extraNames []
 	for _, c := range comments {
 		fmt.Fprintf(bw, "# %s\n", c)
 	}
-	bw.WriteString(strings.Join(append(append([]string(nil), Columns...), extraNames...), ","))
+	head := append(append([]string(nil), Columns...), OptionalColumns...)
+	bw.WriteString(strings.Join(append(head, extraNames...), ","))
 	bw.WriteByte('\n')
 	for i, r := range rows {
 		vals := []float64{r.ReducedField / units.Townsend, r.MeanEnergy / units.ElectronVolt,
 			r.DriftVelocity, r.AlphaN, r.EtaN, r.Ionisation, r.Attachment, r.ExciteA, r.ExciteB, r.ExciteC}
+		vals = append(vals, optionalValues(&r)...)
 		if extra != nil {
 			vals = append(vals, extra[i]...)
 		}

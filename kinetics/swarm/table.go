@@ -23,19 +23,44 @@ type Coefficients struct {
 	ExciteA       float64 // k for X → A³Σu⁺ (all v) [m³/s]
 	ExciteB       float64 // k for X → B³Πg (all v) [m³/s]
 	ExciteC       float64 // k for X → C³Πu (all v) [m³/s]
+
+	// Optional: zero in a table that does not give them.
+	ExciteW      float64              // k for X → W³Δu, per N₂ molecule [m³/s]
+	ExciteBPrime float64              // k for X → B′³Σu⁻, per N₂ molecule [m³/s]
+	Power        [NumChannels]float64 // power taken by each Channel, per electron and per molecule of the whole gas [J m³/s]
 }
 
-// nfields is the number of interpolated quantities after ReducedField.
-const nfields = 9
+// nbase is the number of interpolated quantities after ReducedField that every table has;
+// nfields counts the optional ones too.
+const (
+	nbase   = 9
+	nfields = nbase + 2 + int(NumChannels)
+)
 
 func (c *Coefficients) values() [nfields]float64 {
-	return [nfields]float64{c.MeanEnergy, c.DriftVelocity, c.AlphaN, c.EtaN, c.Ionisation,
-		c.Attachment, c.ExciteA, c.ExciteB, c.ExciteC}
+	v := [nfields]float64{c.MeanEnergy, c.DriftVelocity, c.AlphaN, c.EtaN, c.Ionisation,
+		c.Attachment, c.ExciteA, c.ExciteB, c.ExciteC, c.ExciteW, c.ExciteBPrime}
+	copy(v[nbase+2:], c.Power[:])
+	return v
 }
 
 func fromValues(en float64, v *[nfields]float64) Coefficients {
-	return Coefficients{ReducedField: en, MeanEnergy: v[0], DriftVelocity: v[1], AlphaN: v[2],
-		EtaN: v[3], Ionisation: v[4], Attachment: v[5], ExciteA: v[6], ExciteB: v[7], ExciteC: v[8]}
+	c := Coefficients{ReducedField: en, MeanEnergy: v[0], DriftVelocity: v[1], AlphaN: v[2],
+		EtaN: v[3], Ionisation: v[4], Attachment: v[5], ExciteA: v[6], ExciteB: v[7], ExciteC: v[8],
+		ExciteW: v[9], ExciteBPrime: v[10]}
+	copy(c.Power[:], v[nbase+2:])
+	return c
+}
+
+// HasPowerSplit reports whether the coefficients carry a power split (tables written before
+// the split was added, and user tables without its columns, do not).
+func (c *Coefficients) HasPowerSplit() bool {
+	for _, p := range c.Power {
+		if p > 0 {
+			return true
+		}
+	}
+	return false
 }
 
 // Table is a swarm table: Coefficients at ascending reduced fields, interpolated linearly in
@@ -113,7 +138,13 @@ func NewTable(rows []Coefficients) (*Table, error) {
 // linearMark flags an interval where a value is zero at one end and is interpolated linearly.
 var linearMark = math.Inf(1)
 
-var fieldNames = [nfields]string{"mean energy", "drift velocity", "alpha/N", "eta/N", "k_ion", "k_att", "k_A", "k_B", "k_C"}
+var fieldNames = func() [nfields]string {
+	n := [nfields]string{"mean energy", "drift velocity", "alpha/N", "eta/N", "k_ion", "k_att", "k_A", "k_B", "k_C", "k_W", "k_Bp"}
+	for c := range NumChannels {
+		n[nbase+2+int(c)] = "power " + c.String()
+	}
+	return n
+}()
 
 // ErrEmpty is returned by readers when a table has no rows.
 var ErrEmpty = errors.New("swarm: table has no rows")
