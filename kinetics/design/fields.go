@@ -156,7 +156,8 @@ func (e *KeyError) Error() string {
 }
 
 // Set assigns one design key from text, as on the command line: Set("gas.pressure", "40 Torr").
-// Numbers may carry any unit of the key's dimension; a bare number is SI.
+// Numbers carry any unit of the key's dimension; a bare number is refused for a dimensioned
+// key unless it is 0 (the error suggests the unit).
 //
 // The [build] keys are accepted too (Set("build.switch_plate_width", "12 cm")). After a build
 // key, the channel length or the channel gap changes, the circuit values derived from the build
@@ -251,7 +252,7 @@ func bareNumber(key string, dim units.Dimension, x float64) error {
 	}
 	text := strconv.FormatFloat(x, 'g', -1, 64)
 	return &KeyError{Key: key, Value: text, Problem: (&units.NoUnitError{Text: text, Want: dim}).Error() +
-		"; in a design file quote it: key = \"" + text + " " + dim.String() + "\""}
+		"; in a design file quote it: " + key[strings.LastIndex(key, ".")+1:] + " = \"" + text + " " + dim.String() + "\""}
 }
 
 func (f *field) want() string {

@@ -29,7 +29,7 @@ const maxAxisPoints = 100000
 
 // ParseAxis reads an axis written KEY=FROM:TO:N[:log], for example
 // "gas.pressure=20Torr:760Torr:20:log". FROM and TO take any unit of the key's dimension (a bare
-// number is SI); both ends are checked against the key's allowed range on a copy of base.
+// number is refused for a dimensioned key, 0 excepted); both ends are checked against the key's allowed range on a copy of base.
 func ParseAxis(text string, base *design.Design) (Axis, error) {
 	key, rng, ok := strings.Cut(text, "=")
 	key = strings.TrimSpace(key)
