@@ -149,3 +149,31 @@ func TestUnitOf(t *testing.T) {
 		}
 	}
 }
+
+// TestParseDecimalExact checks that a value in a decimal unit is the float64 nearest the
+// decimal it denotes, as if typed in SI: "0.1 pF" is the literal 1e-13 (0.1 × 1e-12 in floating
+// point is 9.999999999999999e-14, below a range that starts at 1e-13).
+func TestParseDecimalExact(t *testing.T) {
+	t.Parallel()
+	cases := []struct {
+		in   string
+		dim  Dimension
+		want float64
+	}{
+		{"0.1 pF", Capacitance, 1e-13},
+		{"0.1pF", Capacitance, 1e-13},
+		{"22.5 mm", Length, 0.0225},
+		{"2.5 cm", Length, 0.025},
+		{"1e-9 cm3/s", RateConstant, 1e-15},
+		{"3 nH", Inductance, 3e-9},
+		{"7. ns", Time, 7e-9},
+		{"1.1e-3 km", Length, 1.1},
+		{"1 mbar", Pressure, 100},
+	}
+	for _, c := range cases {
+		got, err := Parse(c.in, c.dim)
+		if err != nil || got != c.want {
+			t.Errorf("Parse(%q) = %v (%v), want exactly %v", c.in, got, err, c.want)
+		}
+	}
+}

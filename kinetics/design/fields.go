@@ -141,6 +141,12 @@ func KeyUnit(key string) (unit string, ok bool) {
 	return f.unit, true
 }
 
+// KeyInteger reports whether a design key takes whole numbers only (numerics.cells).
+func KeyInteger(key string) bool {
+	f, ok := fieldIndex[key]
+	return ok && f.integer
+}
+
 // KeyError is a design value that is unknown, malformed or out of range.
 type KeyError struct {
 	Key     string // dotted key

@@ -99,20 +99,31 @@ func (a Axis) Check() error {
 	return nil
 }
 
-// Values returns the N grid values in SI; the ends are exactly From and To.
+// Values returns the N grid values in SI. The ends are exactly From and To; the values
+// between are rounded to 15 significant digits, so that an axis between decimal ends gives
+// the decimals one would type (0.00225, not 0.0022500000000000003), and to whole numbers for
+// a whole-number key (numerics.cells); they never leave [From, To].
 func (a Axis) Values() []float64 {
 	v := make([]float64, a.N)
+	v[0] = a.From
 	if a.N == 1 {
-		v[0] = a.From
 		return v
 	}
-	for i := range v {
-		f := float64(i) / float64(a.N-1)
+	whole := design.KeyInteger(a.Key)
+	lo, hi := min(a.From, a.To), max(a.From, a.To)
+	n := float64(a.N - 1)
+	for i := 1; i < a.N-1; i++ {
+		var x float64
 		if a.Log {
-			v[i] = math.Exp(math.Log(a.From) + f*(math.Log(a.To)-math.Log(a.From)))
+			x = a.From * math.Pow(a.To/a.From, float64(i)/n)
 		} else {
-			v[i] = a.From + f*(a.To-a.From)
+			x = (a.From*(n-float64(i)) + a.To*float64(i)) / n
 		}
+		x, _ = strconv.ParseFloat(strconv.FormatFloat(x, 'g', 15, 64), 64)
+		if whole {
+			x = math.Round(x)
+		}
+		v[i] = max(lo, min(hi, x))
 	}
 	v[a.N-1] = a.To
 	return v
