@@ -76,6 +76,9 @@ var fieldList = []field{
 	{key: "levels.lower_lifetime", dim: units.Time, unit: "s", num: func(d *Design) *float64 { return &d.Levels.LowerLifetime }, min: 1e-9, max: 1e-3, help: "radiative lifetime of B(0)"},
 	{key: "levels.lower_removal_nitrogen", dim: units.RateConstant, unit: "m³/s", num: func(d *Design) *float64 { return &d.Levels.LowerRemovalNitrogen }, min: 0, max: 1e-14, help: "removal of B(0) by N₂"},
 	{key: "levels.lower_removal_oxygen", dim: units.RateConstant, unit: "m³/s", num: func(d *Design) *float64 { return &d.Levels.LowerRemovalOxygen }, min: 0, max: 1e-14, help: "removal of B(0) by O₂"},
+	{key: "levels.manifold_share", dim: units.Dimensionless, num: func(d *Design) *float64 { return &d.Levels.ManifoldShare }, min: 0, max: 1, help: "share of the B(v>0)/W/B′ manifold's relaxation by N₂ that ends in B(0) (not published; estimate 0.2–1)"},
+	{key: "levels.manifold_relaxation_nitrogen", dim: units.RateConstant, unit: "m³/s", num: func(d *Design) *float64 { return &d.Levels.ManifoldRelaxationNitrogen }, min: 0, max: 1e-14, help: "collisional relaxation of the B(v>0)/W/B′ manifold by N₂"},
+	{key: "levels.manifold_relaxation_oxygen", dim: units.RateConstant, unit: "m³/s", num: func(d *Design) *float64 { return &d.Levels.ManifoldRelaxationOxygen }, min: 0, max: 1e-14, help: "removal of the B(v>0)/W/B′ manifold by O₂"},
 
 	{key: "optics.rear_reflectivity", dim: units.Dimensionless, num: func(d *Design) *float64 { return &d.Optics.RearReflectivity }, min: 0, max: 1, help: "power reflectivity at the rear end (z = 0)"},
 	{key: "optics.front_reflectivity", dim: units.Dimensionless, num: func(d *Design) *float64 { return &d.Optics.FrontReflectivity }, min: 0, max: 0.999, help: "power reflectivity at the output end (z = L)"},
