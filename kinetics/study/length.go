@@ -70,12 +70,12 @@ func (s *LengthScan) check() error {
 		return fmt.Errorf("study: length scan: --from %g m, --to %g m: want 0 < from < to", s.From, s.To)
 	}
 	for _, l := range []float64{s.From, s.To} {
-		if err := s.Design.Clone().Set("channel.length", formatNumber(l)); err != nil {
+		if err := s.Design.Clone().Set("channel.length", siText("channel.length", l)); err != nil {
 			return fmt.Errorf("study: length scan: %w", err)
 		}
 	}
 	if s.TravellingWave != 0 {
-		if err := s.Design.Clone().Set("optics.excitation_velocity", formatNumber(s.TravellingWave)); err != nil {
+		if err := s.Design.Clone().Set("optics.excitation_velocity", siText("optics.excitation_velocity", s.TravellingWave)); err != nil {
 			return fmt.Errorf("study: length scan: --travelling-wave: %w", err)
 		}
 	}
