@@ -88,6 +88,12 @@ func Run(d *design.Design, s *RunSettings) (*Result, error) {
 	res.Summary.Warnings = append([]string(nil), res.Warnings...)
 	v := Verdict(d, res)
 	res.Summary.Lases, res.Summary.Verdict, res.Summary.Advice = v.Lases, v.Summary, v.Advice
+	res.Summary.Regime = regimeChecks(d, &res.Parameters, wf, &res.Summary)
+	res.Summary.UniformGlow = true
+	if note := regimeNote(res.Summary.Regime); note != "" {
+		res.Summary.UniformGlow = false
+		res.Summary.Verdict += "; " + note
+	}
 	if s.Light {
 		res.Time, res.ChannelVoltage, res.Current, res.ReducedField = nil, nil, nil, nil
 		res.ElectronDensity, res.UpperLevel, res.LowerLevel = nil, nil, nil
@@ -164,6 +170,8 @@ type waveforms struct {
 	switchLoss, shuntLoss, left      float64                    // dissipated in the switch and the shunt, left in the circuit [J]
 	plasmaSplit                      [swarm.NumChannels]float64 // Σ plasma power × channel share × Δt over the samples [J]
 	plasmaSampled                    float64                    // Σ plasma power × Δt over the samples [J]
+	plasmaPower                      []float64                  // plasma power at each sample [W]
+	manifold                         *manifold                  // the B(v>0)/W/B′ reservoir over the run
 	split                            bool                       // the swarm table has a power split
 	energyResidual                   float64
 	peakField, peakCurrent           float64
@@ -200,11 +208,13 @@ func solveCircuit(c *circuit, d *design.Design, par *Parameters, steps int) (*wa
 		voltage: make([]float64, steps), current: make([]float64, steps),
 		field: make([]float64, steps), density: make([]float64, steps),
 		pumpC: make([]float64, steps), pumpB: make([]float64, steps),
-		stored: stored,
+		plasmaPower: make([]float64, steps),
+		stored:      stored,
 	}
 	_, hi := c.table.Range()
 	nX := c.density * d.Gas.Nitrogen
 	shareC, shareB := par.UpperShare*nX, par.LowerShare*nX
+	man := newManifold(d.Levels, d.Gas, c.density, dt)
 	y := make([]float64, nState)
 	k := 0
 	for k < steps {
@@ -222,15 +232,16 @@ func solveCircuit(c *circuit, d *design.Design, par *Parameters, steps int) (*wa
 				return nil, Stats{}, fmt.Errorf("kinetics: circuit: %w", err)
 			}
 			ne := math.Exp(y[iLnNe])
-			kB, kC := c.pumpRates(y[iVg])
+			kB, kC, kW, kBp := c.pumpRates(y[iVg])
 			w.voltage[k] = y[iVg]
 			w.current[k] = y[iIc]
 			w.field[k] = c.reducedField(y[iVg])
 			w.density[k] = ne
 			w.pumpC[k] = kC * ne * shareC
-			w.pumpB[k] = kB * ne * shareB
+			w.pumpB[k] = kB*ne*shareB + man.step(((1-par.LowerShare)*kB+kW+kBp)*ne*nX)
 			if share, ok := c.powerSplit(y[iVg]); ok {
 				pw := y[iVg] * c.plasmaCurrentQuiet(y[iVg], ne) * dt
+				w.plasmaPower[k] = pw / dt
 				w.split = true
 				w.plasmaSampled += pw
 				for j, f := range share {
@@ -245,6 +256,7 @@ func solveCircuit(c *circuit, d *design.Design, par *Parameters, steps int) (*wa
 			}
 		}
 	}
+	w.manifold = man
 	_, yEnd := integ.State()
 	w.deposited = yEnd[iEPlasma]
 	left := c.storedEnergy(yEnd)
