@@ -101,7 +101,7 @@ func (r *swarmRates) at(en float64, first, last int, v, d *[nRates]float64) {
 		sl := r.slope[i][k]
 		if math.IsInf(sl, 1) {
 			f := (en - r.x[i]) / (r.x[i+1] - r.x[i])
-			v[k] = r.lin[i][k] + f*(r.lin[i+1][k]-r.lin[i][k])
+			v[k] = max(0, r.lin[i][k]+f*(r.lin[i+1][k]-r.lin[i][k])) // as Table.At, clamped at zero
 			if d != nil {
 				d[k] = (r.lin[i+1][k] - r.lin[i][k]) / (r.x[i+1] - r.x[i])
 			}

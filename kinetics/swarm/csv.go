@@ -2,6 +2,7 @@ package swarm
 
 import (
 	"bufio"
+	"bytes"
 	"encoding/csv"
 	"errors"
 	"fmt"
@@ -21,10 +22,30 @@ var Columns = []string{"reduced_field_Td", "mean_energy_eV", "drift_velocity_m_s
 // ncols is the number of required columns.
 const ncols = 10
 
+// ThreeBodyColumn is the optional column after Columns: the three-body part of k_att at
+// ReferenceDensity [m³/s]. A table without it has no three-body attachment to rescale
+// (Table.AtDensity leaves it as it is).
+const ThreeBodyColumn = "k_att3_m3_s"
+
+// Limits of ReadCSV: a swarm table is a few hundred rows; these bounds keep a wrong file (a
+// device, a huge log) from exhausting memory.
+const (
+	MaxCSVBytes = 16 << 20 // 16 MiB
+	MaxCSVRows  = 100000
+)
+
 // ReadCSV reads a swarm table: an optional block of '#' comment lines, a header with at least
-// the Columns in order, then one row per reduced field. Errors read "name:line: column: problem".
+// the Columns in order (and optionally ThreeBodyColumn after them), then one row per reduced
+// field. At most MaxCSVBytes and MaxCSVRows are read. Errors read "name:line: column: problem".
 func ReadCSV(r io.Reader, name string) (*Table, error) {
-	cr := csv.NewReader(r)
+	b, err := io.ReadAll(io.LimitReader(r, MaxCSVBytes+1))
+	if err != nil {
+		return nil, fmt.Errorf("swarm: %s: %w", name, err)
+	}
+	if len(b) > MaxCSVBytes {
+		return nil, fmt.Errorf("swarm: %s: file larger than %d MiB, the limit of a swarm table", name, MaxCSVBytes>>20)
+	}
+	cr := csv.NewReader(bytes.NewReader(b))
 	cr.FieldsPerRecord = -1
 	cr.TrimLeadingSpace = true
 	cr.Comment = '#'
@@ -44,6 +65,7 @@ func ReadCSV(r io.Reader, name string) (*Table, error) {
 			return nil, fmt.Errorf("swarm: %s:%d: header: column %d is %q, want %q", name, hline, i+1, head[i], c)
 		}
 	}
+	att3 := len(head) > ncols && strings.TrimSpace(head[ncols]) == ThreeBodyColumn
 	var rows []Coefficients
 	for {
 		rec, err := cr.Read()
@@ -58,6 +80,9 @@ func ReadCSV(r io.Reader, name string) (*Table, error) {
 			return nil, fmt.Errorf("swarm: %s: %w", name, err)
 		}
 		ln, _ := cr.FieldPos(0)
+		if len(rows) >= MaxCSVRows {
+			return nil, fmt.Errorf("swarm: %s:%d: more than %d rows, the limit of a swarm table", name, ln, MaxCSVRows)
+		}
 		if len(rec) < len(Columns) {
 			return nil, fmt.Errorf("swarm: %s:%d: %s: missing (row has %d columns, need %d)", name, ln, Columns[len(rec)], len(rec), len(Columns))
 		}
@@ -81,10 +106,21 @@ func ReadCSV(r io.Reader, name string) (*Table, error) {
 		if n := len(rows); n > 0 && v[0]*units.Townsend <= rows[n-1].ReducedField {
 			return nil, fmt.Errorf("swarm: %s:%d: %s: %g Td is not above the previous row", name, ln, Columns[0], v[0])
 		}
+		var k3 float64
+		if att3 {
+			if len(rec) <= ncols {
+				return nil, fmt.Errorf("swarm: %s:%d: %s: missing (the header has it)", name, ln, ThreeBodyColumn)
+			}
+			x, err := strconv.ParseFloat(strings.TrimSpace(rec[ncols]), 64)
+			if err != nil || math.IsNaN(x) || math.IsInf(x, 0) || x < 0 {
+				return nil, fmt.Errorf("swarm: %s:%d: %s: %q is not a finite number ≥ 0", name, ln, ThreeBodyColumn, rec[ncols])
+			}
+			k3 = x
+		}
 		rows = append(rows, Coefficients{
 			ReducedField: v[0] * units.Townsend, MeanEnergy: v[1] * units.ElectronVolt,
 			DriftVelocity: v[2], AlphaN: v[3], EtaN: v[4], Ionisation: v[5], Attachment: v[6],
-			ExciteA: v[7], ExciteB: v[8], ExciteC: v[9],
+			ExciteA: v[7], ExciteB: v[8], ExciteC: v[9], ThreeBodyAttachment: k3,
 		})
 	}
 	if len(rows) == 0 {
@@ -100,23 +136,25 @@ func ReadCSV(r io.Reader, name string) (*Table, error) {
 	return t, nil
 }
 
-// WriteCSV writes the table with the Columns header, E/N in Td and mean energy in eV.
+// WriteCSV writes the table with the Columns and ThreeBodyColumn header, E/N in Td and mean
+// energy in eV, every number in the shortest form that reads back to the same float64.
 func (t *Table) WriteCSV(w io.Writer) error {
 	return writeCSV(w, nil, t.rows, nil, nil)
 }
 
-// writeCSV writes comment lines, the header (Columns plus extra names) and the rows with their
-// extra values.
+// writeCSV writes comment lines, the header (Columns, ThreeBodyColumn, then extra names) and
+// the rows with their extra values, each number in the shortest form that round-trips.
 func writeCSV(w io.Writer, comments []string, rows []Coefficients, extraNames []string, extra [][]float64) error {
 	bw := bufio.NewWriter(w)
 	for _, c := range comments {
 		fmt.Fprintf(bw, "# %s\n", c)
 	}
-	bw.WriteString(strings.Join(append(append([]string(nil), Columns...), extraNames...), ","))
+	bw.WriteString(strings.Join(append(append(append([]string(nil), Columns...), ThreeBodyColumn), extraNames...), ","))
 	bw.WriteByte('\n')
 	for i, r := range rows {
 		vals := []float64{r.ReducedField / units.Townsend, r.MeanEnergy / units.ElectronVolt,
-			r.DriftVelocity, r.AlphaN, r.EtaN, r.Ionisation, r.Attachment, r.ExciteA, r.ExciteB, r.ExciteC}
+			r.DriftVelocity, r.AlphaN, r.EtaN, r.Ionisation, r.Attachment, r.ExciteA, r.ExciteB, r.ExciteC,
+			r.ThreeBodyAttachment}
 		if extra != nil {
 			vals = append(vals, extra[i]...)
 		}
@@ -124,7 +162,7 @@ func writeCSV(w io.Writer, comments []string, rows []Coefficients, extraNames []
 			if k > 0 {
 				bw.WriteByte(',')
 			}
-			bw.WriteString(strconv.FormatFloat(v, 'g', 8, 64))
+			bw.WriteString(strconv.FormatFloat(v, 'g', -1, 64))
 		}
 		bw.WriteByte('\n')
 	}

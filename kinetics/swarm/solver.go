@@ -145,14 +145,14 @@ func (t *table1) integral(a, b float64) float64 {
 // renormalised to sum exactly to 1; components with zero fraction are dropped) and settings.
 func NewSolver(mix []Component, s *Settings) (*Solver, error) {
 	set := Settings{Cells: DefaultCells, GasTemperature: 300,
-		ReferenceDensity: units.GasDensity(units.Atmosphere, 300)}
+		ReferenceDensity: ReferenceDensity}
 	if s != nil {
 		set = *s
 		if set.Cells == 0 {
 			set.Cells = DefaultCells
 		}
 		if set.ReferenceDensity == 0 {
-			set.ReferenceDensity = units.GasDensity(units.Atmosphere, 300)
+			set.ReferenceDensity = ReferenceDensity
 		}
 		if set.GasTemperature == 0 {
 			set.GasTemperature = 300
@@ -705,7 +705,8 @@ func (s *Solver) result(st *state) *Result {
 	}
 	r.ThreeBodyAttachment = k3
 	r.Coefficients = Coefficients{ReducedField: en, MeanEnergy: mean * ev, DriftVelocity: w,
-		Ionisation: kIon, Attachment: kAtt + k3, ExciteA: kA, ExciteB: kB, ExciteC: kC}
+		Ionisation: kIon, Attachment: kAtt + k3, ExciteA: kA, ExciteB: kB, ExciteC: kC,
+		ThreeBodyAttachment: k3}
 	if w > 0 {
 		r.AlphaN = kIon / w
 		r.EtaN = (kAtt + k3) / w

@@ -5,6 +5,8 @@ import (
 	"fmt"
 	"math"
 	"sync/atomic"
+
+	"n2pulse/units"
 )
 
 // Coefficients are the electron transport and rate coefficients at one reduced field (SI).
@@ -23,19 +25,23 @@ type Coefficients struct {
 	ExciteA       float64 // k for X → A³Σu⁺ (all v) [m³/s]
 	ExciteB       float64 // k for X → B³Πg (all v) [m³/s]
 	ExciteC       float64 // k for X → C³Πu (all v) [m³/s]
+	// ThreeBodyAttachment is the part of Attachment (and of EtaN·DriftVelocity) that comes from
+	// three-body attachment to O₂, taken at ReferenceDensity [m³/s]; see Table.AtDensity.
+	ThreeBodyAttachment float64
 }
 
 // nfields is the number of interpolated quantities after ReducedField.
-const nfields = 9
+const nfields = 10
 
 func (c *Coefficients) values() [nfields]float64 {
 	return [nfields]float64{c.MeanEnergy, c.DriftVelocity, c.AlphaN, c.EtaN, c.Ionisation,
-		c.Attachment, c.ExciteA, c.ExciteB, c.ExciteC}
+		c.Attachment, c.ExciteA, c.ExciteB, c.ExciteC, c.ThreeBodyAttachment}
 }
 
 func fromValues(en float64, v *[nfields]float64) Coefficients {
 	return Coefficients{ReducedField: en, MeanEnergy: v[0], DriftVelocity: v[1], AlphaN: v[2],
-		EtaN: v[3], Ionisation: v[4], Attachment: v[5], ExciteA: v[6], ExciteB: v[7], ExciteC: v[8]}
+		EtaN: v[3], Ionisation: v[4], Attachment: v[5], ExciteA: v[6], ExciteB: v[7], ExciteC: v[8],
+		ThreeBodyAttachment: v[9]}
 }
 
 // Table is a swarm table: Coefficients at ascending reduced fields, interpolated linearly in
@@ -63,7 +69,8 @@ type Table struct {
 }
 
 // NewTable checks rows (at least two, E/N positive and strictly ascending, all values finite
-// and not negative, drift velocity positive) and builds a table over a copy of them.
+// and not negative, drift velocity positive, the three-body part of the attachment not above
+// the attachment) and builds a table over a copy of them.
 func NewTable(rows []Coefficients) (*Table, error) {
 	if len(rows) < 2 {
 		return nil, fmt.Errorf("swarm: table needs at least 2 rows, got %d", len(rows))
@@ -81,6 +88,9 @@ func NewTable(rows []Coefficients) (*Table, error) {
 		}
 		if !(r.DriftVelocity > 0) {
 			return nil, fmt.Errorf("swarm: row %d: drift velocity %g m/s: must be positive", i+1, r.DriftVelocity)
+		}
+		if r.ThreeBodyAttachment > r.Attachment*(1+1e-12) {
+			return nil, fmt.Errorf("swarm: row %d: k_att3 %g m³/s: must not exceed k_att %g m³/s", i+1, r.ThreeBodyAttachment, r.Attachment)
 		}
 		v := r.values()
 		for k, x := range v {
@@ -113,7 +123,7 @@ func NewTable(rows []Coefficients) (*Table, error) {
 // linearMark flags an interval where a value is zero at one end and is interpolated linearly.
 var linearMark = math.Inf(1)
 
-var fieldNames = [nfields]string{"mean energy", "drift velocity", "alpha/N", "eta/N", "k_ion", "k_att", "k_A", "k_B", "k_C"}
+var fieldNames = [nfields]string{"mean energy", "drift velocity", "alpha/N", "eta/N", "k_ion", "k_att", "k_A", "k_B", "k_C", "k_att3"}
 
 // ErrEmpty is returned by readers when a table has no rows.
 var ErrEmpty = errors.New("swarm: table has no rows")
@@ -158,12 +168,47 @@ func (t *Table) At(reducedField float64) Coefficients {
 	for k := range v {
 		if sl[k] == linearMark {
 			f := (en - t.rows[i].ReducedField) / (t.rows[i+1].ReducedField - t.rows[i].ReducedField)
-			v[k] = t.lin[i][k] + f*(t.lin[i+1][k]-t.lin[i][k])
+			// Clamped at zero: rounding of f can take it a little past 1 and the value a
+			// little below zero where it falls to zero at the upper row.
+			v[k] = max(0, t.lin[i][k]+f*(t.lin[i+1][k]-t.lin[i][k]))
 			continue
 		}
 		v[k] = math.Exp(a[k] + sl[k]*dx)
 	}
 	return fromValues(en, &v)
+}
+
+// ReferenceDensity is the total gas density [m⁻³] at which the three-body attachment in the
+// solver's tables is counted (101325 Pa at 300 K, 2.446e25 m⁻³): the k_att3_m3_s column and the
+// part of k_att and η/N it gives.
+var ReferenceDensity = units.GasDensity(units.Atmosphere, 300)
+
+// AtDensity returns the table for a gas of total density n [m⁻³]: three-body attachment, a
+// two-body rate proportional to the density, is rescaled from ReferenceDensity to n in the
+// attachment rate, η/N and the k_att3 column; every other value is unchanged. A table without
+// three-body attachment (all k_att3 zero, as a user table without that column) is returned
+// as it is. n must be positive and finite.
+func (t *Table) AtDensity(n float64) (*Table, error) {
+	if !(n > 0) || math.IsInf(n, 0) {
+		return nil, fmt.Errorf("swarm: gas density %g m⁻³: must be positive and finite", n)
+	}
+	has := false
+	for _, r := range t.rows {
+		has = has || r.ThreeBodyAttachment > 0
+	}
+	if !has || n == ReferenceDensity {
+		return t, nil
+	}
+	f := n / ReferenceDensity
+	rows := t.Rows()
+	for i := range rows {
+		r := &rows[i]
+		d := r.ThreeBodyAttachment * (f - 1)
+		r.Attachment = max(0, r.Attachment+d)
+		r.EtaN = max(0, r.EtaN+d/r.DriftVelocity)
+		r.ThreeBodyAttachment *= f
+	}
+	return NewTable(rows)
 }
 
 // Range returns the lowest and highest reduced field of the rows [V m²].
