@@ -135,13 +135,39 @@ func (c *circuit) plasmaCurrent(vg, ne float64) (current, net float64) {
 	return math.Copysign(units.ElementaryCharge*ne*k[rateDrift]*c.area, vg), k[rateIon] - k[rateAtt]
 }
 
+// plasmaCurrentQuiet is the current of plasmaCurrent without counting the lookup, for the samples
+// that the energy account takes of a state the integrator has already evaluated [A].
+func (c *circuit) plasmaCurrentQuiet(vg, ne float64) float64 {
+	var k [nRates]float64
+	c.rates.at(c.reducedField(vg), rateDrift, rateDrift+1, &k, nil)
+	return math.Copysign(units.ElementaryCharge*ne*k[rateDrift]*c.area, vg)
+}
+
 // pumpRates are the rate coefficients for X → B³Πg and X → C³Πu [m³/s] at channel voltage vg.
 func (c *circuit) pumpRates(vg float64) (kB, kC float64) {
 	en := c.reducedField(vg)
 	c.count(en)
 	var k [nRates]float64
-	c.rates.at(en, rateExcB, nRates, &k, nil)
+	c.rates.at(en, rateExcB, rateExcC+1, &k, nil)
 	return k[rateExcB], k[rateExcC]
+}
+
+// powerSplit returns the share of the plasma power taken by each channel of the swarm's
+// power split at channel voltage vg, and false when the table has no split.
+func (c *circuit) powerSplit(vg float64) (share [swarm.NumChannels]float64, ok bool) {
+	var k [nRates]float64
+	c.rates.at(c.reducedField(vg), ratePower, nRates, &k, nil)
+	sum := 0.0
+	for _, p := range k[ratePower:] {
+		sum += p
+	}
+	if !(sum > 0) {
+		return share, false
+	}
+	for i, p := range k[ratePower:] {
+		share[i] = p / sum
+	}
+	return share, true
 }
 
 // Eval implements ode.System.

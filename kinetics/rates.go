@@ -8,15 +8,18 @@ import (
 )
 
 // Coefficients of a swarm table that the circuit and the pump use, in the order swarmRates
-// keeps them: the first three for the discharge (Eval and its Jacobian), the last two for
-// the pump rates.
+// keeps them: the first three for the discharge (Eval and its Jacobian), the next four for
+// the pump rates, then the power taken by each channel of the swarm's power split.
 const (
 	rateDrift = iota // drift velocity [m/s]
 	rateIon          // k_ion [m³/s]
 	rateAtt          // k_att [m³/s]
 	rateExcB         // k for X → B³Πg [m³/s]
 	rateExcC         // k for X → C³Πu [m³/s]
-	nRates
+	rateExcW         // k for X → W³Δu [m³/s]
+	rateExcBp        // k for X → B′³Σu⁻ [m³/s]
+	ratePower        // first of swarm.NumChannels powers per electron and molecule [J m³/s]
+	nRates    = ratePower + int(swarm.NumChannels)
 )
 
 // swarmRates interpolates the coefficients above exactly as swarm.Table.At does (linear in
@@ -40,7 +43,8 @@ func newSwarmRates(t *swarm.Table) *swarmRates {
 	}
 	for i, row := range rows {
 		r.x[i], r.logx[i] = row.ReducedField, math.Log(row.ReducedField)
-		r.lin[i] = [nRates]float64{row.DriftVelocity, row.Ionisation, row.Attachment, row.ExciteB, row.ExciteC}
+		r.lin[i] = [nRates]float64{row.DriftVelocity, row.Ionisation, row.Attachment, row.ExciteB, row.ExciteC, row.ExciteW, row.ExciteBPrime}
+		copy(r.lin[i][ratePower:], row.Power[:])
 		for k, v := range r.lin[i] {
 			r.logv[i][k] = math.NaN()
 			if v > 0 {

@@ -5,34 +5,70 @@ import "n2pulse/kinetics/ode"
 // Summary holds the figures of merit of one shot, in SI. The JSON names are part of the
 // program's interface (`run --json`, sweep tables): scripts rely on them.
 type Summary struct {
-	EnergyFront           float64  `json:"energy_front_J"`            // pulse energy leaving the output end z = L [J]
-	EnergyRear            float64  `json:"energy_rear_J"`             // pulse energy leaving the rear end z = 0 [J]
-	EnergyTotal           float64  `json:"energy_total_J"`            // both ends [J]
-	PeakPower             float64  `json:"peak_power_W"`              // peak power at the output end [W]
-	FWHM                  float64  `json:"fwhm_s"`                    // width of the output-end pulse: 2·sqrt(2 ln 2) × its rms duration, the FWHM of a Gaussian of the same rms width [s]
-	HalfMaxWidth          float64  `json:"half_max_width_s"`          // time between the first and last half-maximum crossings of the output-end pulse [s]
-	PulseCentre           float64  `json:"pulse_centre_s"`            // power-weighted mean time of the output-end pulse [s]
-	Rise                  float64  `json:"rise_s"`                    // 10–90 % rise time of the output-end pulse [s]
-	Delay                 float64  `json:"delay_s"`                   // switch closure to the half-maximum of the rising edge [s]
-	Efficiency            float64  `json:"efficiency"`                // total pulse energy / stored energy
-	StoredEnergy          float64  `json:"stored_energy_J"`           // ½ΣCV₀² [J]
-	DepositedEnergy       float64  `json:"deposited_energy_J"`        // energy delivered to the plasma [J]
-	PeakGain              float64  `json:"peak_gain_per_m"`           // highest small-signal gain σ·(N_C − g·N_B) [m⁻¹]
-	GainLength            float64  `json:"gain_length"`               // highest channel-integrated gain ∫g dz
-	InversionDuration     float64  `json:"inversion_duration_s"`      // duration of the gain: equivalent width ∫g⁺dt / g_max of the channel-mean gain [s]
-	TerminationTime       float64  `json:"termination_time_s"`        // when the mid-channel gain falls below 10 % of its peak after it [s]
-	TerminationCause      string   `json:"termination_cause"`         // "lower-level bottleneck", "pump collapse", "quenching", "extraction by the pulse" or "no gain"
-	PeakReducedField      float64  `json:"peak_reduced_field_Td"`     // highest |E/N| [Td]
-	PeakCurrent           float64  `json:"peak_current_A"`            // highest |channel current| [A]
-	PeakElectronDensity   float64  `json:"peak_electron_density_m3"`  // [m⁻³]
-	EnergyBalanceResidual float64  `json:"energy_balance_residual"`   // |stored − (left + dissipated)| / stored
-	PhotonBalanceResidual float64  `json:"photon_balance_residual"`   // |created − (emitted + lost + left)| / created
-	Lases                 bool     `json:"lases"`                     // net gain-length at or above the threshold of amplified spontaneous emission (see Verdict)
-	Verdict               string   `json:"verdict"`                   // one line: lases, or the limiting cause
-	Advice                string   `json:"advice,omitempty"`          // what to change when it does not lase, naming design keys
-	StimulatedRatio       float64  `json:"stimulated_to_spontaneous"` // photons from stimulated emission per spontaneous seed photon
-	Derived               []string `json:"derived,omitempty"`         // circuit keys computed from the [build] section
-	Overridden            []string `json:"overridden,omitempty"`      // spectroscopic values taken from the design, not computed
+	EnergyFront           float64       `json:"energy_front_J"`            // pulse energy leaving the output end z = L [J]
+	EnergyRear            float64       `json:"energy_rear_J"`             // pulse energy leaving the rear end z = 0 [J]
+	EnergyTotal           float64       `json:"energy_total_J"`            // both ends [J]
+	PeakPower             float64       `json:"peak_power_W"`              // peak power at the output end [W]
+	FWHM                  float64       `json:"fwhm_s"`                    // width of the output-end pulse: 2·sqrt(2 ln 2) × its rms duration, the FWHM of a Gaussian of the same rms width [s]
+	HalfMaxWidth          float64       `json:"half_max_width_s"`          // time between the first and last half-maximum crossings of the output-end pulse [s]
+	PulseCentre           float64       `json:"pulse_centre_s"`            // power-weighted mean time of the output-end pulse [s]
+	Rise                  float64       `json:"rise_s"`                    // 10–90 % rise time of the output-end pulse [s]
+	Delay                 float64       `json:"delay_s"`                   // switch closure to the half-maximum of the rising edge [s]
+	Efficiency            float64       `json:"efficiency"`                // total pulse energy / stored energy
+	StoredEnergy          float64       `json:"stored_energy_J"`           // ½ΣCV₀² [J]
+	DepositedEnergy       float64       `json:"deposited_energy_J"`        // energy delivered to the plasma [J]
+	PeakGain              float64       `json:"peak_gain_per_m"`           // highest small-signal gain σ·(N_C − g·N_B) [m⁻¹]
+	GainLength            float64       `json:"gain_length"`               // highest channel-integrated gain ∫g dz
+	InversionDuration     float64       `json:"inversion_duration_s"`      // duration of the gain: equivalent width ∫g⁺dt / g_max of the channel-mean gain [s]
+	TerminationTime       float64       `json:"termination_time_s"`        // when the mid-channel gain falls below 10 % of its peak after it [s]
+	TerminationCause      string        `json:"termination_cause"`         // "lower-level bottleneck", "pump collapse", "quenching", "extraction by the pulse" or "no gain"
+	PeakReducedField      float64       `json:"peak_reduced_field_Td"`     // highest |E/N| [Td]
+	PeakCurrent           float64       `json:"peak_current_A"`            // highest |channel current| [A]
+	PeakElectronDensity   float64       `json:"peak_electron_density_m3"`  // [m⁻³]
+	PeakCurrentDensity    float64       `json:"peak_current_density_A_m2"` // highest |channel current| over the discharge footprint L·w [A/m²]
+	SpecificEnergy        float64       `json:"specific_energy_J_m3"`      // energy into the plasma per discharge volume L·w·d [J/m³]
+	EnergyPerMolecule     float64       `json:"energy_per_molecule_eV"`    // energy into the plasma per gas molecule in the discharge volume [eV]
+	Energy                EnergyAccount `json:"energy_account"`            // where the stored energy went
+	EnergyBalanceResidual float64       `json:"energy_balance_residual"`   // |stored − (left + dissipated)| / stored
+	PhotonBalanceResidual float64       `json:"photon_balance_residual"`   // |created − (emitted + lost + left)| / created
+	Lases                 bool          `json:"lases"`                     // net gain-length at or above the threshold of amplified spontaneous emission (see Verdict)
+	Verdict               string        `json:"verdict"`                   // one line: lases, or the limiting cause
+	Advice                string        `json:"advice,omitempty"`          // what to change when it does not lase, naming design keys
+	StimulatedRatio       float64       `json:"stimulated_to_spontaneous"` // photons from stimulated emission per spontaneous seed photon
+	Derived               []string      `json:"derived,omitempty"`         // circuit keys computed from the [build] section
+	Overridden            []string      `json:"overridden,omitempty"`      // spectroscopic values taken from the design, not computed
+}
+
+// EnergyAccount says where the stored energy of a shot went [J]: the switch, the shunt, the
+// plasma and what is left in the circuit add up to the stored energy within the energy
+// balance residual. The plasma's share is split by the swarm table's power split at the E/N
+// of each moment (PlasmaSplit, all zero when the table has none); UpperLevel, the energy put
+// into C(0) over the discharge volume, is part of the C channel, and Laser, the pulse
+// energy at both ends, part of UpperLevel.
+type EnergyAccount struct {
+	Stored        float64     `json:"stored_J"`
+	Switch        float64     `json:"switch_J"`
+	Shunt         float64     `json:"shunt_J"`
+	Plasma        float64     `json:"plasma_J"`
+	LeftInCircuit float64     `json:"left_in_circuit_J"`
+	PlasmaSplit   PlasmaSplit `json:"plasma_split_J"`
+	UpperLevel    float64     `json:"upper_level_J"`
+	Laser         float64     `json:"laser_J"`
+}
+
+// PlasmaSplit is the energy into the plasma by the channel that took it [J] (see
+// swarm.Channel).
+type PlasmaSplit struct {
+	Elastic         float64 `json:"elastic"`
+	Vibrational     float64 `json:"vibrational"`
+	StateA          float64 `json:"A"`
+	StateB          float64 `json:"B"`
+	StateW          float64 `json:"W"`
+	StateBPrime     float64 `json:"Bp"`
+	StateC          float64 `json:"C"`
+	OtherElectronic float64 `json:"other_electronic"`
+	Ionisation      float64 `json:"ionisation"`
+	Attachment      float64 `json:"attachment"`
 }
 
 // Result is the outcome of Run: the summary, the waveforms on a common time grid, the gain
@@ -72,6 +108,7 @@ type Parameters struct {
 	LowerShare      float64 // f_B
 	Wavelength      float64 // vacuum [m]
 	PhotonEnergy    float64 // [J]
+	UpperEnergy     float64 // energy of C(0) above X(0) [J]
 	GasDensity      float64 // N [m⁻³]
 	UpperDecayRate  float64 // 1/τ_C + Σk_q N [s⁻¹]
 	LowerDecayRate  float64 // [s⁻¹]

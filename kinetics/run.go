@@ -7,6 +7,7 @@ import (
 
 	"n2pulse/kinetics/ode"
 	"n2pulse/kinetics/spectro"
+	"n2pulse/kinetics/swarm"
 	"n2pulse/units"
 )
 
@@ -62,6 +63,7 @@ func Run(d *Design, s *RunSettings) (*Result, error) {
 	if wf.stored > 0 {
 		res.Summary.Efficiency = res.Summary.EnergyTotal / wf.stored
 	}
+	account(d, &res.Parameters, wf, &res.Summary)
 	res.Stats.TableBelow, res.Stats.TableAbove = circ.below, circ.above
 	if wf.fieldAbove {
 		lo, hi := table.Range()
@@ -97,6 +99,7 @@ func laserParameters(d *Design) (Parameters, []string, error) {
 		CrossSection: lp.CrossSection, DegeneracyRatio: lp.DegeneracyRatio,
 		EinsteinA00: lp.EinsteinA00, UpperLifetime: lp.UpperLifetime,
 		UpperShare: lp.UpperShare, LowerShare: lp.LowerShare, Wavelength: lp.VacuumWavelength,
+		UpperEnergy: lp.UpperEnergy,
 	}
 	var over []string
 	o := d.Spectroscopy
@@ -132,9 +135,13 @@ func laserParameters(d *Design) (Parameters, []string, error) {
 // waveforms are the circuit and discharge quantities sampled at the middle of every optical
 // step, (k+½)·Δt.
 type waveforms struct {
-	voltage, current, field, density []float64 // V_ch [V], channel current [A], E/N [V m²], n_e [m⁻³]
-	pumpC, pumpB                     []float64 // excitation rates into C(0) and B(0) [m⁻³ s⁻¹]
-	stored, deposited                float64   // [J]
+	voltage, current, field, density []float64                  // V_ch [V], channel current [A], E/N [V m²], n_e [m⁻³]
+	pumpC, pumpB                     []float64                  // excitation rates into C(0) and B(0) [m⁻³ s⁻¹]
+	stored, deposited                float64                    // [J]
+	switchLoss, shuntLoss, left      float64                    // dissipated in the switch and the shunt, left in the circuit [J]
+	plasmaSplit                      [swarm.NumChannels]float64 // Σ plasma power × channel share × Δt over the samples [J]
+	plasmaSampled                    float64                    // Σ plasma power × Δt over the samples [J]
+	split                            bool                       // the swarm table has a power split
 	energyResidual                   float64
 	peakField, peakCurrent           float64
 	peakDensity                      float64
@@ -199,6 +206,14 @@ func solveCircuit(c *circuit, d *Design, par *Parameters, steps int) (*waveforms
 			w.density[k] = ne
 			w.pumpC[k] = kC * ne * shareC
 			w.pumpB[k] = kB * ne * shareB
+			if share, ok := c.powerSplit(y[iVg]); ok {
+				pw := y[iVg] * c.plasmaCurrentQuiet(y[iVg], ne) * dt
+				w.split = true
+				w.plasmaSampled += pw
+				for j, f := range share {
+					w.plasmaSplit[j] += f * pw
+				}
+			}
 			w.peakField = math.Max(w.peakField, w.field[k])
 			w.peakCurrent = math.Max(w.peakCurrent, math.Abs(y[iIc]))
 			w.peakDensity = math.Max(w.peakDensity, ne)
@@ -210,6 +225,7 @@ func solveCircuit(c *circuit, d *Design, par *Parameters, steps int) (*waveforms
 	_, yEnd := integ.State()
 	w.deposited = yEnd[iEPlasma]
 	left := c.storedEnergy(yEnd)
+	w.switchLoss, w.shuntLoss, w.left = yEnd[iESwitch], yEnd[iEShunt], left
 	w.energyResidual = math.Abs(stored-(left+yEnd[iESwitch]+yEnd[iEPlasma]+yEnd[iEShunt])) / stored
 	return w, Stats{Circuit: integ.Stats()}, nil
 }

@@ -129,8 +129,9 @@ func printSummary(w io.Writer, d *kinetics.Design, r *kinetics.Result) {
 	row("delay from switch closure", units.Format(s.Delay, "s"))
 	row("efficiency", fmt.Sprintf("%.3g %% of %s stored", 100*s.Efficiency, units.Format(s.StoredEnergy, "J")))
 	row("energy into the plasma", units.Format(s.DepositedEnergy, "J"))
+	printAccount(row, s)
 	row("peak E/N", fmt.Sprintf("%.0f Td", s.PeakReducedField))
-	row("peak current", units.Format(s.PeakCurrent, "A"))
+	row("peak current", fmt.Sprintf("%s (%.3g kA/cm²)", units.Format(s.PeakCurrent, "A"), s.PeakCurrentDensity*1e-7))
 	row("peak electron density", fmt.Sprintf("%.3g cm⁻³", s.PeakElectronDensity*1e-6))
 	row("peak gain", fmt.Sprintf("%.3g cm⁻¹ (gain × length %.3g)", s.PeakGain/100, s.GainLength))
 	row("inversion duration", units.Format(s.InversionDuration, "s"))
@@ -151,6 +152,30 @@ func printSummary(w io.Writer, d *kinetics.Design, r *kinetics.Result) {
 	if c := caution(s.StoredEnergy, s.EnergyTotal); c != "" {
 		fmt.Fprintln(w, "\n"+c)
 	}
+}
+
+// printAccount writes the loading and where the stored energy went, in per cent of the
+// stored energy (plasma channels in per cent of the plasma's share).
+func printAccount(row func(label, value string), s kinetics.Summary) {
+	a := s.Energy
+	row("specific loading", fmt.Sprintf("%.3g J/cm³, %.3g eV per molecule", s.SpecificEnergy*1e-6, s.EnergyPerMolecule))
+	if a.Stored <= 0 {
+		return
+	}
+	pc := func(x float64) string { return fmt.Sprintf("%.3g %%", 100*x/a.Stored) }
+	parts := fmt.Sprintf("switch %s, plasma %s, left in the circuit %s", pc(a.Switch), pc(a.Plasma), pc(a.LeftInCircuit))
+	if a.Shunt > 0 {
+		parts += ", shunt " + pc(a.Shunt)
+	}
+	row("stored energy went to", parts)
+	sp := a.PlasmaSplit
+	if a.Plasma > 0 && sp != (kinetics.PlasmaSplit{}) {
+		q := func(x float64) string { return fmt.Sprintf("%.2g %%", 100*x/a.Plasma) }
+		row("plasma energy by channel", fmt.Sprintf("vibrational %s, elastic %s, A %s, B %s, W %s, B′ %s, C %s, other electronic %s, ionisation %s, attachment %s",
+			q(sp.Vibrational), q(sp.Elastic), q(sp.StateA), q(sp.StateB), q(sp.StateW), q(sp.StateBPrime), q(sp.StateC),
+			q(sp.OtherElectronic), q(sp.Ionisation), q(sp.Attachment)))
+	}
+	row("into C(0), out as light", fmt.Sprintf("%s (%s of stored), %s", units.Format(a.UpperLevel, "J"), pc(a.UpperLevel), units.Format(a.Laser, "J")))
 }
 
 // caution returns the safety line for a design whose stored or pulse energy is above harmless

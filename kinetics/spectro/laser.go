@@ -21,6 +21,7 @@ type LaserParameters struct {
 	UpperLifetime    float64 // radiative lifetime of C(v=0) [s]
 	UpperShare       float64 // f_C: fraction of C excitation landing in v=0
 	LowerShare       float64 // f_B: fraction of B excitation landing in v=0
+	UpperEnergy      float64 // energy of C(v=0, J=0) above X(v=0, J=0) [J]
 	LineWidth        float64 // FWHM of the line profile at p, T [Hz]
 }
 
@@ -199,6 +200,7 @@ func Laser(pressure, temperature float64) (LaserParameters, error) {
 		UpperLifetime:    cache.tau,
 		UpperShare:       cache.fC,
 		LowerShare:       cache.fB,
+		UpperEnergy:      (m.Constants.States["C"].Term(0, 0) - m.Constants.States["X"].Term(0, 0)) * units.Wavenumber,
 		LineWidth:        best.FWHM,
 	}, nil
 }

@@ -27,11 +27,21 @@ var summaryType = reflect.TypeFor[kinetics.Summary]()
 func Metrics() []string {
 	names := make([]string, 0, summaryType.NumField())
 	for i := range summaryType.NumField() {
-		if n := jsonName(summaryType.Field(i)); n != "" {
+		if n := tableName(summaryType.Field(i)); n != "" {
 			names = append(names, n)
 		}
 	}
 	return names
+}
+
+// tableName is the column name of a summary field in a results table, or "" for a field
+// the table leaves out: unexported, marked "-", or a nested block such as the energy
+// account (whose figures the summary also carries flat: loading, deposited energy).
+func tableName(f reflect.StructField) string {
+	if f.Type.Kind() == reflect.Struct {
+		return ""
+	}
+	return jsonName(f)
 }
 
 // NumericMetrics returns the metrics that are numbers (those that can be drawn).
@@ -39,7 +49,7 @@ func NumericMetrics() []string {
 	var names []string
 	for i := range summaryType.NumField() {
 		f := summaryType.Field(i)
-		if n := jsonName(f); n != "" && (f.Type.Kind() == reflect.Float64 || f.Type.Kind() == reflect.Int) {
+		if n := tableName(f); n != "" && (f.Type.Kind() == reflect.Float64 || f.Type.Kind() == reflect.Int) {
 			names = append(names, n)
 		}
 	}
@@ -66,7 +76,7 @@ func summaryFields(s kinetics.Summary) []string {
 	v := reflect.ValueOf(s)
 	out := make([]string, 0, v.NumField())
 	for i := range v.NumField() {
-		if jsonName(summaryType.Field(i)) == "" {
+		if tableName(summaryType.Field(i)) == "" {
 			continue
 		}
 		f := v.Field(i)

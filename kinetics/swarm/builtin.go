@@ -109,7 +109,7 @@ func Mixture(nitrogen, oxygen, helium float64) ([]Component, error) {
 	return mix, nil
 }
 
-// Extra columns written after Columns and ThreeBodyColumn by WriteResultsCSV.
+// Extra columns written after Columns and OptionalColumns by WriteResultsCSV.
 var extraColumns = []string{"growth_m3_s", "power_balance"}
 
 // SolveTable solves the mixture at the given reduced fields (ascending) and returns the table
@@ -134,7 +134,7 @@ func SolveTable(mix []Component, s *Settings, fields []float64) (*Table, []*Resu
 	return t, res, nil
 }
 
-// WriteResultsCSV writes a table of results: the Columns, ThreeBodyColumn, growth_m3_s (ν̄/N),
+// WriteResultsCSV writes a table of results: the Columns, OptionalColumns, growth_m3_s (ν̄/N),
 // power_balance, then the rate coefficient of every process per target molecule, each column
 // named after its species and the state it leads to (ColumnName), e.g. k_N2_C3Pi_u_m3_s.
 func WriteResultsCSV(w io.Writer, comments []string, res []*Result) error {
@@ -143,7 +143,7 @@ func WriteResultsCSV(w io.Writer, comments []string, res []*Result) error {
 	}
 	names := append([]string(nil), extraColumns...)
 	seen := map[string]int{}
-	for _, c := range append(append([]string(nil), Columns...), ThreeBodyColumn) {
+	for _, c := range append(append([]string(nil), Columns...), OptionalColumns...) {
 		seen[c] = 1
 	}
 	for _, n := range names {

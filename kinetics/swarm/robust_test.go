@@ -67,9 +67,9 @@ func TestAtDensity(t *testing.T) {
 		wantAtt := a.Attachment - a.ThreeBodyAttachment + wantK3
 		if !scalar.EqualWithinAbsOrRel(b.ThreeBodyAttachment, wantK3, 0, 1e-12) ||
 			!scalar.EqualWithinAbsOrRel(b.Attachment, wantAtt, 0, 1e-12) ||
-			!scalar.EqualWithinAbsOrRel(b.EtaN, wantAtt/a.DriftVelocity, 0, 1e-9) {
+			!scalar.EqualWithinAbsOrRel(b.EtaN, a.EtaN+(wantAtt-a.Attachment)/a.DriftVelocity, 0, 1e-12) {
 			t.Errorf("%g Td at 40 Torr: k3 %g (want %g), k_att %g (want %g), η/N %g (want %g)",
-				td, b.ThreeBodyAttachment, wantK3, b.Attachment, wantAtt, b.EtaN, wantAtt/a.DriftVelocity)
+				td, b.ThreeBodyAttachment, wantK3, b.Attachment, wantAtt, b.EtaN, a.EtaN+(wantAtt-a.Attachment)/a.DriftVelocity)
 		}
 		if b.DriftVelocity != a.DriftVelocity || b.ExciteC != a.ExciteC || b.Ionisation != a.Ionisation {
 			t.Errorf("%g Td: a value other than attachment moved", td)

@@ -658,7 +658,8 @@ func (s *Solver) result(st *state) *Result {
 	// the half cells at both ends of the face sum
 	pel += gamma * g.f[1] * g.f[1] * g.se[1] * F[0] * (g.c[0] - g.f[0]) / 3
 	w := muN * en
-	var kA, kB, kC, kIon, kAtt, pinel, patt float64
+	var kA, kB, kC, kW, kBp, kIon, kAtt, pinel, patt float64
+	var split [NumChannels]float64
 	for q, ref := range g.procIdx {
 		cm := &s.mix[ref.comp]
 		pr := &cm.procs[ref.proc]
@@ -669,15 +670,19 @@ func (s *Solver) result(st *state) *Result {
 		}
 		r.Rates = append(r.Rates, Rate{Species: cm.name, Name: pr.p.Name, Label: pr.p.Label,
 			Kind: pr.p.Kind, Threshold: pr.p.Threshold, Fraction: cm.x, K: k})
+		ch := channelOf(cm.name, pr.p.Kind, pr.p.Label)
 		switch pr.p.Kind {
 		case Ionisation:
 			kIon += cm.x * k
 			pinel += cm.x * pr.u * k
+			split[ch] += cm.x * pr.u * k
 		case Attachment:
 			kAtt += cm.x * k
 			patt += cm.x * ke
+			split[ch] += cm.x * ke
 		default:
 			pinel += cm.x * pr.u * k
+			split[ch] += cm.x * pr.u * k
 		}
 		if pr.isN2 {
 			switch pr.p.Label {
@@ -687,6 +692,10 @@ func (s *Solver) result(st *state) *Result {
 				kB += k
 			case "C":
 				kC += k
+			case "W":
+				kW += k
+			case "Bp":
+				kBp += k
 			}
 		}
 	}
@@ -706,7 +715,16 @@ func (s *Solver) result(st *state) *Result {
 	r.ThreeBodyAttachment = k3
 	r.Coefficients = Coefficients{ReducedField: en, MeanEnergy: mean * ev, DriftVelocity: w,
 		Ionisation: kIon, Attachment: kAtt + k3, ExciteA: kA, ExciteB: kB, ExciteC: kC,
-		ThreeBodyAttachment: k3}
+		ThreeBodyAttachment: k3, ExciteW: kW, ExciteBPrime: kBp}
+	// The power split: the elastic recoil, each channel's collisions, and the energy given to
+	// new electrons counted with ionisation. Where attachment outpaces ionisation that last
+	// term is negative; it is left out there (its size is the energy the lost electrons
+	// carried, already in the attachment channel). Energies in eV as the sums above.
+	split[ChannelElastic] += max(pel, 0)
+	split[ChannelIonisation] += max(st.nu*mean, 0)
+	for c := range split {
+		r.Power[c] = max(split[c], 0) * ev
+	}
 	if w > 0 {
 		r.AlphaN = kIon / w
 		r.EtaN = (kAtt + k3) / w

@@ -25,23 +25,47 @@ type Coefficients struct {
 	ExciteA       float64 // k for X → A³Σu⁺ (all v) [m³/s]
 	ExciteB       float64 // k for X → B³Πg (all v) [m³/s]
 	ExciteC       float64 // k for X → C³Πu (all v) [m³/s]
+
+	// Optional: zero in a table that does not give them.
 	// ThreeBodyAttachment is the part of Attachment (and of EtaN·DriftVelocity) that comes from
 	// three-body attachment to O₂, taken at ReferenceDensity [m³/s]; see Table.AtDensity.
 	ThreeBodyAttachment float64
+	ExciteW             float64              // k for X → W³Δu, per N₂ molecule [m³/s]
+	ExciteBPrime        float64              // k for X → B′³Σu⁻, per N₂ molecule [m³/s]
+	Power               [NumChannels]float64 // power taken by each Channel, per electron and per molecule of the whole gas [J m³/s]
 }
 
-// nfields is the number of interpolated quantities after ReducedField.
-const nfields = 10
+// nbase is the number of interpolated quantities after ReducedField that every table has;
+// nfields counts the optional ones too.
+const (
+	nbase   = 9
+	nfields = nbase + 3 + int(NumChannels)
+)
 
 func (c *Coefficients) values() [nfields]float64 {
-	return [nfields]float64{c.MeanEnergy, c.DriftVelocity, c.AlphaN, c.EtaN, c.Ionisation,
-		c.Attachment, c.ExciteA, c.ExciteB, c.ExciteC, c.ThreeBodyAttachment}
+	v := [nfields]float64{c.MeanEnergy, c.DriftVelocity, c.AlphaN, c.EtaN, c.Ionisation,
+		c.Attachment, c.ExciteA, c.ExciteB, c.ExciteC, c.ThreeBodyAttachment, c.ExciteW, c.ExciteBPrime}
+	copy(v[nbase+3:], c.Power[:])
+	return v
 }
 
 func fromValues(en float64, v *[nfields]float64) Coefficients {
-	return Coefficients{ReducedField: en, MeanEnergy: v[0], DriftVelocity: v[1], AlphaN: v[2],
+	c := Coefficients{ReducedField: en, MeanEnergy: v[0], DriftVelocity: v[1], AlphaN: v[2],
 		EtaN: v[3], Ionisation: v[4], Attachment: v[5], ExciteA: v[6], ExciteB: v[7], ExciteC: v[8],
-		ThreeBodyAttachment: v[9]}
+		ThreeBodyAttachment: v[9], ExciteW: v[10], ExciteBPrime: v[11]}
+	copy(c.Power[:], v[nbase+3:])
+	return c
+}
+
+// HasPowerSplit reports whether the coefficients carry a power split (tables written before
+// the split was added, and user tables without its columns, do not).
+func (c *Coefficients) HasPowerSplit() bool {
+	for _, p := range c.Power {
+		if p > 0 {
+			return true
+		}
+	}
+	return false
 }
 
 // Table is a swarm table: Coefficients at ascending reduced fields, interpolated linearly in
@@ -123,7 +147,13 @@ func NewTable(rows []Coefficients) (*Table, error) {
 // linearMark flags an interval where a value is zero at one end and is interpolated linearly.
 var linearMark = math.Inf(1)
 
-var fieldNames = [nfields]string{"mean energy", "drift velocity", "alpha/N", "eta/N", "k_ion", "k_att", "k_A", "k_B", "k_C", "k_att3"}
+var fieldNames = func() [nfields]string {
+	n := [nfields]string{"mean energy", "drift velocity", "alpha/N", "eta/N", "k_ion", "k_att", "k_A", "k_B", "k_C", "k_att3", "k_W", "k_Bp"}
+	for c := range NumChannels {
+		n[nbase+3+int(c)] = "power " + c.String()
+	}
+	return n
+}()
 
 // ErrEmpty is returned by readers when a table has no rows.
 var ErrEmpty = errors.New("swarm: table has no rows")
@@ -168,8 +198,8 @@ func (t *Table) At(reducedField float64) Coefficients {
 	for k := range v {
 		if sl[k] == linearMark {
 			f := (en - t.rows[i].ReducedField) / (t.rows[i+1].ReducedField - t.rows[i].ReducedField)
-			// Clamped at zero: rounding of f can take it a little past 1 and the value a
-			// little below zero where it falls to zero at the upper row.
+			// Clamped at zero: where ln(E/N) rounds onto a row's logarithm from below, f is a
+			// little below 0 and a value rising from zero would come out a little negative.
 			v[k] = max(0, t.lin[i][k]+f*(t.lin[i+1][k]-t.lin[i][k]))
 			continue
 		}
@@ -185,9 +215,10 @@ var ReferenceDensity = units.GasDensity(units.Atmosphere, 300)
 
 // AtDensity returns the table for a gas of total density n [m⁻³]: three-body attachment, a
 // two-body rate proportional to the density, is rescaled from ReferenceDensity to n in the
-// attachment rate, η/N and the k_att3 column; every other value is unchanged. A table without
-// three-body attachment (all k_att3 zero, as a user table without that column) is returned
-// as it is. n must be positive and finite.
+// attachment rate, η/N and the k_att3 column; every other value is unchanged (the power split
+// keeps its 1-atm attachment share, a small term below 100 Td). A table without three-body
+// attachment (all k_att3 zero, as a user table without that column) is returned as it is.
+// n must be positive and finite.
 func (t *Table) AtDensity(n float64) (*Table, error) {
 	if !(n > 0) || math.IsInf(n, 0) {
 		return nil, fmt.Errorf("swarm: gas density %g m⁻³: must be positive and finite", n)
