@@ -1,11 +1,15 @@
 package kinetics
 
-import "testing"
+import (
+	"testing"
+
+	"n2pulse/kinetics/design"
+)
 
 // BenchmarkRun times one shot of the built-in example design (200 cells) and reports the
 // optical cell updates per second.
 func BenchmarkRun(b *testing.B) {
-	d := ExampleDesign()
+	d := design.ExampleDesign()
 	if _, err := Run(d, &RunSettings{Light: true}); err != nil { // warm the tables
 		b.Fatal(err)
 	}

@@ -3,6 +3,7 @@ package kinetics
 import (
 	"math"
 
+	"n2pulse/kinetics/design"
 	"n2pulse/kinetics/swarm"
 	"n2pulse/units"
 )
@@ -26,10 +27,10 @@ const (
 // circuit is the stiff 0-D system of the circuit and the discharge: the ode.System that the
 // Rosenbrock integrator advances.
 type circuit struct {
-	topo               Topology
+	topo               design.Topology
 	c1, c2, cg         float64 // [F]
 	ls, lc, lsh, rsh   float64 // [H], [Ω]
-	sw                 Switch
+	sw                 design.Switch
 	q0                 float64 // spark integral at closure that gives R = R_off [A² s]
 	density, gap, area float64 // N [m⁻³], d [m], L·w [m²]
 	beta               float64 // recombination [m³/s]
@@ -50,7 +51,7 @@ type circuit struct {
 // gapCapacitance is the capacitance across the electrodes in parallel with the plasma,
 // C_g = ε₀·L·w_e/d plus the stray capacitance [F]; the electrode face width w_e defaults to the
 // discharge width.
-func gapCapacitance(ch Channel) float64 {
+func gapCapacitance(ch design.Channel) float64 {
 	we := ch.ElectrodeWidth
 	if we == 0 {
 		we = ch.Width
@@ -58,7 +59,7 @@ func gapCapacitance(ch Channel) float64 {
 	return units.VacuumPermittivity*ch.Length*we/ch.Gap + ch.StrayCapacitance
 }
 
-func newCircuit(d *Design, table *swarm.Table) *circuit {
+func newCircuit(d *design.Design, table *swarm.Table) *circuit {
 	ch := d.Channel
 	c := &circuit{
 		topo: d.Circuit.Topology,
@@ -72,7 +73,7 @@ func newCircuit(d *Design, table *swarm.Table) *circuit {
 	}
 	c.lo, c.hi = table.Range()
 	c.rates = newSwarmRates(table)
-	if c.sw.Model == RompeWeizelSwitch {
+	if c.sw.Model == design.RompeWeizelSwitch {
 		// R(0) = d_g / sqrt((2a/p_g)·q0) = R_off.
 		r := c.sw.Gap / c.sw.OffResistance
 		c.q0 = r * r * c.sw.Pressure / (2 * c.sw.SparkConstant)
@@ -87,7 +88,7 @@ func (c *circuit) Dim() int { return nState }
 func (c *circuit) initial(v0, seed float64) ([]float64, float64) {
 	y := make([]float64, nState)
 	y[iV1] = v0
-	if c.topo == Blumlein {
+	if c.topo == design.Blumlein {
 		y[iV2] = v0
 	}
 	y[iLnNe] = math.Log(seed)
@@ -104,9 +105,9 @@ func (c *circuit) storedEnergy(y []float64) float64 {
 func (c *circuit) switchResistance(t, q float64) float64 {
 	s := c.sw
 	switch s.Model {
-	case ExponentialSwitch:
+	case design.ExponentialSwitch:
 		return s.OnResistance + (s.OffResistance-s.OnResistance)*math.Exp(-t/s.RiseTime)
-	case RompeWeizelSwitch:
+	case design.RompeWeizelSwitch:
 		return s.OnResistance + s.Gap/math.Sqrt(2*s.SparkConstant/s.Pressure*(c.q0+math.Max(q, 0)))
 	}
 	return s.OnResistance
@@ -184,7 +185,7 @@ func (c *circuit) Eval(t float64, y, dy []float64) error {
 
 	var shunt, vsh float64 // current through the shunt [A] and the voltage across it [V]
 	switch c.topo {
-	case Blumlein:
+	case design.Blumlein:
 		vsh = v2 - v1
 	default:
 		vsh = v2
@@ -202,7 +203,7 @@ func (c *circuit) Eval(t float64, y, dy []float64) error {
 	}
 
 	switch c.topo {
-	case Blumlein:
+	case design.Blumlein:
 		// The switch shorts C₁ through L_s; the channel loop runs from the C₂ plate through
 		// L_c and the gap back to the C₁ plate.
 		dy[iV1] = (ic + shunt - is) / c.c1

@@ -4,6 +4,7 @@ import (
 	"math"
 	"testing"
 
+	"n2pulse/kinetics/design"
 	"n2pulse/kinetics/ode"
 )
 
@@ -11,10 +12,10 @@ import (
 // theory. The gap capacitance is made negligible and the conductance critically damps the
 // channel loop's L_c·C_g ringing while drawing almost no current, so that the switch loop
 // alone is a series RLC.
-func testCircuit(topo Topology, c1, c2, ls, rs float64) *circuit {
+func testCircuit(topo design.Topology, c1, c2, ls, rs float64) *circuit {
 	return &circuit{
 		topo: topo, c1: c1, c2: c2, cg: 1e-18, ls: ls, lc: 1e-6,
-		sw:    Switch{Model: IdealSwitch, OnResistance: rs},
+		sw:    design.Switch{Model: design.IdealSwitch, OnResistance: rs},
 		fixed: true, conductance: 1e-6,
 		density: 2.4e25, gap: 1e-3, area: 1e-4,
 	}
@@ -54,12 +55,12 @@ func TestCircuitSeriesRLC(t *testing.T) {
 	t.Parallel()
 	const v0, l, r = 10e3, 20e-9, 0.5
 	for _, tc := range []struct {
-		topo   Topology
+		topo   design.Topology
 		c1, c2 float64
 		ceff   float64
 	}{
-		{Blumlein, 3e-9, 3e-9, 3e-9},                     // the switch shorts C₁ alone
-		{ChargeTransfer, 4e-9, 2e-9, 4e-9 * 2e-9 / 6e-9}, // C_s and C_p in series
+		{design.Blumlein, 3e-9, 3e-9, 3e-9},                     // the switch shorts C₁ alone
+		{design.ChargeTransfer, 4e-9, 2e-9, 4e-9 * 2e-9 / 6e-9}, // C_s and C_p in series
 	} {
 		c := testCircuit(tc.topo, tc.c1, tc.c2, l, r)
 		y0, _ := c.initial(v0, 1)
@@ -88,7 +89,7 @@ func TestTransferEfficiency(t *testing.T) {
 	t.Parallel()
 	for _, ratio := range []float64{1, 0.5, 0.25} {
 		cs, cp := 4e-9, 4e-9*ratio
-		c := testCircuit(ChargeTransfer, cs, cp, 15e-9, 0)
+		c := testCircuit(design.ChargeTransfer, cs, cp, 15e-9, 0)
 		y0, stored := c.initial(20e3, 1)
 		half := math.Pi * math.Sqrt(15e-9*cs*cp/(cs+cp))
 		integrate(t, c, y0, []float64{half}, func(_ float64, y []float64) {
@@ -105,7 +106,7 @@ func TestTransferEfficiency(t *testing.T) {
 // what remains plus what was dissipated (conservation; exact for the circuit equations).
 func TestCircuitEnergyBalance(t *testing.T) {
 	t.Parallel()
-	for _, topo := range []Topology{Blumlein, ChargeTransfer} {
+	for _, topo := range []design.Topology{design.Blumlein, design.ChargeTransfer} {
 		c := testCircuit(topo, 3e-9, 2e-9, 10e-9, 0.3)
 		c.cg, c.lc, c.conductance = 20e-12, 3e-9, 1/2.0
 		c.lsh = 1e-6

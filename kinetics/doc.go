@@ -1,4 +1,4 @@
-// Package kinetics is the laser model of n2pulse: a Design (channel, gas, circuit, switch,
+// Package kinetics is the laser model of n2pulse: a design.Design (channel, gas, circuit, switch,
 // discharge, level kinetics, optics) becomes a Result (waveforms and figures of merit) through
 // four coupled blocks, in SI units throughout.
 //
@@ -28,6 +28,6 @@
 //	cmd/n2pulse  → validation, plots, kinetics/study   commands, flags, printing, report figures
 //	validation   → kinetics/study, kinetics            checks against published values and measured lasers
 //	plots → study → kinetics                           figures | many runs: sweep, length scan, sensitivity
-//	kinetics     → swarm, spectro, build, ode          design keys (for now) and one shot: circuit, discharge, populations, ASE, verdict
-//	swarm, spectro, build, ode → units, data           E/N rates | band constants, Franck–Condon, σ | plates, stresses | integrator
+//	kinetics     → design, swarm, spectro, ode         one shot: circuit, discharge, populations, ASE, bench stresses, verdict
+//	design → build; swarm, spectro, ode → units, data  design keys, defaults, file, [build] | plates | E/N rates | band constants, σ | integrator
 package kinetics

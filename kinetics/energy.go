@@ -1,6 +1,7 @@
 package kinetics
 
 import (
+	"n2pulse/kinetics/design"
 	"n2pulse/kinetics/swarm"
 	"n2pulse/units"
 )
@@ -12,7 +13,7 @@ import (
 // The plasma energy is the integrator's exact ∫V·I_p dt; its split follows the shares of the
 // samples (each optical step's plasma power times the swarm's channel shares at that
 // moment's E/N), scaled to that exact total, so the parts add up to it to rounding.
-func account(d *Design, p *Parameters, wf *waveforms, s *Summary) {
+func account(d *design.Design, p *Parameters, wf *waveforms, s *Summary) {
 	ch := d.Channel
 	volume := ch.Length * ch.Width * ch.Gap
 	a := &s.Energy

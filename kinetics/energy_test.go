@@ -5,6 +5,7 @@ import (
 
 	"gonum.org/v1/gonum/floats/scalar"
 
+	"n2pulse/kinetics/design"
 	"n2pulse/units"
 )
 
@@ -16,7 +17,7 @@ import (
 func TestEnergyAccount(t *testing.T) {
 	t.Parallel()
 	for _, air := range []bool{false, true} {
-		d := ExampleDesign()
+		d := design.ExampleDesign()
 		if air {
 			d.Gas.Nitrogen, d.Gas.Oxygen = 0.79, 0.21
 		}
@@ -66,7 +67,7 @@ func TestEnergyAccount(t *testing.T) {
 // Diatomic Molecules (1979): T₀ of C³Πu; from memory), within 0.2 %.
 func TestUpperEnergy(t *testing.T) {
 	t.Parallel()
-	r, _, err := laserParameters(ExampleDesign())
+	r, _, err := laserParameters(design.ExampleDesign())
 	if err != nil {
 		t.Fatal(err)
 	}

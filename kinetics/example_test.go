@@ -4,11 +4,12 @@ import (
 	"fmt"
 
 	"n2pulse/kinetics"
+	"n2pulse/kinetics/design"
 )
 
 // One shot of the built-in example design: a 20 cm atmospheric Blumlein laser.
 func ExampleRun() {
-	d := kinetics.ExampleDesign()
+	d := design.ExampleDesign()
 	r, err := kinetics.Run(d, &kinetics.RunSettings{Light: true})
 	if err != nil {
 		fmt.Println(err)
@@ -25,7 +26,7 @@ func ExampleRun() {
 
 // A design key changed as on the command line, with a unit.
 func ExampleDesign_Set() {
-	d := kinetics.ExampleDesign()
+	d := design.ExampleDesign()
 	if err := d.Set("gas.pressure", "300 Torr"); err != nil {
 		fmt.Println(err)
 	}

@@ -5,6 +5,7 @@ import (
 
 	"gonum.org/v1/gonum/mat"
 
+	"n2pulse/kinetics/design"
 	"n2pulse/kinetics/ode"
 	"n2pulse/units"
 )
@@ -19,9 +20,9 @@ var (
 func (c *circuit) switchSlopes(t, q float64) (dq, dt float64) {
 	s := c.sw
 	switch s.Model {
-	case ExponentialSwitch:
+	case design.ExponentialSwitch:
 		return 0, -(s.OffResistance - s.OnResistance) / s.RiseTime * math.Exp(-t/s.RiseTime)
-	case RompeWeizelSwitch:
+	case design.RompeWeizelSwitch:
 		if q < 0 {
 			return 0, 0
 		}
@@ -75,7 +76,7 @@ func (c *circuit) Jacobian(t float64, y []float64, dst *mat.Dense) {
 	// Shunt across the channel capacitor, I_sh = I_L + V_sh/R_sh, with V_sh = V₂ − V₁
 	// (Blumlein) or V₂ (charge transfer): its partial derivatives by I_L, V₁ and V₂.
 	var vsh, dvsh1 float64
-	if c.topo == Blumlein {
+	if c.topo == design.Blumlein {
 		vsh, dvsh1 = y[iV2]-y[iV1], -1
 	} else {
 		vsh = y[iV2]
@@ -99,7 +100,7 @@ func (c *circuit) Jacobian(t float64, y []float64, dst *mat.Dense) {
 	}
 
 	switch c.topo {
-	case Blumlein:
+	case design.Blumlein:
 		// dV₁ = (I_c + I_sh − I_s)/C₁, dV₂ = −(I_c + I_sh)/C₂, dI_s = (V₁ − R_s I_s)/L_s,
 		// dI_c = (V₂ − V₁ − V_g)/L_c.
 		set(iV1, iIc, 1/c.c1)

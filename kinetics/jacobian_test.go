@@ -6,15 +6,16 @@ import (
 
 	"gonum.org/v1/gonum/mat"
 
+	"n2pulse/kinetics/design"
 	"n2pulse/kinetics/ode"
 	"n2pulse/kinetics/ode/odetest"
 )
 
 // jacobianCases are circuits of every topology, switch model and shunt, on the example
 // channel and the shipped N₂ swarm table.
-func jacobianCases(t *testing.T) map[string]*Design {
+func jacobianCases(t *testing.T) map[string]*design.Design {
 	t.Helper()
-	cases := map[string]*Design{}
+	cases := map[string]*design.Design{}
 	for name, set := range map[string][]string{
 		"example (Blumlein, Rompe–Weizel, shunt inductor)": nil,
 		"Blumlein, exponential switch, shunt resistor": {"switch.model", "exponential",
@@ -24,7 +25,7 @@ func jacobianCases(t *testing.T) map[string]*Design {
 		"charge transfer, ideal switch, no shunt": {"circuit.topology", "transfer",
 			"switch.model", "ideal", "circuit.shunt_inductance", "0 H"},
 	} {
-		d := ExampleDesign()
+		d := design.ExampleDesign()
 		for i := 0; i < len(set); i += 2 {
 			if err := d.Set(set[i], set[i+1]); err != nil {
 				t.Fatalf("%s: %v", name, err)
@@ -37,7 +38,7 @@ func jacobianCases(t *testing.T) map[string]*Design {
 
 // trajectory integrates the circuit of d and returns its state at a few times through the
 // discharge, where every term of the Jacobian is alive.
-func trajectory(t *testing.T, d *Design) (*circuit, [][]float64, []float64) {
+func trajectory(t *testing.T, d *design.Design) (*circuit, [][]float64, []float64) {
 	t.Helper()
 	table, err := swarmTable(d, t.TempDir())
 	if err != nil {
@@ -139,7 +140,7 @@ func TestCircuitJacobian(t *testing.T) {
 // their differences.
 func TestFixedCircuitJacobian(t *testing.T) {
 	t.Parallel()
-	for _, topo := range []Topology{Blumlein, ChargeTransfer} {
+	for _, topo := range []design.Topology{design.Blumlein, design.ChargeTransfer} {
 		c := testCircuit(topo, 3e-9, 2e-9, 10e-9, 0.3)
 		c.cg, c.lc, c.conductance, c.lsh, c.rsh = 20e-12, 3e-9, 0.5, 1e-6, 40
 		y := []float64{9e3, -2e3, 150, 80, 4e3, 3, math.Log(1e18), 1e-5, 1e-3, 2e-3, 1e-4}

@@ -4,14 +4,15 @@ import (
 	"math"
 	"testing"
 
+	"n2pulse/kinetics/design"
 	"n2pulse/units"
 )
 
 // phaseSetup prepares the circuit and parameters of the example design as Run does, so that
 // the circuit and the optics of one shot can be timed apart.
-func phaseSetup(b *testing.B) (*Design, *circuit, *Parameters, int) {
+func phaseSetup(b *testing.B) (*design.Design, *circuit, *Parameters, int) {
 	b.Helper()
-	d := ExampleDesign()
+	d := design.ExampleDesign()
 	table, err := swarmTable(d, "")
 	if err != nil {
 		b.Fatal(err)

@@ -5,38 +5,44 @@ import "n2pulse/kinetics/ode"
 // Summary holds the figures of merit of one shot, in SI. The JSON names are part of the
 // program's interface (`run --json`, sweep tables): scripts rely on them.
 type Summary struct {
-	EnergyFront           float64       `json:"energy_front_J"`            // pulse energy leaving the output end z = L [J]
-	EnergyRear            float64       `json:"energy_rear_J"`             // pulse energy leaving the rear end z = 0 [J]
-	EnergyTotal           float64       `json:"energy_total_J"`            // both ends [J]
-	PeakPower             float64       `json:"peak_power_W"`              // peak power at the output end [W]
-	FWHM                  float64       `json:"fwhm_s"`                    // width of the output-end pulse: 2·sqrt(2 ln 2) × its rms duration, the FWHM of a Gaussian of the same rms width [s]
-	HalfMaxWidth          float64       `json:"half_max_width_s"`          // time between the first and last half-maximum crossings of the output-end pulse [s]
-	PulseCentre           float64       `json:"pulse_centre_s"`            // power-weighted mean time of the output-end pulse [s]
-	Rise                  float64       `json:"rise_s"`                    // 10–90 % rise time of the output-end pulse [s]
-	Delay                 float64       `json:"delay_s"`                   // switch closure to the half-maximum of the rising edge [s]
-	Efficiency            float64       `json:"efficiency"`                // total pulse energy / stored energy
-	StoredEnergy          float64       `json:"stored_energy_J"`           // ½ΣCV₀² [J]
-	DepositedEnergy       float64       `json:"deposited_energy_J"`        // energy delivered to the plasma [J]
-	PeakGain              float64       `json:"peak_gain_per_m"`           // highest small-signal gain σ·(N_C − g·N_B) [m⁻¹]
-	GainLength            float64       `json:"gain_length"`               // highest channel-integrated gain ∫g dz
-	InversionDuration     float64       `json:"inversion_duration_s"`      // duration of the gain: equivalent width ∫g⁺dt / g_max of the channel-mean gain [s]
-	TerminationTime       float64       `json:"termination_time_s"`        // when the mid-channel gain falls below 10 % of its peak after it [s]
-	TerminationCause      string        `json:"termination_cause"`         // "lower-level bottleneck", "pump collapse", "quenching", "extraction by the pulse" or "no gain"
-	PeakReducedField      float64       `json:"peak_reduced_field_Td"`     // highest |E/N| [Td]
-	PeakCurrent           float64       `json:"peak_current_A"`            // highest |channel current| [A]
-	PeakElectronDensity   float64       `json:"peak_electron_density_m3"`  // [m⁻³]
-	PeakCurrentDensity    float64       `json:"peak_current_density_A_m2"` // highest |channel current| over the discharge footprint L·w [A/m²]
-	SpecificEnergy        float64       `json:"specific_energy_J_m3"`      // energy into the plasma per discharge volume L·w·d [J/m³]
-	EnergyPerMolecule     float64       `json:"energy_per_molecule_eV"`    // energy into the plasma per gas molecule in the discharge volume [eV]
-	Energy                EnergyAccount `json:"energy_account"`            // where the stored energy went
-	EnergyBalanceResidual float64       `json:"energy_balance_residual"`   // |stored − (left + dissipated)| / stored
-	PhotonBalanceResidual float64       `json:"photon_balance_residual"`   // |created − (emitted + lost + left)| / created
-	Lases                 bool          `json:"lases"`                     // net gain-length at or above the threshold of amplified spontaneous emission (see Verdict)
-	Verdict               string        `json:"verdict"`                   // one line: lases, or the limiting cause
-	Advice                string        `json:"advice,omitempty"`          // what to change when it does not lase, naming design keys
-	StimulatedRatio       float64       `json:"stimulated_to_spontaneous"` // photons from stimulated emission per spontaneous seed photon
-	Derived               []string      `json:"derived,omitempty"`         // circuit keys computed from the [build] section
-	Overridden            []string      `json:"overridden,omitempty"`      // spectroscopic values taken from the design, not computed
+	EnergyFront     float64 `json:"energy_front_J"`     // pulse energy leaving the output end z = L [J]
+	EnergyRear      float64 `json:"energy_rear_J"`      // pulse energy leaving the rear end z = 0 [J]
+	EnergyTotal     float64 `json:"energy_total_J"`     // both ends [J]
+	PeakPower       float64 `json:"peak_power_W"`       // peak power at the output end [W]
+	FWHM            float64 `json:"fwhm_s"`             // width of the output-end pulse: 2·sqrt(2 ln 2) × its rms duration, the FWHM of a Gaussian of the same rms width [s]
+	HalfMaxWidth    float64 `json:"half_max_width_s"`   // time between the first and last half-maximum crossings of the output-end pulse [s]
+	PulseCentre     float64 `json:"pulse_centre_s"`     // power-weighted mean time of the output-end pulse [s]
+	Rise            float64 `json:"rise_s"`             // 10–90 % rise time of the output-end pulse [s]
+	Delay           float64 `json:"delay_s"`            // switch closure to the half-maximum of the rising edge [s]
+	Efficiency      float64 `json:"efficiency"`         // total pulse energy / stored energy
+	StoredEnergy    float64 `json:"stored_energy_J"`    // ½ΣCV₀² [J]
+	DepositedEnergy float64 `json:"deposited_energy_J"` // energy delivered to the plasma [J]
+	// UpperPumpedPhotonEnergy bounds the pulse energy: one laser photon hν for every
+	// excitation into C(0) over the discharge volume (channel.gap × channel.width × length,
+	// each cell's pump delayed as in the run), i.e. the energy put into C(0) × hν/E_C. Run
+	// checks EnergyTotal ≤ it on every shot [J].
+	UpperPumpedPhotonEnergy float64       `json:"upper_pumped_photon_energy_J"`
+	PeakGain                float64       `json:"peak_gain_per_m"`           // highest small-signal gain σ·(N_C − g·N_B) [m⁻¹]
+	GainLength              float64       `json:"gain_length"`               // highest channel-integrated gain ∫g dz
+	InversionDuration       float64       `json:"inversion_duration_s"`      // duration of the gain: equivalent width ∫g⁺dt / g_max of the channel-mean gain [s]
+	TerminationTime         float64       `json:"termination_time_s"`        // when the mid-channel gain falls below 10 % of its peak after it [s]
+	TerminationCause        string        `json:"termination_cause"`         // "lower-level bottleneck", "pump collapse", "quenching", "extraction by the pulse" or "no gain"
+	PeakReducedField        float64       `json:"peak_reduced_field_Td"`     // highest |E/N| [Td]
+	PeakCurrent             float64       `json:"peak_current_A"`            // highest |channel current| [A]
+	PeakElectronDensity     float64       `json:"peak_electron_density_m3"`  // [m⁻³]
+	PeakCurrentDensity      float64       `json:"peak_current_density_A_m2"` // highest |channel current| over the discharge footprint L·w [A/m²]
+	SpecificEnergy          float64       `json:"specific_energy_J_m3"`      // energy into the plasma per discharge volume L·w·d [J/m³]
+	EnergyPerMolecule       float64       `json:"energy_per_molecule_eV"`    // energy into the plasma per gas molecule in the discharge volume [eV]
+	Energy                  EnergyAccount `json:"energy_account"`            // where the stored energy went
+	EnergyBalanceResidual   float64       `json:"energy_balance_residual"`   // |stored − (left + dissipated)| / stored
+	PhotonBalanceResidual   float64       `json:"photon_balance_residual"`   // |created − (emitted + lost + left)| / created
+	Lases                   bool          `json:"lases"`                     // net gain-length at or above the threshold of amplified spontaneous emission (see Verdict)
+	Verdict                 string        `json:"verdict"`                   // one line: lases, or the limiting cause
+	Advice                  string        `json:"advice,omitempty"`          // what to change when it does not lase, naming design keys
+	StimulatedRatio         float64       `json:"stimulated_to_spontaneous"` // photons from stimulated emission per spontaneous seed photon
+	Derived                 []string      `json:"derived,omitempty"`         // circuit keys computed from the [build] section
+	Overridden              []string      `json:"overridden,omitempty"`      // spectroscopic values taken from the design, not computed
+	Warnings                []string      `json:"warnings,omitempty"`        // what the run could not do as asked (Result.Warnings)
 }
 
 // EnergyAccount says where the stored energy of a shot went [J]: the switch, the shunt, the
@@ -113,7 +119,7 @@ type Parameters struct {
 	UpperDecayRate  float64 // 1/τ_C + Σk_q N [s⁻¹]
 	LowerDecayRate  float64 // [s⁻¹]
 	GapCapacitance  float64 // [F]
-	OpticalArea     float64 // [m²]
+	OpticalArea     float64 // optical cross-section: channel.aperture, at most the discharge's gap × width [m²]
 	CellLength      float64 // Δz [m]
 	TimeStep        float64 // Δt = Δz/c [s]
 }

@@ -5,6 +5,7 @@ import (
 	"fmt"
 	"math"
 
+	"n2pulse/kinetics/design"
 	"n2pulse/kinetics/ode"
 	"n2pulse/kinetics/spectro"
 	"n2pulse/kinetics/swarm"
@@ -14,7 +15,7 @@ import (
 // Run simulates one shot of the design and returns the waveforms and figures of merit.
 // Errors name what failed: a design value out of range, a swarm table that cannot be read,
 // or an integration that did not converge.
-func Run(d *Design, s *RunSettings) (*Result, error) {
+func Run(d *design.Design, s *RunSettings) (*Result, error) {
 	if s == nil {
 		s = &RunSettings{}
 	}
@@ -36,9 +37,16 @@ func Run(d *Design, s *RunSettings) (*Result, error) {
 
 	circ := newCircuit(d, table)
 	par.GapCapacitance = circ.cg
-	par.OpticalArea = d.Channel.Aperture
-	if par.OpticalArea == 0 {
-		par.OpticalArea = d.Channel.Gap * d.Channel.Width
+	var warnings []string
+	par.OpticalArea = d.Channel.Gap * d.Channel.Width // the discharge cross-section
+	if a := d.Channel.Aperture; a > par.OpticalArea {
+		// Light gains only inside the excited volume: an optical cross-section larger than
+		// the discharge's would multiply the photons of the same populations.
+		warnings = append(warnings, fmt.Sprintf(
+			"channel.aperture = %s is larger than the discharge cross-section channel.gap × channel.width = %s: the optics use %s (no gain outside the excited volume)",
+			squareMM(a), squareMM(par.OpticalArea), squareMM(par.OpticalArea)))
+	} else if a > 0 {
+		par.OpticalArea = a
 	}
 	n := d.Numerics.Cells
 	par.CellLength = d.Channel.Length / float64(n)
@@ -54,6 +62,10 @@ func Run(d *Design, s *RunSettings) (*Result, error) {
 	sh := newShot(d, &res.Parameters, wf, steps, s)
 	sh.run(res)
 	sh.summarise(res)
+	res.Warnings = append(res.Warnings, warnings...)
+	if err := checkPumpBound(&res.Summary); err != nil {
+		return nil, err
+	}
 	res.Summary.StoredEnergy = wf.stored
 	res.Summary.DepositedEnergy = wf.deposited
 	res.Summary.EnergyBalanceResidual = wf.energyResidual
@@ -77,6 +89,7 @@ func Run(d *Design, s *RunSettings) (*Result, error) {
 			units.Format(d.Numerics.EndTime, "s")))
 	}
 	res.Summary.Derived = append([]string(nil), d.Derived...)
+	res.Summary.Warnings = append([]string(nil), res.Warnings...)
 	v := Verdict(d, res)
 	res.Summary.Lases, res.Summary.Verdict, res.Summary.Advice = v.Lases, v.Summary, v.Advice
 	if s.Light {
@@ -88,9 +101,23 @@ func Run(d *Design, s *RunSettings) (*Result, error) {
 	return res, nil
 }
 
+// squareMM formats an area in mm² (units.Format would put its prefix on the metre).
+func squareMM(a float64) string { return fmt.Sprintf("%.3g mm²", a*1e6) }
+
+// checkPumpBound is the invariant energy in ≥ light out: the pulse energy cannot exceed one
+// laser photon for every excitation into C(0) of the discharge volume. A violation is a
+// fault of the model, not of the design, and is returned as an error.
+func checkPumpBound(s *Summary) error {
+	if s.EnergyTotal <= s.UpperPumpedPhotonEnergy*(1+1e-9) {
+		return nil
+	}
+	return fmt.Errorf("kinetics: the pulse energy %s exceeds the %s of one laser photon per excitation into C(0): light from nowhere, a fault of the model (please report it with the design)",
+		units.Format(s.EnergyTotal, "J"), units.Format(s.UpperPumpedPhotonEnergy, "J"))
+}
+
 // laserParameters takes σ, g_C/g_B, A₀₀, τ_C, f_C, f_B and λ from package spectro for the
 // design's pressure and temperature, then applies the design's overrides.
-func laserParameters(d *Design) (Parameters, []string, error) {
+func laserParameters(d *design.Design) (Parameters, []string, error) {
 	lp, err := spectro.Laser(d.Gas.Pressure, d.Gas.Temperature)
 	if err != nil {
 		return Parameters{}, nil, fmt.Errorf("kinetics: spectroscopy: %w", err)
@@ -122,13 +149,13 @@ func laserParameters(d *Design) (Parameters, []string, error) {
 		}
 	}
 	if p.EinsteinA00*p.UpperLifetime > 1 {
-		return p, over, &KeyError{Key: "spectroscopy.einstein_a00", Value: fmt.Sprintf("%g s⁻¹", p.EinsteinA00),
+		return p, over, &design.KeyError{Key: "spectroscopy.einstein_a00", Value: fmt.Sprintf("%g s⁻¹", p.EinsteinA00),
 			Problem: fmt.Sprintf("A₀₀ exceeds the total radiative rate 1/τ_C = %g s⁻¹", 1/p.UpperLifetime)}
 	}
 	p.PhotonEnergy = units.Planck * units.SpeedOfLight / p.Wavelength
 	p.GasDensity = gasDensity(d.Gas)
-	p.UpperDecayRate = d.Levels.UpperDecayRate(p.UpperLifetime, d.Gas)
-	p.LowerDecayRate = d.Levels.LowerDecayRate(d.Gas)
+	p.UpperDecayRate = upperDecayRate(d.Levels, p.UpperLifetime, d.Gas)
+	p.LowerDecayRate = lowerDecayRate(d.Levels, d.Gas)
 	return p, over, nil
 }
 
@@ -149,7 +176,7 @@ type waveforms struct {
 }
 
 // solveCircuit integrates the circuit and discharge from closure to steps·dt and samples them.
-func solveCircuit(c *circuit, d *Design, par *Parameters, steps int) (*waveforms, Stats, error) {
+func solveCircuit(c *circuit, d *design.Design, par *Parameters, steps int) (*waveforms, Stats, error) {
 	dt := par.TimeStep
 	y0, stored := c.initial(d.Circuit.ChargeVoltage, d.Discharge.SeedDensity)
 	v0 := d.Circuit.ChargeVoltage

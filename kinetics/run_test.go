@@ -3,13 +3,15 @@ package kinetics
 import (
 	"math"
 	"testing"
+
+	"n2pulse/kinetics/design"
 )
 
 // TestRunConservation: on the example design the circuit's energy balance closes to 1e-4 of
 // the stored energy and the photon balance to 1e-3 (conservation; the tolerances).
 func TestRunConservation(t *testing.T) {
 	t.Parallel()
-	r, err := Run(ExampleDesign(), nil)
+	r, err := Run(design.ExampleDesign(), nil)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -34,7 +36,7 @@ func TestRunConservation(t *testing.T) {
 // less than 1 % and the FWHM by less than 2 % on the example design (the criterion).
 func TestRunConvergence(t *testing.T) {
 	t.Parallel()
-	d := ExampleDesign()
+	d := design.ExampleDesign()
 	var e, w []float64
 	for _, n := range []int{d.Numerics.Cells, 2 * d.Numerics.Cells} {
 		d.Numerics.Cells = n
@@ -61,7 +63,7 @@ func TestRunConvergence(t *testing.T) {
 // τ_eff = τ_C/(1 + 760/74.5).
 func TestSternVolmer(t *testing.T) {
 	t.Parallel()
-	d := ExampleDesign()
+	d := design.ExampleDesign()
 	d.Gas.Temperature = 293
 	d.Spectroscopy.UpperLifetime = 40.8e-9
 	d.Spectroscopy.EinsteinA00 = 1e7
@@ -95,7 +97,7 @@ func TestSternVolmer(t *testing.T) {
 // TestRunWarnsWhenCutShort: a run that ends mid-pulse says so.
 func TestRunWarnsWhenCutShort(t *testing.T) {
 	t.Parallel()
-	d := ExampleDesign()
+	d := design.ExampleDesign()
 	d.Numerics.EndTime = 12.5e-9
 	r, err := Run(d, &RunSettings{Light: true})
 	if err != nil {
@@ -104,7 +106,7 @@ func TestRunWarnsWhenCutShort(t *testing.T) {
 	if len(r.Warnings) == 0 {
 		t.Fatalf("no warning for a run cut at 12.5 ns (delay %.3g s)", r.Summary.Delay)
 	}
-	full, err := Run(ExampleDesign(), &RunSettings{Light: true})
+	full, err := Run(design.ExampleDesign(), &RunSettings{Light: true})
 	if err != nil {
 		t.Fatal(err)
 	}

@@ -4,12 +4,14 @@ import (
 	"math"
 
 	"gonum.org/v1/gonum/floats"
+
+	"n2pulse/kinetics/design"
 )
 
 // shot advances the populations and photon fluxes of every cell through the optical steps,
 // driven by the sampled discharge, and records waveforms and the gain map.
 type shot struct {
-	d     *Design
+	d     *design.Design
 	p     *Parameters
 	wf    *waveforms
 	steps int
@@ -34,7 +36,7 @@ type shot struct {
 	lit      int     // optical steps propagated (between dawn and dark)
 }
 
-func newShot(d *Design, p *Parameters, wf *waveforms, steps int, s *RunSettings) *shot {
+func newShot(d *design.Design, p *Parameters, wf *waveforms, steps int, s *RunSettings) *shot {
 	n := d.Numerics.Cells
 	omega := apertureSolidAngle(p.OpticalArea, d.Channel.Length)
 	spontPerC := p.EinsteinA00 * omega / (4 * math.Pi)
@@ -313,6 +315,7 @@ func (sh *shot) summarise(res *Result) {
 		s.EnergyRear += sh.powerRear[k] * dt
 	}
 	s.EnergyTotal = s.EnergyFront + s.EnergyRear
+	s.UpperPumpedPhotonEnergy = sh.pumpedUpper() * sh.d.Channel.Gap * sh.d.Channel.Width * sh.p.PhotonEnergy
 	t := func(k float64) float64 { return (k + 1) * dt } // power leaving during step k is sampled at its end
 	pk, kp := peak(sh.powerFront)
 	s.PeakPower = pk
@@ -363,6 +366,24 @@ func (sh *shot) summarise(res *Result) {
 	res.PowerFront = sh.powerFront
 	res.PowerRear = sh.powerRear
 	res.MeanGain = sh.meanGain
+}
+
+// pumpedUpper is the number of excitations into C(0) per unit cross-section of the channel
+// [m⁻²] over the run: Σ_cells Δz·Σ_k P_C(k)·Δt with each cell's pump delayed as in the run.
+func (sh *shot) pumpedUpper() float64 {
+	dt, n := sh.p.TimeStep, sh.d.Numerics.Cells
+	cum := make([]float64, sh.steps+1) // cum[k] = Σ_{j<k} P_C(j)·Δt
+	for k, pc := range sh.wf.pumpC {
+		cum[k+1] = cum[k] + pc*dt
+	}
+	at := func(k int) float64 { return cum[max(0, min(k, sh.steps))] }
+	total := 0.0
+	for i := 0; i < n; i++ {
+		// Σ_k sample(P_C, k, w, f) = (1−f)·Σ_{j<steps−w} P_C(j) + f·Σ_{j<steps−w−1} P_C(j).
+		w, f := sh.delayWhole[i], sh.delayFrac[i]
+		total += (1-f)*at(sh.steps-w) + f*at(sh.steps-w-1)
+	}
+	return total * sh.p.CellLength
 }
 
 // termination finds when the mid-channel gain falls below a tenth of its peak and names the

@@ -5,6 +5,7 @@ import (
 	"os"
 	"sync"
 
+	"n2pulse/kinetics/design"
 	"n2pulse/kinetics/swarm"
 )
 
@@ -14,7 +15,7 @@ var userTables sync.Map
 
 // swarmTable returns the table for the design: the user's file when numerics.swarm_table
 // names one, else the built-in or solved table for the gas mixture.
-func swarmTable(d *Design, cacheDir string) (*swarm.Table, error) {
+func swarmTable(d *design.Design, cacheDir string) (*swarm.Table, error) {
 	path := d.Numerics.SwarmTable
 	if path == "" {
 		t, err := swarm.ForMixture(d.Gas.Nitrogen, d.Gas.Oxygen, d.Gas.Helium, cacheDir)
@@ -25,7 +26,7 @@ func swarmTable(d *Design, cacheDir string) (*swarm.Table, error) {
 	}
 	info, err := os.Stat(path)
 	if err != nil {
-		return nil, &KeyError{Key: "numerics.swarm_table", Value: path, Problem: err.Error()}
+		return nil, &design.KeyError{Key: "numerics.swarm_table", Value: path, Problem: err.Error()}
 	}
 	key := fmt.Sprintf("%s\x00%d\x00%d", path, info.ModTime().UnixNano(), info.Size())
 	if t, ok := userTables.Load(key); ok {
@@ -33,12 +34,12 @@ func swarmTable(d *Design, cacheDir string) (*swarm.Table, error) {
 	}
 	f, err := os.Open(path)
 	if err != nil {
-		return nil, &KeyError{Key: "numerics.swarm_table", Value: path, Problem: err.Error()}
+		return nil, &design.KeyError{Key: "numerics.swarm_table", Value: path, Problem: err.Error()}
 	}
 	defer f.Close()
 	t, err := swarm.ReadCSV(f, path)
 	if err != nil {
-		return nil, &KeyError{Key: "numerics.swarm_table", Value: path, Problem: err.Error()}
+		return nil, &design.KeyError{Key: "numerics.swarm_table", Value: path, Problem: err.Error()}
 	}
 	userTables.Store(key, t)
 	return t, nil

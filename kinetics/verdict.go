@@ -4,6 +4,8 @@ import (
 	"fmt"
 	"math"
 
+	"n2pulse/kinetics/build"
+	"n2pulse/kinetics/design"
 	"n2pulse/units"
 )
 
@@ -35,7 +37,7 @@ type Judgement struct {
 // the channel did not break down or E/N stayed low (voltage or gap); oxygen quenching; a channel
 // shorter than 10/g where the gain lasts long enough for light to cross more; pressure too high;
 // current rise too slow against the effective C(0) lifetime (inductance).
-func Verdict(d *Design, r *Result) Judgement {
+func Verdict(d *design.Design, r *Result) Judgement {
 	if d == nil || r == nil {
 		return Judgement{Cause: "no result", Summary: "no result"}
 	}
@@ -51,10 +53,10 @@ func Verdict(d *Design, r *Result) Judgement {
 	return j
 }
 
-func limitingCause(d *Design, r *Result, gl float64) (cause, advice string) {
+func limitingCause(d *design.Design, r *Result, gl float64) (cause, advice string) {
 	s := r.Summary
-	tauEff := d.EffectiveUpperLifetime()
-	b, err := d.Bench()
+	tauEff := EffectiveUpperLifetime(d)
+	b, err := Bench(d, build.Spec{})
 	rise := math.Inf(1)
 	if err == nil {
 		rise = b.VoltageRise
@@ -82,7 +84,7 @@ func limitingCause(d *Design, r *Result, gl float64) (cause, advice string) {
 	}
 	g := d.Gas
 	n := gasDensity(g)
-	tauC := d.radiativeUpperLifetime()
+	tauC := radiativeUpperLifetime(d)
 	oxShare := g.Oxygen * d.Levels.UpperQuenchingOxygen * n * tauEff
 	if oxShare > 0.5 {
 		return fmt.Sprintf("oxygen quenching: O₂ removes %.0f %% of C(0), whose lifetime falls to %s", 100*oxShare, units.Format(tauEff, "s")),

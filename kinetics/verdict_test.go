@@ -3,6 +3,8 @@ package kinetics
 import (
 	"strings"
 	"testing"
+
+	"n2pulse/kinetics/design"
 )
 
 // shotSummary is a synthetic shot that broke down well and made gain g [m⁻¹] for dur [s].
@@ -35,7 +37,7 @@ func TestVerdictBranches(t *testing.T) {
 		{"slow", []string{"circuit.switch_inductance", "30 nH"}, shotSummary(3, 2e-9, 0.6), false, "current rise too slow", "circuit.channel_inductance"},
 	}
 	for _, c := range cases {
-		d := ExampleDesign()
+		d := design.ExampleDesign()
 		for i := 0; i+1 < len(c.set); i += 2 {
 			if err := d.Set(c.set[i], c.set[i+1]); err != nil {
 				t.Fatal(err)
@@ -56,7 +58,7 @@ func TestVerdictOfRuns(t *testing.T) {
 	if testing.Short() {
 		t.Skip("runs the model")
 	}
-	d := ExampleDesign()
+	d := design.ExampleDesign()
 	r, err := Run(d, &RunSettings{Light: true})
 	if err != nil {
 		t.Fatal(err)

@@ -137,8 +137,8 @@ func powerScale(maxAbs float64, unit string) (float64, string) {
 	return math.Pow(10, float64(-e)), powerOfTen(e) + unit
 }
 
-// powerOfTen writes 10ⁿ as "1e14": the default font lacks the superscript zero and minus.
-func powerOfTen(n int) string { return fmt.Sprintf("1e%d", n) }
+// powerOfTen writes 10ⁿ as "10^14": the default font lacks the superscript zero, nine and minus.
+func powerOfTen(n int) string { return fmt.Sprintf("10^%d", n) }
 
 // maxAbs returns the largest finite |v| over the given series.
 func maxAbs(series ...[]float64) float64 {

@@ -5,29 +5,18 @@ import (
 	"image/color"
 	"math"
 	"path/filepath"
-	"strconv"
-	"strings"
 
 	"gonum.org/v1/plot"
 	"gonum.org/v1/plot/palette"
-	"gonum.org/v1/plot/palette/moreland"
 	"gonum.org/v1/plot/plotter"
 	"gonum.org/v1/plot/vg"
 	"gonum.org/v1/plot/vg/draw"
 
 	"n2pulse/kinetics/study"
-	"n2pulse/units"
 )
 
 // DefaultMapMetrics are the figures of merit drawn when a sweep names none.
 var DefaultMapMetrics = []string{"energy_total_J", "peak_power_W", "fwhm_s", "efficiency"}
-
-// minimised lists the metrics whose optimum is the smallest value (a short pulse, a small
-// residual); every other metric is best at its largest.
-var minimised = map[string]bool{
-	"fwhm_s": true, "rise_s": true, "delay_s": true,
-	"energy_balance_residual": true, "photon_balance_residual": true,
-}
 
 // SweepFigures draws a finished sweep table into dir: for one varied key a curve per metric
 // (curve-<metric>.png and .svg), for two a heat map with contours per metric
@@ -47,17 +36,16 @@ func SweepFigures(t *study.Table, axes []study.Axis, metrics []string, dir strin
 	}
 	var files []string
 	for _, m := range metrics {
-		col := t.Column(m)
-		if col < 0 {
+		if t.Column(m) < 0 {
 			return files, fmt.Errorf("plots: metric %q is not a column of the sweep table", m)
 		}
 		var f []string
 		var err error
 		switch len(axes) {
 		case 1:
-			f, err = sweepCurve(t, axes[0], m, col, filepath.Join(dir, "curve-"+m))
+			f, err = sweepCurve(t, axes[0], m, filepath.Join(dir, "curve-"+m))
 		case 2:
-			f, err = sweepMap(t, axes, m, col, filepath.Join(dir, "map-"+m))
+			f, err = sweepMap(t, axes, m, filepath.Join(dir, "map-"+m))
 		default:
 			return nil, nil
 		}
@@ -69,112 +57,14 @@ func SweepFigures(t *study.Table, axes []study.Axis, metrics []string, dir strin
 	return files, nil
 }
 
-// sweepValue is metric col of row r, NaN for a failed point.
-func sweepValue(t *study.Table, r, col int) float64 {
-	if !t.OK(r) {
-		return math.NaN()
-	}
-	return t.Float(r, col)
-}
-
-// Optimum returns the row of a sweep table with the best computed value of metric (the largest,
-// or the smallest for widths, times and residuals) and the word for it ("maximum" or
-// "minimum"); the row is −1 when no point was computed or the metric is not a column.
-func Optimum(t *study.Table, metric string) (row int, word string) {
-	col := t.Column(metric)
-	if col < 0 {
-		return -1, optimumWord(metric)
-	}
-	v := make([]float64, len(t.Rows))
-	for r := range v {
-		v[r] = sweepValue(t, r, col)
-	}
-	return optimum(v, metric), optimumWord(metric)
-}
-
-// optimum returns the index of the best finite value, or −1.
-func optimum(v []float64, metric string) int {
-	best := -1
-	for i, x := range v {
-		if math.IsNaN(x) || math.IsInf(x, 0) {
-			continue
-		}
-		if best < 0 || (minimised[metric] && x < v[best]) || (!minimised[metric] && x > v[best]) {
-			best = i
-		}
-	}
-	return best
-}
-
-func optimumWord(metric string) string {
-	if minimised[metric] {
-		return "minimum"
-	}
-	return "maximum"
-}
-
-func sweepCurve(t *study.Table, a study.Axis, metric string, col int, base string) ([]string, error) {
-	x := a.Values()
-	y := make([]float64, len(x))
-	for r := range t.Rows {
-		y[r] = sweepValue(t, r, col)
-	}
-	p := plot.New()
-	p.Title.Text = metric + " against " + a.Key
-	p.X.Label.Text = a.Header()
-	p.Y.Label.Text = metric
-	if a.Log {
-		p.X.Scale = plot.LogScale{}
-		p.X.Tick.Marker = plot.TickerFunc(func(min, max float64) []plot.Tick {
-			ticks := logLabels(math.Log10(min), math.Log10(max)) // 1, 2, 5 per decade
-			for i := range ticks {
-				ticks[i].Value = math.Pow(10, ticks[i].Value)
-			}
-			return ticks
-		})
-	}
-	printStyle(p)
-	var seg plotter.XYs
-	flush := func() error {
-		if len(seg) == 0 {
-			return nil
-		}
-		l, s, err := plotter.NewLinePoints(seg)
-		if err != nil {
-			return fmt.Errorf("plots: %w", err)
-		}
-		l.Color, s.Color = color.RGBA{B: 160, A: 255}, color.RGBA{B: 160, A: 255}
-		p.Add(l, s)
-		seg = nil
-		return nil
-	}
-	for i := range x {
-		if math.IsNaN(y[i]) {
-			if err := flush(); err != nil { // failed points leave gaps
-				return nil, err
-			}
-			continue
-		}
-		seg = append(seg, plotter.XY{X: x[i], Y: y[i]})
-	}
-	if err := flush(); err != nil {
-		return nil, err
-	}
-	if b := optimum(y, metric); b >= 0 {
-		if err := markOptimum(p, x[b], y[b], optimumWord(metric)+" "+strconv.FormatFloat(y[b], 'g', 4, 64)+" at "+strconv.FormatFloat(x[b], 'g', 4, 64)); err != nil {
-			return nil, err
-		}
-	}
-	return studySave(base, 16*vg.Centimeter, 11*vg.Centimeter, func(c draw.Canvas) { p.Draw(c) })
-}
-
 // markOptimum adds a ring at (x, y), and a label unless text is empty.
 func markOptimum(p *plot.Plot, x, y float64, text string) error {
 	s, err := plotter.NewScatter(plotter.XYs{{X: x, Y: y}})
 	if err != nil {
 		return fmt.Errorf("plots: %w", err)
 	}
-	s.GlyphStyle = draw.GlyphStyle{Shape: draw.RingGlyph{}, Radius: vg.Points(6), Color: color.Black}
+	// A black ring with a white halo and a white cross reads on any colour.
+	s.GlyphStyle = draw.GlyphStyle{Shape: haloRing{}, Radius: vg.Points(7), Color: color.Black}
 	inner, _ := plotter.NewScatter(plotter.XYs{{X: x, Y: y}})
 	inner.GlyphStyle = draw.GlyphStyle{Shape: draw.CrossGlyph{}, Radius: vg.Points(4), Color: color.White}
 	p.Add(inner, s)
@@ -262,110 +152,6 @@ func (g sweepGrid) finiteCore() (sweepGrid, bool) {
 	return core, true
 }
 
-// layout returns an axis's values as drawn (log₁₀ for a log axis).
-func layout(a study.Axis) []float64 {
-	v := a.Values()
-	if a.Log {
-		for i := range v {
-			v[i] = math.Log10(v[i])
-		}
-	}
-	return v
-}
-
-// logLabels ticks an axis laid out in log₁₀ at 1, 2 and 5 per decade, labelled with the value.
-func logLabels(min, max float64) []plot.Tick {
-	var ticks []plot.Tick
-	for e := math.Floor(min); e <= math.Ceil(max); e++ {
-		for _, m := range []float64{1, 2, 5} {
-			t := e + math.Log10(m)
-			if t >= min-1e-9 && t <= max+1e-9 {
-				ticks = append(ticks, plot.Tick{Value: t, Label: strconv.FormatFloat(m*math.Pow(10, e), 'g', 3, 64)})
-			}
-		}
-	}
-	if len(ticks) < 2 { // a narrow range: plain ticks, labelled with values
-		for _, t := range (plot.DefaultTicks{}).Ticks(min, max) {
-			if t.Label != "" {
-				t.Label = strconv.FormatFloat(math.Pow(10, t.Value), 'g', 3, 64)
-			}
-			ticks = append(ticks, t)
-		}
-	}
-	return ticks
-}
-
-func sweepMap(t *study.Table, axes []study.Axis, metric string, col int, base string) ([]string, error) {
-	g := sweepGrid{x: layout(axes[0]), y: layout(axes[1])}
-	g.z = make([][]float64, axes[0].N)
-	for c := range g.z {
-		g.z[c] = make([]float64, axes[1].N)
-		for r := range g.z[c] {
-			g.z[c][r] = sweepValue(t, c*axes[1].N+r, col)
-		}
-	}
-	lo, hi := g.finite()
-	if lo > hi {
-		return nil, fmt.Errorf("plots: map of %s: no computed point", metric)
-	}
-	if lo == hi {
-		lo, hi = lo-0.5*math.Max(math.Abs(lo), 1e-300), hi+0.5*math.Max(math.Abs(hi), 1e-300)
-	}
-	cmap := moreland.Kindlmann()
-	cmap.SetMin(lo)
-	// The palette ends in white, the page colour: stop the data short of it so the best cell
-	// still reads as a colour.
-	cmap.SetMax(hi + 0.12*(hi-lo))
-
-	p := plot.New()
-	p.Title.Text = metric
-	for k, ax := range []*plot.Axis{&p.X, &p.Y} {
-		ax.Label.Text = axes[k].Header()
-		if axes[k].Log {
-			ax.Label.Text += ", log scale"
-			ax.Tick.Marker = plot.TickerFunc(logLabels)
-		}
-	}
-	printStyle(p)
-	h := plotter.NewHeatMap(g, cmap.Palette(255))
-	h.Min, h.Max = cmap.Min(), cmap.Max()
-	h.NaN = color.Gray{Y: 200}
-	p.Add(h)
-	if cg, ok := g.finiteCore(); ok {
-		levels := make([]float64, 6)
-		for i := range levels {
-			levels[i] = lo + (hi-lo)*float64(i+1)/float64(len(levels)+1)
-		}
-		cont := plotter.NewContour(cg, levels, studyGrey{})
-		cont.LineStyles = []draw.LineStyle{{Color: color.White, Width: vg.Points(0.8)}}
-		p.Add(cont)
-	}
-	if b, word := Optimum(t, metric); b >= 0 {
-		c, r := b/axes[1].N, b%axes[1].N
-		if err := markOptimum(p, g.x[c], g.y[r], ""); err != nil {
-			return nil, err
-		}
-		v, _ := strconv.ParseFloat(t.Rows[b][col], 64)
-		p.Title.Text = fmt.Sprintf("%s (%s %s at %s, %s)", metric, word, quantity(v, metricUnit(metric)),
-			quantity(axes[0].Values()[c], axes[0].Unit), quantity(axes[1].Values()[r], axes[1].Unit))
-	}
-
-	bar := plot.New()
-	bar.Add(&plotter.ColorBar{ColorMap: cmap, Vertical: true})
-	bar.HideX()
-	bar.X.Padding = 0
-	bar.Title.Text = " "
-	if u := metricUnit(metric); u != "" {
-		bar.Title.Text = "[" + u + "]"
-	}
-	printStyle(bar)
-	w, ht := 18*vg.Centimeter, 13*vg.Centimeter
-	return studySave(base, w, ht, func(c draw.Canvas) {
-		p.Draw(draw.Crop(c, 0, -3*vg.Centimeter, 0, 0))
-		bar.Draw(draw.Crop(c, w-3*vg.Centimeter, -0.2*vg.Centimeter, 0.9*vg.Centimeter, 0))
-	})
-}
-
 // studyGrey is a one-colour palette for contour lines.
 type studyGrey struct{}
 
@@ -385,26 +171,17 @@ func studySave(base string, w, h vg.Length, render func(c draw.Canvas)) ([]strin
 	return files, nil
 }
 
-// metricUnit is the SI unit a summary metric's name ends with ("energy_total_J" → "J"), or ""
-// for a dimensionless one.
-func metricUnit(metric string) string {
-	for _, u := range []struct{ suffix, unit string }{
-		{"_J", "J"}, {"_W", "W"}, {"_s", "s"}, {"_per_m", "m⁻¹"}, {"_Td", "Td"}, {"_A", "A"}, {"_m3", "m⁻³"},
-	} {
-		if strings.HasSuffix(metric, u.suffix) {
-			return u.unit
-		}
-	}
-	return ""
-}
+// haloRing is a ring drawn twice: wide in white, then thin in the glyph's colour.
+type haloRing struct{}
 
-// quantity writes v with an SI prefix for the units that take one ("671 µJ", "101 kPa").
-func quantity(v float64, unit string) string {
-	switch unit {
-	case "J", "W", "s", "Pa", "V", "A", "F", "H", "m", "Ω":
-		return units.Format(v, unit)
-	case "":
-		return strconv.FormatFloat(v, 'g', 3, 64)
-	}
-	return strconv.FormatFloat(v, 'g', 3, 64) + " " + unit
+// DrawGlyph implements draw.GlyphDrawer.
+func (haloRing) DrawGlyph(c *draw.Canvas, sty draw.GlyphStyle, pt vg.Point) {
+	ring := vg.Path{}
+	ring.Move(vg.Point{X: pt.X + sty.Radius, Y: pt.Y})
+	ring.Arc(pt, sty.Radius, 0, 2*math.Pi)
+	ring.Close()
+	c.SetLineStyle(draw.LineStyle{Color: color.White, Width: vg.Points(3.5)})
+	c.Stroke(ring)
+	c.SetLineStyle(draw.LineStyle{Color: sty.Color, Width: vg.Points(1.3)})
+	c.Stroke(ring)
 }

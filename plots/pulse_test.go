@@ -228,7 +228,7 @@ func TestSIScale(t *testing.T) {
 		max    float64
 		factor float64
 		label  string
-	}{{2e14, 1e-12, "1e12/cm³"}, {5e15, 1e-15, "1e15/cm³"}, {300, 1, "1/cm³"}, {2e-4, 1e6, "1e-6/cm³"}} {
+	}{{2e14, 1e-12, "10^12/cm³"}, {5e15, 1e-15, "10^15/cm³"}, {300, 1, "1/cm³"}, {2e-4, 1e6, "10^-6/cm³"}} {
 		f, l := powerScale(c.max, "/cm³")
 		if math.Abs(f/c.factor-1) > 1e-12 || l != c.label {
 			t.Errorf("powerScale(%g) = %g, %q; want %g, %q", c.max, f, l, c.factor, c.label)

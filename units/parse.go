@@ -240,3 +240,14 @@ func Format(v float64, unit string) string {
 	names := map[int]string{-15: "f", -12: "p", -9: "n", -6: "µ", -3: "m", 0: "", 3: "k", 6: "M", 9: "G", 12: "T"}
 	return fmt.Sprintf("%.3g %s%s", v/math.Pow(10, float64(exp)), names[exp], unit)
 }
+
+// UnitOf returns the unit written after the number in text ("20Torr" → "Torr", "14 kV" → "kV"),
+// or "" when there is none or text does not start with a number.
+func UnitOf(text string) string {
+	s := strings.TrimSpace(text)
+	i := numberEnd(s)
+	if i == 0 {
+		return ""
+	}
+	return strings.TrimSpace(s[i:])
+}

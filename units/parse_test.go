@@ -59,3 +59,12 @@ func TestFormat(t *testing.T) {
 		}
 	}
 }
+
+func TestUnitOf(t *testing.T) {
+	t.Parallel()
+	for text, want := range map[string]string{"20Torr": "Torr", " 14 kV ": "kV", "1e8 cm-3": "cm-3", "101325": "", "Torr": "", "-3.5e-2mm": "mm"} {
+		if got := UnitOf(text); got != want {
+			t.Errorf("UnitOf(%q) = %q, want %q", text, got, want)
+		}
+	}
+}

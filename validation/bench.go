@@ -6,6 +6,7 @@ import (
 
 	"n2pulse/kinetics"
 	"n2pulse/kinetics/build"
+	"n2pulse/kinetics/design"
 	"n2pulse/kinetics/study"
 	"n2pulse/units"
 )
@@ -21,7 +22,7 @@ func init() {
 // sensitivityChecks compares Sensitivity with explicit runs and the bench's stored energy with
 // the run's.
 func sensitivityChecks() ([]Check, error) {
-	d := kinetics.ExampleDesign()
+	d := design.ExampleDesign()
 	rows, err := study.Sensitivity(d, []string{"circuit.charge_voltage"}, 0.01)
 	if err != nil {
 		return nil, err
@@ -46,7 +47,7 @@ func sensitivityChecks() ([]Check, error) {
 		Computed: rows[0].Energy, Reference: explicit, Tolerance: 0.05, Mode: Relative, Kind: Analytic, Err: err,
 		Source: "finite-difference identity: (ln E(1.01V₀) − ln E(0.99V₀)) / (ln 1.01 − ln 0.99)",
 	}}
-	b, berr := d.Bench()
+	b, berr := kinetics.Bench(d, build.Spec{})
 	c := Check{
 		ID: "sensitivity.bench.stored_energy", Quantity: "stored energy, bench against run (example)", Unit: "J",
 		Tolerance: 1e-9, Mode: Relative, Kind: Analytic, Err: errors.Join(berr, err3),

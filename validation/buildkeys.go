@@ -4,7 +4,7 @@ import (
 	"errors"
 
 	"n2pulse/data"
-	"n2pulse/kinetics"
+	"n2pulse/kinetics/design"
 )
 
 func init() {
@@ -19,11 +19,11 @@ var buildKeyDesign = string(data.BoardDesign())
 // sweeps do, and compare the re-derived circuit with a worked example and the scaling of the
 // parallel-plate formula.
 func buildKeyChecks() ([]Check, error) {
-	d, err := kinetics.ParseDesign([]byte(buildKeyDesign), "board.toml")
+	d, err := design.ParseDesign([]byte(buildKeyDesign), "board.toml")
 	if err != nil {
 		return nil, err
 	}
-	set := func(d *kinetics.Design, kv ...string) error {
+	set := func(d *design.Design, kv ...string) error {
 		var errs []error
 		for i := 0; i+1 < len(kv); i += 2 {
 			errs = append(errs, d.Set(kv[i], kv[i+1]))

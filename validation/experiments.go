@@ -16,10 +16,11 @@ import (
 
 	"n2pulse/internal/pool"
 	"n2pulse/kinetics"
+	"n2pulse/kinetics/design"
 	"n2pulse/units"
 )
 
-// The experiment cases: each <case>.toml is a design file for kinetics.ParseDesign, and each
+// The experiment cases: each <case>.toml is a design file for design.ParseDesign, and each
 // <case>.measured.toml holds what the source measured, with its citation. common.toml is the
 // block of values no source gives (see testdata/experiments/COMMON.md).
 //
@@ -89,7 +90,7 @@ type measured struct {
 // expCase is one experiment: its design and its measurements.
 type expCase struct {
 	Name     string
-	Design   *kinetics.Design
+	Design   *design.Design
 	Measured measured
 }
 
@@ -187,7 +188,7 @@ func loadCase(fsys fs.FS, mname string) (expCase, error) {
 	if err != nil {
 		return c, fmt.Errorf("validation: experiments: case %s has no design: %w", c.Name, err)
 	}
-	if c.Design, err = kinetics.ParseDesign(db, dname); err != nil {
+	if c.Design, err = design.ParseDesign(db, dname); err != nil {
 		return c, fmt.Errorf("validation: experiments: %w", err)
 	}
 	return c, nil
@@ -218,7 +219,7 @@ func displayScale(unit string, dim units.Dimension) (float64, error) {
 
 // job is one model run.
 type job struct {
-	d   *kinetics.Design
+	d   *design.Design
 	sum kinetics.Summary
 	err error
 }
@@ -303,7 +304,7 @@ func runExperiments(cases []expCase) ([]Check, []Variation) {
 // planScan prepares the model runs of one variation.
 func planScan(c *expCase, v *variationSpec) *scanPlan {
 	p := &scanPlan{c: c, v: v}
-	if _, ok := kinetics.KeyUnit(v.Key); !ok {
+	if _, ok := design.KeyUnit(v.Key); !ok {
 		p.setErr = fmt.Errorf("validation: experiments: %s/%s: unknown design key %q", c.Name, v.ID, v.Key)
 		return p
 	}
@@ -558,7 +559,7 @@ func interpolate(x, y []float64, t float64) float64 {
 
 // dimensionOfKey returns the dimension of a numeric design key from its SI unit.
 func dimensionOfKey(key string) units.Dimension {
-	u, _ := kinetics.KeyUnit(key)
+	u, _ := design.KeyUnit(key)
 	if u == "" {
 		return units.Dimensionless
 	}

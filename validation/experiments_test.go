@@ -13,6 +13,7 @@ import (
 	"github.com/BurntSushi/toml"
 
 	"n2pulse/kinetics"
+	"n2pulse/kinetics/design"
 )
 
 // TestExperimentCasesLoad checks that every case parses as a design file and has a source.
@@ -55,7 +56,7 @@ func TestCommonBlock(t *testing.T) {
 			if key == "channel.width" {
 				continue // used only where the source does not give the width
 			}
-			ref := kinetics.Defaults()
+			ref := design.Defaults()
 			if err := ref.Set(key, fmt.Sprint(value)); err != nil {
 				t.Fatalf("common.toml: %v", err)
 			}
@@ -215,7 +216,7 @@ func BenchmarkExperimentCase(b *testing.B) {
 	if err != nil {
 		b.Fatal(err)
 	}
-	var d *kinetics.Design
+	var d *design.Design
 	for _, c := range cases {
 		if c.Name == "tea-transfer-88mm-v1" {
 			d = c.Design

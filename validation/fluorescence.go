@@ -2,6 +2,7 @@ package validation
 
 import (
 	"n2pulse/kinetics"
+	"n2pulse/kinetics/design"
 	"n2pulse/kinetics/spectro"
 	"n2pulse/kinetics/swarm"
 )
@@ -32,14 +33,14 @@ func fluorescenceChecks() ([]Check, error) {
 	// Quenching pressure: p′ = p/(τ_C/τ_eff − 1) with τ_eff the design's Stern–Volmer lifetime
 	// in dry air at p, T and τ_C the radiative lifetime of package spectro (as the design
 	// takes it when spectroscopy.upper_lifetime is not set).
-	d := kinetics.ExampleDesign()
+	d := design.ExampleDesign()
 	d.Gas.Pressure, d.Gas.Temperature = airflyPressure, airflyTemperature
 	d.Gas.Nitrogen, d.Gas.Oxygen, d.Gas.Helium = swarm.AirNitrogen, swarm.AirOxygen, 0
 	lp, err := spectro.Laser(d.Gas.Pressure, d.Gas.Temperature)
 	c := Check{ID: "fluorescence.quenching_pressure.337nm", Quantity: "quenching pressure p′ of the 337 nm band (C(0)) in dry air at 293 K",
 		Unit: "hPa", Reference: airflyP337, Tolerance: 0.10, Mode: Relative, Kind: Published, Source: srcAirfly, Err: err}
 	if err == nil {
-		tauEff := d.EffectiveUpperLifetime()
+		tauEff := kinetics.EffectiveUpperLifetime(d)
 		c.Computed = d.Gas.Pressure / (lp.UpperLifetime/tauEff - 1) / 100
 	}
 	cs := []Check{c}

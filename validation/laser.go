@@ -4,6 +4,7 @@ import (
 	"fmt"
 
 	"n2pulse/kinetics"
+	"n2pulse/kinetics/design"
 )
 
 // Checks of whole shots of the built-in example design against the behaviour of the trade and
@@ -13,7 +14,7 @@ func init() {
 }
 
 func runExample(sets map[string]string) (kinetics.Summary, error) {
-	d := kinetics.ExampleDesign()
+	d := design.ExampleDesign()
 	for k, v := range sets {
 		if err := d.Set(k, v); err != nil {
 			return kinetics.Summary{}, err

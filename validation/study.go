@@ -6,7 +6,7 @@ import (
 	"math"
 	"os"
 
-	"n2pulse/kinetics"
+	"n2pulse/kinetics/design"
 	"n2pulse/kinetics/study"
 	"n2pulse/units"
 )
@@ -30,8 +30,8 @@ func init() {
 }
 
 // studyDesign is the example design with keys changed, as `--set` would.
-func studyDesign(set ...string) (*kinetics.Design, error) {
-	d := kinetics.ExampleDesign()
+func studyDesign(set ...string) (*design.Design, error) {
+	d := design.ExampleDesign()
 	set = append([]string{"numerics.cells", "60"}, set...)
 	for i := 0; i+1 < len(set); i += 2 {
 		if err := d.Set(set[i], set[i+1]); err != nil {
@@ -43,7 +43,7 @@ func studyDesign(set ...string) (*kinetics.Design, error) {
 
 // sweepOf runs a one-key sweep of d in a scratch directory and returns the axis values and the
 // table.
-func sweepOf(d *kinetics.Design, vary string) ([]float64, *study.Table, error) {
+func sweepOf(d *design.Design, vary string) ([]float64, *study.Table, error) {
 	a, err := study.ParseAxis(vary, d)
 	if err != nil {
 		return nil, nil, err

@@ -12,6 +12,7 @@ import (
 	"n2pulse/data"
 	"n2pulse/kinetics"
 	"n2pulse/kinetics/build"
+	"n2pulse/kinetics/design"
 	"n2pulse/kinetics/study"
 	"n2pulse/units"
 )
@@ -45,7 +46,7 @@ func runBench(args []string, stdout, stderr io.Writer) error {
 	default:
 		return usagef("bench: takes at most one design file, got %d arguments", fs.NArg())
 	}
-	b, err := kinetics.ParseBuiltDesign(text, name)
+	b, err := design.ParseBuiltDesign(text, name)
 	if err != nil {
 		return err
 	}
@@ -63,17 +64,21 @@ func runBench(args []string, stdout, stderr io.Writer) error {
 			return err
 		}
 		// Set has re-derived the circuit from the build; rate the design as it now stands.
-		if b.Bench, _, err = b.Design.ApplyBuild(&b.Design.Build); err != nil {
+		if _, err = b.Design.ApplyBuild(&b.Design.Build); err != nil {
 			return err
 		}
 		b.Spec, b.Derived = b.Design.Build, b.Design.Derived
+	}
+	bench, err := kinetics.Bench(b.Design, b.Design.Build)
+	if err != nil {
+		return err
 	}
 	if *asJSON {
 		out := struct {
 			Design  string       `json:"design"`
 			Derived []string     `json:"derived"`
 			Bench   *build.Bench `json:"bench"`
-		}{b.Design.Name, b.Derived, b.Bench}
+		}{b.Design.Name, b.Derived, bench}
 		j, err := json.MarshalIndent(out, "", "  ")
 		if err != nil {
 			return err
@@ -81,13 +86,13 @@ func runBench(args []string, stdout, stderr io.Writer) error {
 		fmt.Fprintln(stdout, string(j))
 		return nil
 	}
-	printBench(stdout, name, b)
+	printBench(stdout, name, b, bench)
 	return nil
 }
 
 // printBench writes the bench report as readable tables.
-func printBench(w io.Writer, name string, b *kinetics.Built) {
-	d, r := b.Design, b.Bench
+func printBench(w io.Writer, name string, b *design.Built, r *build.Bench) {
+	d := b.Design
 	fmt.Fprintf(w, "bench: %s (%s)\n\n", d.Name, name)
 	derived := map[string]bool{}
 	for _, k := range b.Derived {
@@ -101,7 +106,7 @@ func printBench(w io.Writer, name string, b *kinetics.Built) {
 	}
 	tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
 	first, second := "C₁ switch side", "C₂ channel side"
-	if d.Circuit.Topology == kinetics.ChargeTransfer {
+	if d.Circuit.Topology == design.ChargeTransfer {
 		first, second = "C_s storage", "C_p peaking"
 	}
 	plates := func(l *build.Line) string {
@@ -152,7 +157,7 @@ func printBench(w io.Writer, name string, b *kinetics.Built) {
 	}
 	charging := "held near 0 by the shunt"
 	switch {
-	case d.Circuit.Topology == kinetics.ChargeTransfer:
+	case d.Circuit.Topology == design.ChargeTransfer:
 		charging = "0 until the switch closes (the peaking capacitor charges through it)"
 	case r.ShuntNeeded:
 		charging = "no shunt: the channel sits in the charging path"

@@ -7,7 +7,7 @@ import (
 	"os"
 
 	"n2pulse/data"
-	"n2pulse/kinetics"
+	"n2pulse/kinetics/design"
 )
 
 func init() {
@@ -35,7 +35,7 @@ func runInit(args []string, stdout, stderr io.Writer) error {
 	}
 	if *all {
 		text = []byte("# every key of a design file, with the defaults in SI (apparatus keys have no default)\n" +
-			kinetics.Defaults().String())
+			design.Defaults().String())
 	}
 	if fs.NArg() == 0 {
 		_, err := stdout.Write(text)

@@ -21,6 +21,7 @@ func runMerge(args []string, stdout, stderr io.Writer) error {
 	fs := newFlags("merge", "DIR… [--out DIR] [--metric NAME …]", stderr)
 	out := fs.String("out", "merged", "directory for the merged results.csv, sweep.json and figures")
 	metrics := fs.StringSlice("metric", nil, "figures of merit to draw (default as for sweep)")
+	asJSON := fs.Bool("json", false, "print the optimum of each metric as JSON on stdout instead of a table")
 	if help, err := parseFlags(fs, args); help || err != nil {
 		return err
 	}
@@ -44,5 +45,5 @@ func runMerge(args []string, stdout, stderr io.Writer) error {
 		return err
 	}
 	fmt.Fprintf(stderr, "merged %d shard directories: %s\n", fs.NArg(), tableCounts(tab))
-	return reportSweep(stdout, tab, m.Axes, *metrics, *out)
+	return reportSweep(stdout, tab, m.Axes, *metrics, *out, *asJSON)
 }

@@ -7,7 +7,7 @@ import (
 
 	"gonum.org/v1/gonum/floats/scalar"
 
-	"n2pulse/kinetics"
+	"n2pulse/kinetics/design"
 )
 
 // TestMixtureRuleRunSet checks the mixture rule on the --set path of run (and of sweep, which
@@ -24,7 +24,7 @@ func TestMixtureRuleRunSet(t *testing.T) {
 		t.Errorf("--set gas.oxygen=0.21: nitrogen %g, want 0.79", d.Gas.Nitrogen)
 	}
 	_, err = loadDesign(nil, []string{"gas.oxygen=0.21", "gas.nitrogen=1"})
-	var ke *kinetics.KeyError
+	var ke *design.KeyError
 	if !errors.As(err, &ke) || !strings.Contains(ke.Key, "gas.nitrogen") || !strings.Contains(ke.Key, "gas.oxygen") {
 		t.Errorf("--set gas.oxygen=0.21 --set gas.nitrogen=1: error %v, want a KeyError naming both", err)
 	}

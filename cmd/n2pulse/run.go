@@ -12,6 +12,7 @@ import (
 	"strings"
 
 	"n2pulse/kinetics"
+	"n2pulse/kinetics/design"
 	"n2pulse/kinetics/study"
 	"n2pulse/units"
 )
@@ -25,14 +26,14 @@ func init() {
 }
 
 // loadDesign reads the design named by args (or the built-in example) and applies --set.
-func loadDesign(args []string, sets []string) (*kinetics.Design, error) {
-	var d *kinetics.Design
+func loadDesign(args []string, sets []string) (*design.Design, error) {
+	var d *design.Design
 	switch len(args) {
 	case 0:
-		d = kinetics.ExampleDesign()
+		d = design.ExampleDesign()
 	case 1:
 		var err error
-		if d, err = kinetics.LoadDesign(args[0]); err != nil {
+		if d, err = design.LoadDesign(args[0]); err != nil {
 			return nil, err
 		}
 	default:
@@ -112,7 +113,7 @@ func runRun(args []string, stdout, stderr io.Writer) error {
 }
 
 // printSummary writes the readable summary and the caution line.
-func printSummary(w io.Writer, d *kinetics.Design, r *kinetics.Result) {
+func printSummary(w io.Writer, d *design.Design, r *kinetics.Result) {
 	s := r.Summary
 	name := d.Name
 	if name == "" {
@@ -127,7 +128,7 @@ func printSummary(w io.Writer, d *kinetics.Design, r *kinetics.Result) {
 	row("first to last half maximum", units.Format(s.HalfMaxWidth, "s"))
 	row("rise 10–90 %", units.Format(s.Rise, "s"))
 	row("delay from switch closure", units.Format(s.Delay, "s"))
-	row("efficiency", fmt.Sprintf("%.3g %% of %s stored", 100*s.Efficiency, units.Format(s.StoredEnergy, "J")))
+	row("efficiency (fraction)", fmt.Sprintf("%.3g of %s stored (%.3g %%)", s.Efficiency, units.Format(s.StoredEnergy, "J"), 100*s.Efficiency))
 	row("energy into the plasma", units.Format(s.DepositedEnergy, "J"))
 	printAccount(row, s)
 	row("peak E/N", fmt.Sprintf("%.0f Td", s.PeakReducedField))
@@ -196,7 +197,7 @@ func caution(stored, pulse float64) string {
 }
 
 // writeRunOutputs writes waveforms.csv, summary.json and the figures into dir.
-func writeRunOutputs(dir string, d *kinetics.Design, r *kinetics.Result) error {
+func writeRunOutputs(dir string, d *design.Design, r *kinetics.Result) error {
 	if err := os.MkdirAll(dir, 0o755); err != nil {
 		return err
 	}

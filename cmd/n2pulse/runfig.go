@@ -4,11 +4,12 @@ import (
 	"path/filepath"
 
 	"n2pulse/kinetics"
+	"n2pulse/kinetics/design"
 	"n2pulse/plots"
 )
 
 // writeRunFigures draws the pulse report and the gain map of one shot as PNG and SVG.
-func writeRunFigures(dir string, d *kinetics.Design, r *kinetics.Result) error {
+func writeRunFigures(dir string, d *design.Design, r *kinetics.Result) error {
 	pd := plots.PulseData{
 		Title:           d.Name,
 		Time:            r.Time,

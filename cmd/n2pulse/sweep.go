@@ -2,6 +2,7 @@ package main
 
 import (
 	"context"
+	"encoding/json"
 	"errors"
 	"fmt"
 	"io"
@@ -14,6 +15,7 @@ import (
 	"syscall"
 	"text/tabwriter"
 
+	"n2pulse/internal/atomicfile"
 	"n2pulse/kinetics/study"
 	"n2pulse/plots"
 )
@@ -36,6 +38,7 @@ func runSweep(args []string, stdout, stderr io.Writer) error {
 	resume := fs.Bool("resume", false, "finish the sweep already started in --out, computing only the missing points")
 	shardText := fs.String("shard", "", "compute only shard K of N (point i belongs to shard i mod N + 1); default from SLURM_ARRAY_TASK_ID when set")
 	quiet := fs.Bool("quiet", false, "no progress line")
+	asJSON := fs.Bool("json", false, "print the optimum of each metric as JSON on stdout instead of a table")
 	if help, err := parseFlags(fs, args); help || err != nil {
 		return err
 	}
@@ -87,21 +90,60 @@ func runSweep(args []string, stdout, stderr io.Writer) error {
 		fmt.Fprintf(stdout, "shard %s: wrote %s; join the shards with `n2pulse merge`\n", s.Shard, filepath.Join(*out, study.ResultsFile))
 		return nil
 	}
-	return reportSweep(stdout, tab, s.Axes, *metrics, *out)
+	return reportSweep(stdout, tab, s.Axes, *metrics, *out, *asJSON)
 }
 
-// reportSweep prints the optimum of each metric, draws the figures and lists the files.
-func reportSweep(stdout io.Writer, tab *study.Table, axes []study.Axis, metrics []string, dir string) error {
+// sweepReport is what `sweep --json` prints: the grid, the counts, the optimum of each metric
+// (values in SI, as in results.csv) and the files written.
+type sweepReport struct {
+	Axes   []study.Axis `json:"axes"`
+	Points int          `json:"points"`
+	Failed int          `json:"failed"`
+	Optima []plots.Best `json:"optima"`
+	Files  []string     `json:"files"`
+}
+
+// reportSweep prints the optimum of each metric (a table, or JSON), draws the figures, writes
+// the plotting-program copy of a two-key table and lists the files.
+func reportSweep(stdout io.Writer, tab *study.Table, axes []study.Axis, metrics []string, dir string, asJSON bool) error {
 	if len(metrics) == 0 {
 		metrics = plots.DefaultMapMetrics
 	}
-	printOptima(stdout, tab, axes, metrics)
-	files, err := plots.SweepFigures(tab, axes, metrics, dir)
+	if !asJSON {
+		printOptima(stdout, tab, axes, metrics)
+	}
+	files := []string{filepath.Join(dir, study.ResultsFile)}
+	if len(axes) == 2 {
+		dat := filepath.Join(dir, study.DataFile)
+		if err := atomicfile.WriteFile(dat, tab.Blocks(axes[1].N)); err != nil {
+			return fmt.Errorf("sweep: %w", err)
+		}
+		files = append(files, dat)
+	}
+	figs, err := plots.SweepFigures(tab, axes, metrics, dir)
 	if err != nil {
 		return err
 	}
-	fmt.Fprintf(stdout, "wrote %s", filepath.Join(dir, study.ResultsFile))
-	for _, f := range files {
+	files = append(files, figs...)
+	if asJSON {
+		rep := sweepReport{Axes: axes, Points: len(tab.Rows), Files: files}
+		for r := range tab.Rows {
+			if !tab.OK(r) {
+				rep.Failed++
+			}
+		}
+		for _, m := range metrics {
+			rep.Optima = append(rep.Optima, plots.Optimum(tab, axes, m))
+		}
+		b, err := json.MarshalIndent(rep, "", "  ")
+		if err != nil {
+			return fmt.Errorf("sweep: %w", err)
+		}
+		fmt.Fprintln(stdout, string(b))
+		return nil
+	}
+	fmt.Fprintf(stdout, "wrote %s", files[0])
+	for _, f := range files[1:] {
 		fmt.Fprintf(stdout, ", %s", filepath.Base(f))
 	}
 	fmt.Fprintln(stdout)
@@ -153,26 +195,36 @@ func tableCounts(t *study.Table) string {
 	return fmt.Sprintf("%d points, %d failed", len(t.Rows), failed)
 }
 
-// printOptima writes, per metric, the best computed point and its varied values.
+// printOptima writes, per metric, the best counted point and its varied values in display
+// units (plots.LabelOf), with a note when it lies on the edge of the grid.
 func printOptima(w io.Writer, t *study.Table, axes []study.Axis, metrics []string) {
 	tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
-	head := "metric\toptimum\tvalue"
+	head := "figure of merit\toptimum\tvalue"
 	for _, a := range axes {
-		head += "\t" + a.Header()
+		head += "\t" + plots.LabelOf(a.Key).Text
 	}
-	fmt.Fprintln(tw, head)
+	fmt.Fprintln(tw, head+"\t")
+	var edges []string
 	for _, m := range metrics {
-		c := t.Column(m)
-		best, word := plots.Optimum(t, m)
-		if best < 0 {
-			fmt.Fprintf(tw, "%s\t-\tno computed point\n", m)
+		l := plots.LabelOf(m)
+		b := plots.Optimum(t, axes, m)
+		if b.Row < 0 {
+			fmt.Fprintf(tw, "%s\t-\tno point with a value\t\n", l.Text)
 			continue
 		}
-		line := fmt.Sprintf("%s\t%s\t%s", m, word, t.Rows[best][c])
+		line := fmt.Sprintf("%s\t%s\t%s", l.Text, b.Word, l.Format(b.Value))
 		for _, a := range axes {
-			line += "\t" + t.Rows[best][t.Column(a.Header())]
+			al := plots.LabelOf(a.Key + " [" + a.Unit + "]").Typed(a.Display)
+			line += "\t" + al.Format(t.Float(b.Row, t.Column(a.Header())))
 		}
-		fmt.Fprintln(tw, line)
+		if len(b.Edge) > 0 {
+			line += "\tedge"
+			edges = append(edges, l.Text)
+		}
+		fmt.Fprintln(tw, line+"\t")
 	}
 	tw.Flush()
+	if len(edges) > 0 {
+		fmt.Fprintf(w, "edge: the optimum of %s lies on the edge of the grid; extend the range to find the best\n", strings.Join(edges, ", "))
+	}
 }

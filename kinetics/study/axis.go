@@ -6,7 +6,8 @@ import (
 	"strconv"
 	"strings"
 
-	"n2pulse/kinetics"
+	"n2pulse/kinetics/design"
+	"n2pulse/units"
 )
 
 // Axis is one varied design key: N values from From to To, evenly spaced or, with Log,
@@ -18,6 +19,9 @@ type Axis struct {
 	To   float64 `json:"to"`   // last value [SI]
 	N    int     `json:"n"`    // number of values, at least 1
 	Log  bool    `json:"log"`  // logarithmic spacing
+	// Display is the unit the user typed for FROM ("Torr", "kV"), in which figures show the
+	// axis; "" when FROM was a bare SI number. It does not change the grid.
+	Display string `json:"display,omitempty"`
 }
 
 // maxAxisPoints bounds one axis; more points than this are a typing mistake.
@@ -26,7 +30,7 @@ const maxAxisPoints = 100000
 // ParseAxis reads an axis written KEY=FROM:TO:N[:log], for example
 // "gas.pressure=20Torr:760Torr:20:log". FROM and TO take any unit of the key's dimension (a bare
 // number is SI); both ends are checked against the key's allowed range on a copy of base.
-func ParseAxis(text string, base *kinetics.Design) (Axis, error) {
+func ParseAxis(text string, base *design.Design) (Axis, error) {
 	key, rng, ok := strings.Cut(text, "=")
 	key = strings.TrimSpace(key)
 	if !ok || key == "" {
@@ -36,7 +40,7 @@ func ParseAxis(text string, base *kinetics.Design) (Axis, error) {
 	if len(parts) < 3 || len(parts) > 4 {
 		return Axis{}, fmt.Errorf("study: --vary %q: want KEY=FROM:TO:N[:log], got %d fields after '='", text, len(parts))
 	}
-	unit, known := kinetics.KeyUnit(key)
+	unit, known := design.KeyUnit(key)
 	if !known {
 		// Set gives the error with a suggestion.
 		return Axis{}, fmt.Errorf("study: --vary %q: %w", text, base.Clone().Set(key, parts[0]))
@@ -44,7 +48,7 @@ func ParseAxis(text string, base *kinetics.Design) (Axis, error) {
 	if _, err := base.Get(key); err != nil {
 		return Axis{}, fmt.Errorf("study: --vary %q: %w", text, err)
 	}
-	a := Axis{Key: key, Unit: unit}
+	a := Axis{Key: key, Unit: unit, Display: units.UnitOf(parts[0])}
 	var err error
 	if a.From, err = valueOf(base, key, parts[0]); err != nil {
 		return Axis{}, fmt.Errorf("study: --vary %q: FROM: %w", text, err)
@@ -73,7 +77,7 @@ func ParseAxis(text string, base *kinetics.Design) (Axis, error) {
 }
 
 // valueOf converts text with a unit to SI through the design's own parser and range check.
-func valueOf(base *kinetics.Design, key, text string) (float64, error) {
+func valueOf(base *design.Design, key, text string) (float64, error) {
 	d := base.Clone()
 	if err := d.Set(key, strings.TrimSpace(text)); err != nil {
 		return 0, err

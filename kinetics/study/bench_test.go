@@ -6,14 +6,14 @@ import (
 	"syscall"
 	"testing"
 
-	"n2pulse/kinetics"
+	"n2pulse/kinetics/design"
 )
 
 // BenchmarkSweep20x12 times the 20 × 12 pressure × voltage sweep of the example design with
 // the full model, on 1 and 2 workers; points/s is the domain rate. bench/sweep.sh runs it and
 // prints the speed-up.
 func BenchmarkSweep20x12(b *testing.B) {
-	d := kinetics.ExampleDesign()
+	d := design.ExampleDesign()
 	p, err := ParseAxis("gas.pressure=50Torr:760Torr:20:log", d)
 	if err != nil {
 		b.Fatal(err)

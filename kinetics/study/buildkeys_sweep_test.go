@@ -7,8 +7,8 @@ import (
 	"testing"
 
 	"n2pulse/data"
-	"n2pulse/kinetics"
 	"n2pulse/kinetics/build"
+	"n2pulse/kinetics/design"
 	"n2pulse/kinetics/study"
 	"n2pulse/units"
 )
@@ -22,7 +22,7 @@ var sweepBoard = string(data.BoardDesign()) + "\n[numerics]\ncells = 16\n"
 // charge to V₀, analytic) with C₁ = ε₀ε_r·l·w/d from the plates (parallel-plate formula,
 // Serway & Jewett, Physics for Scientists and Engineers, capacitance chapter, from memory).
 func TestSweepOverBuildKey(t *testing.T) {
-	d, err := kinetics.ParseDesign([]byte(sweepBoard), "board.toml")
+	d, err := design.ParseDesign([]byte(sweepBoard), "board.toml")
 	if err != nil {
 		t.Fatal(err)
 	}

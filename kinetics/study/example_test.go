@@ -7,12 +7,13 @@ import (
 	"os"
 
 	"n2pulse/kinetics"
+	"n2pulse/kinetics/design"
 	"n2pulse/kinetics/study"
 )
 
 // An axis is written as on the command line; the ends take any unit of the key.
 func ExampleParseAxis() {
-	a, err := study.ParseAxis("gas.pressure=20Torr:760Torr:3:log", kinetics.ExampleDesign())
+	a, err := study.ParseAxis("gas.pressure=20Torr:760Torr:3:log", design.ExampleDesign())
 	if err != nil {
 		fmt.Println(err)
 		return
@@ -31,12 +32,12 @@ func ExampleParseAxis() {
 // A sweep with a runner of one's own (here a toy formula standing in for the model): rows come
 // back in point order, a failing point keeps its row with the reason in the status column.
 func ExampleSweep() {
-	d := kinetics.ExampleDesign()
+	d := design.ExampleDesign()
 	v, _ := study.ParseAxis("circuit.charge_voltage=10kV:20kV:3", d)
 	dir, _ := os.MkdirTemp("", "sweep-example-")
 	defer os.RemoveAll(dir)
 	s := &study.Sweep{Design: d, Axes: []study.Axis{v}, Dir: dir,
-		Runner: func(d *kinetics.Design) (kinetics.Summary, error) {
+		Runner: func(d *design.Design) (kinetics.Summary, error) {
 			if d.Circuit.ChargeVoltage > 18e3 {
 				return kinetics.Summary{}, fmt.Errorf("toy: above 18 kV")
 			}

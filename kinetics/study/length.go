@@ -7,15 +7,16 @@ import (
 	"math"
 
 	"n2pulse/kinetics"
+	"n2pulse/kinetics/design"
 	"n2pulse/units"
 )
 
 // LengthScan runs one design over channel lengths, as given and, optionally, with a
 // travelling excitation front.
 type LengthScan struct {
-	Design   *kinetics.Design // base design; not modified
-	From, To float64          // shortest and longest channel [m]
-	Points   int              // number of lengths, at least 3
+	Design   *design.Design // base design; not modified
+	From, To float64        // shortest and longest channel [m]
+	Points   int            // number of lengths, at least 3
 	// TravellingWave, when non-zero, adds a second curve with optics.excitation_velocity set to
 	// it [m/s] (units.SpeedOfLight for a front at light speed).
 	TravellingWave float64
@@ -101,7 +102,7 @@ func (s *LengthScan) Run(ctx context.Context) (*LengthResult, error) {
 			res.Curves[c].Points[k].Length = l
 		}
 	}
-	design := func(i int) (*kinetics.Design, error) {
+	designAt := func(i int) (*design.Design, error) {
 		d := s.Design.Clone()
 		d.Channel.Length = lengths[i%len(lengths)]
 		d.Optics.ExcitationVelocity = velocities[i/len(lengths)]
@@ -112,7 +113,7 @@ func (s *LengthScan) Run(ctx context.Context) (*LengthResult, error) {
 		}
 		return d, d.Validate()
 	}
-	err := evaluate(ctx, idx, s.Workers, design, run, func(o outcome) error {
+	err := evaluate(ctx, idx, s.Workers, designAt, run, func(o outcome) error {
 		p := &res.Curves[o.i/len(lengths)].Points[o.i%len(lengths)]
 		p.Summary, p.Err = o.sum, o.err
 		return nil

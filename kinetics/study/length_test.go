@@ -7,6 +7,7 @@ import (
 	"testing"
 
 	"n2pulse/kinetics"
+	"n2pulse/kinetics/design"
 	"n2pulse/units"
 )
 
@@ -47,7 +48,7 @@ func TestUsefulLengthRules(t *testing.T) {
 
 // saturatingRunner stands in for the model in machinery tests: output-end energy saturates
 // over 10 cm of channel (faster with a travelling front), gain lasts 1 ns.
-func saturatingRunner(d *kinetics.Design) (kinetics.Summary, error) {
+func saturatingRunner(d *design.Design) (kinetics.Summary, error) {
 	scale := 0.1
 	if !math.IsInf(d.Optics.ExcitationVelocity, 1) {
 		scale = 0.2
@@ -57,7 +58,7 @@ func saturatingRunner(d *kinetics.Design) (kinetics.Summary, error) {
 }
 
 func TestLengthScan(t *testing.T) {
-	s := &LengthScan{Design: kinetics.ExampleDesign(), From: 0.02, To: 1, Points: 50,
+	s := &LengthScan{Design: design.ExampleDesign(), From: 0.02, To: 1, Points: 50,
 		TravellingWave: units.SpeedOfLight, Runner: saturatingRunner, Workers: 2}
 	r, err := s.Run(context.Background())
 	if err != nil {
@@ -88,7 +89,7 @@ func TestLengthScan(t *testing.T) {
 	// With ScaleCapacitors each length gets the design's capacitance per unit length.
 	perLength := s.Design.Circuit.SwitchCapacitance / s.Design.Channel.Length
 	scaled := &LengthScan{Design: s.Design, From: 0.1, To: 0.5, Points: 3, ScaleCapacitors: true, Workers: 1,
-		Runner: func(d *kinetics.Design) (kinetics.Summary, error) {
+		Runner: func(d *design.Design) (kinetics.Summary, error) {
 			if got := d.Circuit.SwitchCapacitance / d.Channel.Length; math.Abs(got-perLength) > 1e-12*perLength ||
 				d.Circuit.ChannelCapacitance != d.Circuit.SwitchCapacitance*s.Design.Circuit.ChannelCapacitance/s.Design.Circuit.SwitchCapacitance {
 				t.Errorf("at %g m: capacitances %g F, %g F", d.Channel.Length, d.Circuit.SwitchCapacitance, d.Circuit.ChannelCapacitance)

@@ -20,7 +20,7 @@ type Manifest struct {
 	Version    int      `json:"version"`
 	DesignName string   `json:"design_name"`
 	DesignHash string   `json:"design_hash"` // DesignHash of the base design
-	Design     string   `json:"design"`      // kinetics.Design.String of the base design
+	Design     string   `json:"design"`      // design.Design.String of the base design
 	Axes       []Axis   `json:"axes"`
 	Points     int      `json:"points"` // of the whole grid
 	Columns    []string `json:"columns"`
@@ -84,8 +84,9 @@ func (m *Manifest) Differs(o *Manifest) string {
 		return fmt.Sprintf("%d varied keys against %d", len(m.Axes), len(o.Axes))
 	}
 	for i := range m.Axes {
-		if m.Axes[i] != o.Axes[i] {
-			a, b := m.Axes[i], o.Axes[i]
+		a, b := m.Axes[i], o.Axes[i]
+		a.Display, b.Display = "", "" // the unit typed changes the figures, not the grid
+		if a != b {
 			return fmt.Sprintf("axis %d: %s=%g:%g:%d (log %v) against %s=%g:%g:%d (log %v)",
 				i+1, a.Key, a.From, a.To, a.N, a.Log, b.Key, b.From, b.To, b.N, b.Log)
 		}

@@ -7,7 +7,7 @@ import (
 
 	"gonum.org/v1/gonum/floats/scalar"
 
-	"n2pulse/kinetics"
+	"n2pulse/kinetics/design"
 )
 
 // TestMixtureRuleSweep checks the mixture rule on the sweep path: varying oxygen alone makes
@@ -15,7 +15,7 @@ import (
 // is an error naming the keys. (Air as 0.79/0.21: common practice, no source.)
 func TestMixtureRuleSweep(t *testing.T) {
 	t.Parallel()
-	d := kinetics.ExampleDesign()
+	d := design.ExampleDesign()
 	o, err := ParseAxis("gas.oxygen=0:0.21:2", d)
 	if err != nil {
 		t.Fatal(err)
@@ -36,7 +36,7 @@ func TestMixtureRuleSweep(t *testing.T) {
 	}
 	s = &Sweep{Design: d, Axes: []Axis{n, o}}
 	_, err = s.PointDesign(1)
-	var ke *kinetics.KeyError
+	var ke *design.KeyError
 	if !errors.As(err, &ke) || !strings.Contains(ke.Key, "gas.nitrogen") || !strings.Contains(ke.Key, "gas.oxygen") {
 		t.Errorf("nitrogen 1 and oxygen 0.21 varied: error %v, want a KeyError naming both", err)
 	}

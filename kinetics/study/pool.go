@@ -8,11 +8,12 @@ import (
 
 	"n2pulse/internal/pool"
 	"n2pulse/kinetics"
+	"n2pulse/kinetics/design"
 )
 
 // Runner computes the figures of merit of one design. The default is the full model
 // (kinetics.Run with light results); tests and studies may pass their own.
-type Runner func(d *kinetics.Design) (kinetics.Summary, error)
+type Runner func(d *design.Design) (kinetics.Summary, error)
 
 // outcome is one finished point.
 type outcome struct {
@@ -26,14 +27,14 @@ type outcome struct {
 // share nothing: no lock is held while a design runs. When ctx is cancelled no new point starts;
 // the points in flight finish and are handed to done before evaluate returns ctx.Err(). An error
 // from done stops the pool the same way and is returned.
-func evaluate(ctx context.Context, idx []int, workers int, design func(i int) (*kinetics.Design, error),
+func evaluate(ctx context.Context, idx []int, workers int, designAt func(i int) (*design.Design, error),
 	run Runner, done func(o outcome) error) error {
 	if workers <= 0 {
 		workers = runtime.NumCPU()
 	}
 	return pool.Run(ctx, len(idx), workers, func(k int) outcome {
 		o := outcome{i: idx[k]}
-		d, err := design(o.i)
+		d, err := designAt(o.i)
 		if err == nil {
 			o.sum, o.err = safeRun(run, d)
 		} else {
@@ -45,7 +46,7 @@ func evaluate(ctx context.Context, idx []int, workers int, design func(i int) (*
 
 // safeRun turns a panic inside the model into the point's error, so one bad point never
 // sinks a sweep.
-func safeRun(run Runner, d *kinetics.Design) (s kinetics.Summary, err error) {
+func safeRun(run Runner, d *design.Design) (s kinetics.Summary, err error) {
 	defer func() {
 		if r := recover(); r != nil {
 			err = fmt.Errorf("study: model panicked: %v", r)

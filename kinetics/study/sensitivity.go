@@ -10,6 +10,7 @@ import (
 
 	"n2pulse/internal/pool"
 	"n2pulse/kinetics"
+	"n2pulse/kinetics/design"
 )
 
 // SensitivityRow is the logarithmic sensitivity of the output to one design key.
@@ -27,18 +28,18 @@ type SensitivityRow struct {
 // finite, used by the design's switch model and gas (no oxygen constants without oxygen), and
 // not numerics.*, spectroscopy overrides left at "computed" or gas mole fractions (each of
 // those would need a swarm table solved anew).
-func SensitivityKeys(d *kinetics.Design) []string {
+func SensitivityKeys(d *design.Design) []string {
 	unused := map[string]bool{}
 	switch d.Switch.Model {
-	case kinetics.IdealSwitch:
+	case design.IdealSwitch:
 		for _, k := range []string{"off_resistance", "rise_time", "gap", "pressure", "spark_constant"} {
 			unused["switch."+k] = true
 		}
-	case kinetics.ExponentialSwitch:
+	case design.ExponentialSwitch:
 		for _, k := range []string{"gap", "pressure", "spark_constant"} {
 			unused["switch."+k] = true
 		}
-	case kinetics.RompeWeizelSwitch:
+	case design.RompeWeizelSwitch:
 		unused["switch.rise_time"] = true
 	}
 	if d.Gas.Oxygen == 0 {
@@ -48,7 +49,7 @@ func SensitivityKeys(d *kinetics.Design) []string {
 		unused["levels.upper_quenching_helium"] = true
 	}
 	var keys []string
-	for _, k := range kinetics.Keys() {
+	for _, k := range design.Keys() {
 		if strings.HasPrefix(k, "build.") || strings.HasPrefix(k, "numerics.") || strings.HasPrefix(k, "gas.") && k != "gas.pressure" && k != "gas.temperature" || unused[k] {
 			continue
 		}
@@ -63,10 +64,10 @@ func SensitivityKeys(d *kinetics.Design) []string {
 // peak power P to each key x (SensitivityKeys(d) when keys is empty), by central differences
 // over re-runs at x·exp(±step) (step 0.01 when ≤ 0), or one-sided ones where the key's range
 // forbids a side. Rows are ranked by |d ln E / d ln x|; a key that cannot be varied or whose
-// runs fail carries its problem. Each key is varied through kinetics.Design.Set, as on the command line,
+// runs fail carries its problem. Each key is varied through design.Design.Set, as on the command line,
 // so a design described as built re-derives its circuit. Runs go on the project's worker pool,
 // one per CPU.
-func Sensitivity(d *kinetics.Design, keys []string, step float64) ([]SensitivityRow, error) {
+func Sensitivity(d *design.Design, keys []string, step float64) ([]SensitivityRow, error) {
 	if step <= 0 {
 		step = 0.01
 	}
@@ -99,7 +100,7 @@ func Sensitivity(d *kinetics.Design, keys []string, step float64) ([]Sensitivity
 	var jobs []job
 	for i, k := range keys {
 		x, _ := d.Get(k)
-		unit, _ := kinetics.KeyUnit(k)
+		unit, _ := design.KeyUnit(k)
 		rows[i] = SensitivityRow{Key: k, Value: x, Unit: unit}
 		if x == 0 || math.IsInf(x, 0) {
 			rows[i].Problem = "value is 0 or infinite: ln x undefined"
@@ -172,10 +173,10 @@ type rangeError struct{ error }
 
 func isRangeError(err error) bool { _, ok := err.(rangeError); return ok }
 
-// perturbedRun runs d with key multiplied by exp(h), set through kinetics.Design.Set as a user would
+// perturbedRun runs d with key multiplied by exp(h), set through design.Design.Set as a user would
 // set it: a key the build derives from (the channel length and gap, a build key) re-derives
 // the circuit, and a derived circuit key set this way becomes explicit.
-func perturbedRun(d *kinetics.Design, key string, h float64) (kinetics.Summary, error) {
+func perturbedRun(d *design.Design, key string, h float64) (kinetics.Summary, error) {
 	c := d.Clone()
 	x0, err := c.Get(key)
 	if err != nil {

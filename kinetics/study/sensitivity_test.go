@@ -11,16 +11,17 @@ import (
 
 	"n2pulse/data"
 	"n2pulse/kinetics"
+	"n2pulse/kinetics/design"
 )
 
 // quickDesign is the example on a coarse grid, for fast re-runs.
-func quickDesign() *kinetics.Design {
-	d := kinetics.ExampleDesign()
+func quickDesign() *design.Design {
+	d := design.ExampleDesign()
 	d.Numerics.Cells = 50
 	return d
 }
 
-func runEnergy(t *testing.T, d *kinetics.Design) float64 {
+func runEnergy(t *testing.T, d *design.Design) float64 {
 	t.Helper()
 	r, err := kinetics.Run(d, &kinetics.RunSettings{Light: true})
 	if err != nil {
@@ -90,7 +91,7 @@ func TestSensitivityOneSidedAndErrors(t *testing.T) {
 	if !rows[0].OneSided || rows[0].Problem != "" || rows[0].Energy == 0 {
 		t.Errorf("temperature at its limit: %+v", rows[0])
 	}
-	var ke *kinetics.KeyError
+	var ke *design.KeyError
 	if _, err := Sensitivity(d, []string{"gas.presure"}, 0.01); !errors.As(err, &ke) || ke.Key != "gas.presure" {
 		t.Errorf("unknown key: %v", err)
 	}
@@ -103,7 +104,7 @@ func TestSensitivityOneSidedAndErrors(t *testing.T) {
 }
 
 func TestSensitivityKeys(t *testing.T) {
-	d := kinetics.ExampleDesign()
+	d := design.ExampleDesign()
 	k := SensitivityKeys(d)
 	for _, want := range []string{"circuit.charge_voltage", "channel.gap", "gas.pressure", "switch.spark_constant"} {
 		if !slices.Contains(k, want) {
@@ -119,14 +120,14 @@ func TestSensitivityKeys(t *testing.T) {
 
 // TestSensitivityRederivesBuild checks d ln E / d ln L on the board design, whose circuit is
 // derived from its [build] section: the sensitivity must agree with two explicit runs with the
-// length set through kinetics.Design.Set (which re-derives the rails' inductance), as a user would set
+// length set through design.Design.Set (which re-derives the rails' inductance), as a user would set
 // it. Tolerance 2 %: the same central difference, so only rounding separates them.
 func TestSensitivityRederivesBuild(t *testing.T) {
 	if testing.Short() {
 		t.Skip("runs the model")
 	}
 	t.Parallel()
-	d, err := kinetics.ParseDesign(data.BoardDesign(), "board.toml")
+	d, err := design.ParseDesign(data.BoardDesign(), "board.toml")
 	if err != nil {
 		t.Fatal(err)
 	}

@@ -14,13 +14,14 @@ import (
 	"time"
 
 	"n2pulse/kinetics"
+	"n2pulse/kinetics/design"
 	"n2pulse/units"
 )
 
 // fakeRunner is a cheap deterministic stand-in for the model, for testing the machinery only:
 // the figures of merit are simple functions of pressure and voltage, and points above
 // 700 Torr fail. Each call sleeps a pseudo-random time so that points finish out of order.
-func fakeRunner(d *kinetics.Design) (kinetics.Summary, error) {
+func fakeRunner(d *design.Design) (kinetics.Summary, error) {
 	p, v := d.Gas.Pressure, d.Circuit.ChargeVoltage
 	h := math.Mod(p*7.31+v*0.013, 1)
 	time.Sleep(time.Duration(h * float64(2*time.Millisecond)))
@@ -40,7 +41,7 @@ func fakeRunner(d *kinetics.Design) (kinetics.Summary, error) {
 
 func testSweep(t *testing.T, dir string) *Sweep {
 	t.Helper()
-	d := kinetics.ExampleDesign()
+	d := design.ExampleDesign()
 	p, err := ParseAxis("gas.pressure=20Torr:760Torr:7:log", d)
 	if err != nil {
 		t.Fatal(err)
@@ -62,7 +63,7 @@ func readFile(t *testing.T, path string) []byte {
 }
 
 func TestParseAxis(t *testing.T) {
-	d := kinetics.ExampleDesign()
+	d := design.ExampleDesign()
 	a, err := ParseAxis("gas.pressure=20Torr:760 Torr:20:log", d)
 	if err != nil {
 		t.Fatal(err)
@@ -185,7 +186,7 @@ func TestSweepOrderIndependentOfWorkers(t *testing.T) {
 func TestFailedPointsKeepTheirRows(t *testing.T) {
 	s := testSweep(t, t.TempDir())
 	var calls atomic.Int32
-	s.Runner = func(d *kinetics.Design) (kinetics.Summary, error) {
+	s.Runner = func(d *design.Design) (kinetics.Summary, error) {
 		if calls.Add(1) == 3 {
 			panic("boom")
 		}
@@ -227,7 +228,7 @@ func interrupt(t *testing.T, s *Sweep, n int32) {
 	ctx, cancel := context.WithCancel(context.Background())
 	var count atomic.Int32
 	run := s.Runner
-	s.Runner = func(d *kinetics.Design) (kinetics.Summary, error) {
+	s.Runner = func(d *design.Design) (kinetics.Summary, error) {
 		if count.Add(1) >= n {
 			cancel()
 		}
@@ -268,7 +269,7 @@ func TestResumeComputesOnlyMissingPoints(t *testing.T) {
 	}
 	var calls atomic.Int32
 	s.Resume = true
-	s.Runner = func(d *kinetics.Design) (kinetics.Summary, error) { calls.Add(1); return fakeRunner(d) }
+	s.Runner = func(d *design.Design) (kinetics.Summary, error) { calls.Add(1); return fakeRunner(d) }
 	if _, err := s.Run(context.Background()); err != nil {
 		t.Fatal(err)
 	}
@@ -412,7 +413,7 @@ func TestWorkersRunConcurrently(t *testing.T) {
 	all := make(chan struct{})
 	s := testSweep(t, t.TempDir())
 	s.Workers = w
-	s.Runner = func(d *kinetics.Design) (kinetics.Summary, error) {
+	s.Runner = func(d *design.Design) (kinetics.Summary, error) {
 		if inFlight.Add(1) == w {
 			close(all)
 		}

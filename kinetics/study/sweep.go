@@ -11,7 +11,7 @@ import (
 	"path/filepath"
 	"slices"
 
-	"n2pulse/kinetics"
+	"n2pulse/kinetics/design"
 )
 
 // File names inside a sweep directory.
@@ -27,14 +27,14 @@ const maxPoints = 10_000_000
 // Sweep is a grid of designs: Design with each Axes key set to every combination of its
 // values. Run computes it (or its Shard) into Dir.
 type Sweep struct {
-	Design   *kinetics.Design // base design; not modified
-	Axes     []Axis           // at least one
-	Runner   Runner           // nil means the full model, ModelRunner
-	Workers  int              // ≤ 0 means runtime.NumCPU()
-	Shard    Shard            // zero means every point
-	Dir      string           // directory of the journal, manifest and results
-	Resume   bool             // finish a sweep already started in Dir
-	Progress io.Writer        // progress line (for a terminal); nil means silent
+	Design   *design.Design // base design; not modified
+	Axes     []Axis         // at least one
+	Runner   Runner         // nil means the full model, ModelRunner
+	Workers  int            // ≤ 0 means runtime.NumCPU()
+	Shard    Shard          // zero means every point
+	Dir      string         // directory of the journal, manifest and results
+	Resume   bool           // finish a sweep already started in Dir
+	Progress io.Writer      // progress line (for a terminal); nil means silent
 }
 
 // Points returns the number of grid points (of the whole sweep, not the shard).
@@ -77,7 +77,7 @@ func (s *Sweep) Values(i int) []float64 {
 }
 
 // PointDesign returns the design of point i.
-func (s *Sweep) PointDesign(i int) (*kinetics.Design, error) {
+func (s *Sweep) PointDesign(i int) (*design.Design, error) {
 	d := s.Design.Clone()
 	keys := make([]string, len(s.Axes))
 	for k, v := range s.Values(i) {
@@ -109,9 +109,9 @@ func (s *Sweep) row(o outcome) []string {
 	return append(r, statusOf(o.err))
 }
 
-// DesignHash is the SHA-256 of the design's full key listing (kinetics.Design.String), the
+// DesignHash is the SHA-256 of the design's full key listing (design.Design.String), the
 // fingerprint by which shards and resumed sweeps are matched.
-func DesignHash(d *kinetics.Design) string {
+func DesignHash(d *design.Design) string {
 	h := sha256.Sum256([]byte(d.String()))
 	return hex.EncodeToString(h[:])
 }

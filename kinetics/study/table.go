@@ -71,18 +71,31 @@ func jsonName(f reflect.StructField) string {
 	return name
 }
 
-// summaryFields writes the metrics of s in the order of Metrics.
+// undefinedAtZero are the metrics that a shot without a pulse reports as 0 although they have
+// no value (a width, a time of the pulse): tables leave them empty, as they leave NaN.
+var undefinedAtZero = map[string]bool{
+	"fwhm_s": true, "half_max_width_s": true, "rms_fwhm_s": true, "pulse_centre_s": true, "rise_s": true, "delay_s": true,
+}
+
+// summaryFields writes the metrics of s in the order of Metrics; an undefined value (NaN, or 0
+// for the metrics of undefinedAtZero) is an empty cell.
 func summaryFields(s kinetics.Summary) []string {
 	v := reflect.ValueOf(s)
 	out := make([]string, 0, v.NumField())
 	for i := range v.NumField() {
-		if tableName(summaryType.Field(i)) == "" {
+		name := tableName(summaryType.Field(i))
+		if name == "" {
 			continue
 		}
 		f := v.Field(i)
 		switch f.Kind() {
 		case reflect.Float64:
-			out = append(out, formatNumber(f.Float()))
+			x := f.Float()
+			if math.IsNaN(x) || math.IsInf(x, 0) || (x == 0 && undefinedAtZero[name]) {
+				out = append(out, "")
+				continue
+			}
+			out = append(out, formatNumber(x))
 		case reflect.Int, reflect.Int64:
 			out = append(out, strconv.FormatInt(f.Int(), 10))
 		case reflect.Bool:
@@ -155,4 +168,52 @@ func (t *Table) WriteCSV(path string) error {
 		return fmt.Errorf("study: %w", err)
 	}
 	return nil
+}
+
+// DataFile is the name of the whitespace-separated copy of a two-key sweep's table, for plotting
+// programs that read blocks (one block per value of the first key, blank lines between).
+const DataFile = "results.dat"
+
+// Blocks returns the numeric columns of the table (point, varied keys, numeric metrics, lases as
+// 1 or 0) separated by spaces, under a "#" header line naming them, with an empty cell written
+// NaN and a blank line after every n rows: the layout that surface plotters read as a grid
+// (n is the number of values of the last, fastest key).
+func (t *Table) Blocks(n int) []byte {
+	numeric := map[string]bool{PointColumn: true, "lases": true}
+	for _, m := range NumericMetrics() {
+		numeric[m] = true
+	}
+	var cols []int
+	var head []string
+	for i, c := range t.Columns {
+		if numeric[c] || strings.Contains(c, " [") || strings.Contains(c, ".") {
+			cols = append(cols, i)
+			head = append(head, strings.ReplaceAll(c, " ", ""))
+		}
+	}
+	var b bytes.Buffer
+	b.WriteString("# " + strings.Join(head, " ") + "\n")
+	b.WriteString("# SI units; NaN: no value (failed point or undefined); lases: 1 yes, 0 no\n")
+	for r, row := range t.Rows {
+		for k, i := range cols {
+			if k > 0 {
+				b.WriteByte(' ')
+			}
+			switch v := row[i]; {
+			case v == "":
+				b.WriteString("NaN")
+			case v == "true":
+				b.WriteByte('1')
+			case v == "false":
+				b.WriteByte('0')
+			default:
+				b.WriteString(v)
+			}
+		}
+		b.WriteByte('\n')
+		if n > 0 && (r+1)%n == 0 && r+1 < len(t.Rows) {
+			b.WriteByte('\n')
+		}
+	}
+	return b.Bytes()
 }

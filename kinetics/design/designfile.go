@@ -1,4 +1,4 @@
-package kinetics
+package design
 
 import (
 	"bytes"
@@ -38,7 +38,7 @@ func LoadDesign(path string) (*Design, error) {
 func ExampleDesign() *Design {
 	d, err := ParseDesign(data.ExampleDesign(), "example.toml")
 	if err != nil {
-		panic("kinetics: built-in example design is invalid: " + err.Error()) // programmer error
+		panic("design: built-in example design is invalid: " + err.Error()) // programmer error
 	}
 	return d
 }
@@ -170,6 +170,10 @@ func (d *Design) setValue(key string, v any) error {
 			return &KeyError{Key: key, Value: strconv.FormatFloat(x, 'g', -1, 64), Problem: "want text in quotes"}
 		}
 		return f.setNumber(d, x, strconv.FormatFloat(x, 'g', -1, 64))
+	case bool:
+		if f.aliases != nil {
+			return f.setString(d, strconv.FormatBool(x))
+		}
 	}
 	return &KeyError{Key: key, Value: fmt.Sprint(v), Problem: "want a number or a quoted value with a unit"}
 }
@@ -203,7 +207,7 @@ func (d *Design) Validate() error {
 		return &KeyError{Key: "optics.excitation_velocity", Value: "0", Problem: `must not be zero: use "infinite" for a simultaneous discharge`}
 	}
 	if d.Build != (build.Spec{}) {
-		if _, err := build.Evaluate(d.Build, d.benchConditions()); err != nil {
+		if _, err := build.Evaluate(d.Build, d.BenchConditions()); err != nil {
 			return fmt.Errorf("design: [build]: %w", err)
 		}
 	}
@@ -232,6 +236,5 @@ func (d *Design) String() string {
 			fmt.Fprintf(&b, "%s = %g\n", f.key, *f.num(d))
 		}
 	}
-	d.buildString(&b)
 	return b.String()
 }

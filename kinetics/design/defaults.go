@@ -1,4 +1,4 @@
-package kinetics
+package design
 
 // Defaults returns a design with the published constants of the level kinetics, the switch
 // and discharge parameters of the trade and the default numerics, but no apparatus: a design

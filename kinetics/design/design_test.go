@@ -1,4 +1,4 @@
-package kinetics
+package design
 
 import (
 	"errors"

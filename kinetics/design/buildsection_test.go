@@ -1,4 +1,4 @@
-package kinetics
+package design
 
 import (
 	"errors"
@@ -8,6 +8,7 @@ import (
 	"testing"
 
 	"n2pulse/data"
+	"n2pulse/kinetics/build"
 	"n2pulse/units"
 )
 
@@ -16,6 +17,17 @@ var boardDesign = strings.NewReplacer(
 	"\n[build]\n", "\n[switch]\nmodel = \"rompe-weizel\"\n\n[build]\n",
 	`rail_height = "5 mm"`, "rail_height = \"5 mm\"\nswitch_gap = \"3 mm\"\nswitch_own_inductance = \"5 nH\"",
 ).Replace(string(data.BoardDesign()))
+
+// bench evaluates the build of b with the design's circuit values: the derived values and the
+// dielectric and Paschen ratings, which do not need the physics kinetics.Bench adds.
+func bench(t *testing.T, b *Built) *build.Bench {
+	t.Helper()
+	r, err := build.Evaluate(b.Spec, b.Design.BenchConditions())
+	if err != nil {
+		t.Fatal(err)
+	}
+	return r
+}
 
 func TestParseBuiltDesignDerives(t *testing.T) {
 	t.Parallel()
@@ -45,8 +57,8 @@ func TestParseBuiltDesignDerives(t *testing.T) {
 			t.Errorf("%s = %g, want %g", x.what, x.got, x.want)
 		}
 	}
-	if b.Bench.DielectricMargin <= 0 || b.Bench.ChannelBreakdown <= 0 {
-		t.Errorf("bench incomplete: margin %g, breakdown %g", b.Bench.DielectricMargin, b.Bench.ChannelBreakdown)
+	if bench(t, b).DielectricMargin <= 0 || bench(t, b).ChannelBreakdown <= 0 {
+		t.Errorf("bench incomplete: margin %g, breakdown %g", bench(t, b).DielectricMargin, bench(t, b).ChannelBreakdown)
 	}
 }
 
@@ -60,8 +72,8 @@ func TestParseBuiltDesignExplicitWins(t *testing.T) {
 	if b.Design.Circuit.SwitchInductance != 20e-9 || slices.Contains(b.Derived, "circuit.switch_inductance") {
 		t.Errorf("explicit L_s lost: %g, derived %v", b.Design.Circuit.SwitchInductance, b.Derived)
 	}
-	if b.Bench.DerivedSwitchInductance == 20e-9 || b.Bench.SwitchInductance != 20e-9 {
-		t.Errorf("bench: derived %g, used %g", b.Bench.DerivedSwitchInductance, b.Bench.SwitchInductance)
+	if bench(t, b).DerivedSwitchInductance == 20e-9 || bench(t, b).SwitchInductance != 20e-9 {
+		t.Errorf("bench: derived %g, used %g", bench(t, b).DerivedSwitchInductance, bench(t, b).SwitchInductance)
 	}
 }
 
@@ -83,49 +95,6 @@ func TestParseBuiltDesignErrors(t *testing.T) {
 	}
 }
 
-func TestBenchOfExample(t *testing.T) {
-	t.Parallel()
-	d := ExampleDesign()
-	b, err := d.Bench()
-	if err != nil {
-		t.Fatal(err)
-	}
-	// The switch loop rings C₁ to the peak in π·sqrt(L_s·C₁) (analytic); set a 12 nH loop with
-	// 4 nF, 21.8 ns, far slower than the ~3.7 ns effective C(0) lifetime at 1 atm.
-	d.Circuit.SwitchInductance, d.Circuit.SwitchCapacitance = 12e-9, 4e-9
-	b, err = d.Bench()
-	if err != nil {
-		t.Fatal(err)
-	}
-	if math.Abs(b.VoltageRise-math.Pi*math.Sqrt(12e-9*4e-9)) > 1e-12 {
-		t.Errorf("voltage rise %g", b.VoltageRise)
-	}
-	found := false
-	for _, w := range b.Warnings {
-		found = found || strings.Contains(w, "switch slower")
-	}
-	if !found {
-		t.Errorf("no slow-switch warning: %q", b.Warnings)
-	}
-}
-
-func TestEffectiveUpperLifetime(t *testing.T) {
-	t.Parallel()
-	d := ExampleDesign()
-	d.Spectroscopy.UpperLifetime = 40e-9
-	// Stern–Volmer (analytic): 1/τ_eff = 1/τ_C + k_q·N, N = p/(k_B·T).
-	n := 101325 / (units.Boltzmann * 300)
-	want := 1 / (1/40e-9 + d.Levels.UpperQuenchingNitrogen*n)
-	if got := d.EffectiveUpperLifetime(); math.Abs(got-want) > 1e-12*want {
-		t.Errorf("τ_eff = %g, want %g", got, want)
-	}
-	// τ/(1 + p/p_q) form with p_q = k_B·T/(k_q·τ).
-	pq := units.Boltzmann * 300 / (d.Levels.UpperQuenchingNitrogen * 40e-9)
-	if got := d.EffectiveUpperLifetime(); math.Abs(got-40e-9/(1+101325/pq)) > 1e-12*want {
-		t.Errorf("τ_eff = %g, want τ/(1+p/p_q) = %g", got, 40e-9/(1+101325/pq))
-	}
-}
-
 func TestHasBuild(t *testing.T) {
 	t.Parallel()
 	if hasBuild(map[string]any{"channel.length": 0.2}) || !hasBuild(map[string]any{"build.rail_height": "5 mm"}) {
@@ -140,12 +109,12 @@ func TestFringeCorrectionKey(t *testing.T) {
 		if err != nil {
 			t.Fatal(err)
 		}
-		if b.Bench.Fringe != "palmer" {
-			t.Errorf("fringe_correction = %s: %q", v, b.Bench.Fringe)
+		if bench(t, b).Fringe != "palmer" {
+			t.Errorf("fringe_correction = %s: %q", v, bench(t, b).Fringe)
 		}
 	}
 	b, err := ParseBuiltDesign([]byte(boardDesign+"fringe_correction = false\n"), "board.toml")
-	if err != nil || b.Bench.Fringe != "none" {
+	if err != nil || bench(t, b).Fringe != "none" {
 		t.Errorf("fringe_correction = false: %v %v", err, b)
 	}
 	if _, err := ParseBuiltDesign([]byte(boardDesign+`fringe_correction = "kirchhoff"`+"\n"), "board.toml"); err == nil || !strings.Contains(err.Error(), "allowed: none, palmer") {

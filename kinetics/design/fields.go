@@ -1,4 +1,4 @@
-package kinetics
+package design
 
 import (
 	"fmt"
@@ -8,23 +8,28 @@ import (
 	"strconv"
 	"strings"
 
+	"n2pulse/kinetics/build"
 	"n2pulse/units"
 )
 
-// field is one key of a design file: its dotted name, its dimension, where it lives in a
-// Design and the range of values that make physical sense.
+// field is one key of a design file, design and [build] keys alike: its dotted name, its
+// dimension, where it lives in a Design and the range of values that make physical sense.
 type field struct {
 	key      string
 	dim      units.Dimension
 	unit     string // unit shown in messages and sweep headers
 	num      func(d *Design) *float64
 	str      func(d *Design) *string
-	choices  []string // allowed values of a string field
-	min, max float64  // allowed closed range of a numeric field (in SI)
-	zeroOK   bool     // zero is also allowed (meaning "none" or "computed")
+	choices  func() []string   // allowed values of a string field
+	aliases  map[string]string // other words for a choice (build.fringe_correction: true, false)
+	min, max float64           // allowed closed range of a numeric field (in SI)
+	zeroOK   bool              // zero is also allowed (meaning "none" or "computed")
 	integer  bool
 	help     string
 }
+
+// list returns the fixed choices of a string field.
+func list(c ...string) func() []string { return func() []string { return c } }
 
 var fieldList = []field{
 	{key: "name", str: func(d *Design) *string { return &d.Name }, help: "short name of the design"},
@@ -43,7 +48,7 @@ var fieldList = []field{
 	{key: "gas.oxygen", dim: units.Dimensionless, num: func(d *Design) *float64 { return &d.Gas.Oxygen }, min: 0, max: 1, help: "O₂ mole fraction"},
 	{key: "gas.helium", dim: units.Dimensionless, num: func(d *Design) *float64 { return &d.Gas.Helium }, min: 0, max: 1, help: "He mole fraction"},
 
-	{key: "circuit.topology", str: func(d *Design) *string { return (*string)(&d.Circuit.Topology) }, choices: []string{string(Blumlein), string(ChargeTransfer)}, help: "circuit topology"},
+	{key: "circuit.topology", str: func(d *Design) *string { return (*string)(&d.Circuit.Topology) }, choices: list(string(Blumlein), string(ChargeTransfer)), help: "circuit topology"},
 	{key: "circuit.charge_voltage", dim: units.Voltage, unit: "V", num: func(d *Design) *float64 { return &d.Circuit.ChargeVoltage }, min: 100, max: 1e6, help: "charging voltage V₀"},
 	{key: "circuit.switch_capacitance", dim: units.Capacitance, unit: "F", num: func(d *Design) *float64 { return &d.Circuit.SwitchCapacitance }, min: 1e-13, max: 1e-4, help: "switch-side capacitor (Blumlein C₁, transfer storage)"},
 	{key: "circuit.channel_capacitance", dim: units.Capacitance, unit: "F", num: func(d *Design) *float64 { return &d.Circuit.ChannelCapacitance }, min: 1e-13, max: 1e-4, help: "channel-side capacitor (Blumlein C₂, transfer peaking)"},
@@ -52,7 +57,7 @@ var fieldList = []field{
 	{key: "circuit.shunt_inductance", dim: units.Inductance, unit: "H", num: func(d *Design) *float64 { return &d.Circuit.ShuntInductance }, min: 1e-9, max: 10, zeroOK: true, help: "inductor across the channel loop (0: none)"},
 	{key: "circuit.shunt_resistance", dim: units.Resistance, unit: "Ω", num: func(d *Design) *float64 { return &d.Circuit.ShuntResistance }, min: 1e-2, max: 1e9, zeroOK: true, help: "resistor across the channel loop (0: none)"},
 
-	{key: "switch.model", str: func(d *Design) *string { return (*string)(&d.Switch.Model) }, choices: []string{string(IdealSwitch), string(ExponentialSwitch), string(RompeWeizelSwitch)}, help: "switch model"},
+	{key: "switch.model", str: func(d *Design) *string { return (*string)(&d.Switch.Model) }, choices: list(string(IdealSwitch), string(ExponentialSwitch), string(RompeWeizelSwitch)), help: "switch model"},
 	{key: "switch.on_resistance", dim: units.Resistance, unit: "Ω", num: func(d *Design) *float64 { return &d.Switch.OnResistance }, min: 0, max: 1e3, help: "resistance of the closed switch"},
 	{key: "switch.off_resistance", dim: units.Resistance, unit: "Ω", num: func(d *Design) *float64 { return &d.Switch.OffResistance }, min: 1, max: 1e12, help: "resistance at closure (exponential and spark models)"},
 	{key: "switch.rise_time", dim: units.Time, unit: "s", num: func(d *Design) *float64 { return &d.Switch.RiseTime }, min: 1e-12, max: 1e-6, help: "time constant of the exponential model"},
@@ -88,7 +93,24 @@ var fieldList = []field{
 	{key: "numerics.end_time", dim: units.Time, unit: "s", num: func(d *Design) *float64 { return &d.Numerics.EndTime }, min: 1e-10, max: 1e-5, help: "end of the simulation after switch closure"},
 	{key: "numerics.tolerance", dim: units.Dimensionless, num: func(d *Design) *float64 { return &d.Numerics.Tolerance }, min: 1e-12, max: 1e-2, help: "relative tolerance of the circuit integrator"},
 	{key: "numerics.swarm_table", str: func(d *Design) *string { return &d.Numerics.SwarmTable }, help: "path of a swarm table CSV (empty: built in, or solved for the mixture)"},
-}
+
+	// The [build] section: the laser as built (see package build).
+	{key: "build.switch_plate_length", dim: units.Length, unit: "m", num: func(d *Design) *float64 { return &d.Build.SwitchPlateLength }, min: 1e-3, max: 10, help: "switch-side capacitor plate, along the current away from the switch edge"},
+	{key: "build.switch_plate_width", dim: units.Length, unit: "m", num: func(d *Design) *float64 { return &d.Build.SwitchPlateWidth }, min: 1e-3, max: 10, help: "switch-side capacitor plate, along the switch edge"},
+	{key: "build.channel_plate_length", dim: units.Length, unit: "m", num: func(d *Design) *float64 { return &d.Build.ChannelPlateLength }, min: 1e-3, max: 10, help: "channel-side capacitor plate, along the current away from the rails"},
+	{key: "build.channel_plate_width", dim: units.Length, unit: "m", num: func(d *Design) *float64 { return &d.Build.ChannelPlateWidth }, min: 1e-3, max: 10, help: "channel-side capacitor plate, along the rails"},
+	{key: "build.dielectric", str: func(d *Design) *string { return &d.Build.Dielectric }, choices: build.DielectricKeys, help: "dielectric preset between the plates"},
+	{key: "build.dielectric_thickness", dim: units.Length, unit: "m", num: func(d *Design) *float64 { return &d.Build.DielectricThickness }, min: 1e-6, max: 0.05, help: "dielectric thickness between the plates"},
+	{key: "build.permittivity", dim: units.Dimensionless, num: func(d *Design) *float64 { return &d.Build.Permittivity }, min: 1, max: 1e4, help: "relative permittivity (overrides the preset)"},
+	{key: "build.dielectric_strength", dim: units.ElectricField, unit: "V/m", num: func(d *Design) *float64 { return &d.Build.DielectricStrength }, min: 1e5, max: 1e10, help: "short-time dielectric strength (overrides the preset)"},
+	{key: "build.fringe_correction", str: func(d *Design) *string { return (*string)(&d.Build.Fringe) }, choices: list(string(build.NoFringe), string(build.Palmer)), aliases: map[string]string{"true": string(build.Palmer), "false": string(build.NoFringe)}, help: "edge-field correction of the plate capacitance: \"none\" or \"palmer\" (true means palmer)"},
+	{key: "build.rail_length", dim: units.Length, unit: "m", num: func(d *Design) *float64 { return &d.Build.RailLength }, min: 1e-3, max: 10, help: "electrode rail length (default: channel.length)"},
+	{key: "build.rail_height", dim: units.Length, unit: "m", num: func(d *Design) *float64 { return &d.Build.RailHeight }, min: 0, max: 0.5, help: "rail height from the plate to the discharge"},
+	{key: "build.rail_gap", dim: units.Length, unit: "m", num: func(d *Design) *float64 { return &d.Build.RailGap }, min: 1e-4, max: 0.2, help: "rail separation (default: channel.gap)"},
+	{key: "build.switch_gap", dim: units.Length, unit: "m", num: func(d *Design) *float64 { return &d.Build.SwitchGap }, min: 1e-5, max: 0.1, help: "spark-gap length (also sets switch.gap)"},
+	{key: "build.switch_own_inductance", dim: units.Inductance, unit: "H", num: func(d *Design) *float64 { return &d.Build.SwitchOwnInductance }, min: 0, max: 1e-5, help: "inductance of the spark channel and its leads, added to the switch loop"},
+	{key: "build.switch_gas", str: func(d *Design) *string { return &d.Build.SwitchGas }, choices: list("air", "nitrogen"), help: "gas in the spark gap"},
+	{key: "build.secondary_emission", dim: units.Dimensionless, num: func(d *Design) *float64 { return &d.Build.SecondaryEmission }, min: 1e-6, max: 0.9, help: "secondary-emission coefficient γ of the channel cathode (default: copper)"}}
 
 var fieldIndex = func() map[string]*field {
 	m := make(map[string]*field, len(fieldList))
@@ -100,11 +122,8 @@ var fieldIndex = func() map[string]*field {
 
 // Keys returns every dotted key a design file accepts, the [build] keys included, sorted.
 func Keys() []string {
-	k := make([]string, 0, len(fieldList)+len(buildFields))
+	k := make([]string, 0, len(fieldList))
 	for _, f := range fieldList {
-		k = append(k, f.key)
-	}
-	for _, f := range buildFields {
 		k = append(k, f.key)
 	}
 	sort.Strings(k)
@@ -114,9 +133,6 @@ func Keys() []string {
 // KeyUnit returns the SI unit of a numeric design key ("" for dimensionless or text keys) and
 // whether the key exists; the [build] keys are included.
 func KeyUnit(key string) (unit string, ok bool) {
-	if f, ok := buildIndex[key]; ok {
-		return f.unit, true
-	}
 	f, ok := fieldIndex[key]
 	if !ok {
 		return "", false
@@ -166,9 +182,6 @@ func (d *Design) Set(key, value string) error {
 
 // set assigns one key from text without the bookkeeping of Set.
 func (d *Design) set(key, value string) error {
-	if isBuildKey(key) {
-		return d.setBuildText(key, value)
-	}
 	f, ok := fieldIndex[key]
 	if !ok {
 		return &KeyError{Key: key, Problem: "unknown key" + suggest(key)}
@@ -186,12 +199,6 @@ func (d *Design) set(key, value string) error {
 // Get returns the value of a numeric design key in SI; a numeric [build] key that is not
 // given reads 0.
 func (d *Design) Get(key string) (float64, error) {
-	if bf, ok := buildIndex[key]; ok {
-		if bf.num == nil {
-			return 0, &KeyError{Key: key, Problem: "is a text key, not a number"}
-		}
-		return *bf.num(&d.Build), nil
-	}
 	f, ok := fieldIndex[key]
 	if !ok {
 		return 0, &KeyError{Key: key, Problem: "unknown key" + suggest(key)}
@@ -256,8 +263,11 @@ func (f *field) setNumber(d *Design, v float64, given string) error {
 }
 
 func (f *field) setString(d *Design, v string) error {
-	if len(f.choices) > 0 {
-		c, err := choose(f.key, v, f.choices)
+	if f.choices != nil {
+		if a, ok := f.aliases[strings.ToLower(strings.TrimSpace(v))]; ok {
+			v = a
+		}
+		c, err := choose(f.key, v, f.choices())
 		if err != nil {
 			return err
 		}

@@ -1,6 +1,4 @@
-package kinetics
-
-import "n2pulse/units"
+package design
 
 // Rate constants are given in cm³/s in the comments (the unit of the sources) and stored in
 // SI (m³/s, ×1e-6).
@@ -42,20 +40,3 @@ func defaultLevels() Levels {
 		LowerRemovalOxygen: 0,
 	}
 }
-
-// UpperDecayRate returns the total loss rate of C(0) [s⁻¹] without electrons and stimulated
-// emission: the Stern–Volmer form 1/τ_C + Σ k_q,i·N_i, with radiative lifetime tauC [s] and the
-// gas g.
-func (l Levels) UpperDecayRate(tauC float64, g Gas) float64 {
-	n := gasDensity(g)
-	return 1/tauC + n*(g.Nitrogen*l.UpperQuenchingNitrogen+g.Oxygen*l.UpperQuenchingOxygen+g.Helium*l.UpperQuenchingHelium)
-}
-
-// LowerDecayRate returns the total loss rate of B(0) [s⁻¹]: radiative plus collisional removal.
-func (l Levels) LowerDecayRate(g Gas) float64 {
-	n := gasDensity(g)
-	return 1/l.LowerLifetime + n*(g.Nitrogen*l.LowerRemovalNitrogen+g.Oxygen*l.LowerRemovalOxygen)
-}
-
-// gasDensity is the total number density of the gas [m⁻³].
-func gasDensity(g Gas) float64 { return units.GasDensity(g.Pressure, g.Temperature) }

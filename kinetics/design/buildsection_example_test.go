@@ -1,9 +1,9 @@
-package kinetics_test
+package design_test
 
 import (
 	"fmt"
 
-	"n2pulse/kinetics"
+	"n2pulse/kinetics/design"
 )
 
 // A design given as built: the [build] section supplies the circuit values.
@@ -29,7 +29,7 @@ dielectric = "fr4"
 dielectric_thickness = "1.6 mm"
 rail_height = "5 mm"
 `
-	b, err := kinetics.ParseBuiltDesign([]byte(text), "board.toml")
+	b, err := design.ParseBuiltDesign([]byte(text), "board.toml")
 	if err != nil {
 		fmt.Println(err)
 		return

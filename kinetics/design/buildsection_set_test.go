@@ -1,4 +1,4 @@
-package kinetics
+package design
 
 import (
 	"errors"
@@ -204,7 +204,7 @@ func TestSetBuildOnPlainDesign(t *testing.T) {
 	if d.Circuit.SwitchCapacitance != c1 || len(d.Derived) != 0 {
 		t.Errorf("explicit C₁ %g replaced (%g), derived %v", c1, d.Circuit.SwitchCapacitance, d.Derived)
 	}
-	b, _, err := d.ApplyBuild(&d.Build)
+	b, err := build.Evaluate(d.Build, d.BenchConditions())
 	if err != nil {
 		t.Fatal(err)
 	}
