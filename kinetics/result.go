@@ -34,6 +34,8 @@ type Summary struct {
 	SpecificEnergy          float64       `json:"specific_energy_J_m3"`      // energy into the plasma per discharge volume L·w·d [J/m³]
 	EnergyPerMolecule       float64       `json:"energy_per_molecule_eV"`    // energy into the plasma per gas molecule in the discharge volume [eV]
 	Energy                  EnergyAccount `json:"energy_account"`            // where the stored energy went
+	UniformGlow             bool          `json:"uniform_glow"`              // every limit of the uniform-glow regime is kept (see Regime); if not, the prediction is an upper bound
+	Regime                  []RegimeCheck `json:"regime_checks"`             // the shot against each limit of a uniform glow
 	EnergyBalanceResidual   float64       `json:"energy_balance_residual"`   // |stored − (left + dissipated)| / stored
 	PhotonBalanceResidual   float64       `json:"photon_balance_residual"`   // |created − (emitted + lost + left)| / created
 	Lases                   bool          `json:"lases"`                     // net gain-length at or above the threshold of amplified spontaneous emission (see Verdict)

@@ -92,6 +92,12 @@ func Run(d *design.Design, s *RunSettings) (*Result, error) {
 	res.Summary.Warnings = append([]string(nil), res.Warnings...)
 	v := Verdict(d, res)
 	res.Summary.Lases, res.Summary.Verdict, res.Summary.Advice = v.Lases, v.Summary, v.Advice
+	res.Summary.Regime = regimeChecks(d, &res.Parameters, wf, &res.Summary)
+	res.Summary.UniformGlow = true
+	if note := regimeNote(res.Summary.Regime); note != "" {
+		res.Summary.UniformGlow = false
+		res.Summary.Verdict += "; " + note
+	}
 	if s.Light {
 		res.Time, res.ChannelVoltage, res.Current, res.ReducedField = nil, nil, nil, nil
 		res.ElectronDensity, res.UpperLevel, res.LowerLevel = nil, nil, nil
@@ -168,6 +174,7 @@ type waveforms struct {
 	switchLoss, shuntLoss, left      float64                    // dissipated in the switch and the shunt, left in the circuit [J]
 	plasmaSplit                      [swarm.NumChannels]float64 // Σ plasma power × channel share × Δt over the samples [J]
 	plasmaSampled                    float64                    // Σ plasma power × Δt over the samples [J]
+	plasmaPower                      []float64                  // plasma power at each sample [W]
 	split                            bool                       // the swarm table has a power split
 	energyResidual                   float64
 	peakField, peakCurrent           float64
@@ -204,7 +211,8 @@ func solveCircuit(c *circuit, d *design.Design, par *Parameters, steps int) (*wa
 		voltage: make([]float64, steps), current: make([]float64, steps),
 		field: make([]float64, steps), density: make([]float64, steps),
 		pumpC: make([]float64, steps), pumpB: make([]float64, steps),
-		stored: stored,
+		plasmaPower: make([]float64, steps),
+		stored:      stored,
 	}
 	_, hi := c.table.Range()
 	nX := c.density * d.Gas.Nitrogen
@@ -235,6 +243,7 @@ func solveCircuit(c *circuit, d *design.Design, par *Parameters, steps int) (*wa
 			w.pumpB[k] = kB * ne * shareB
 			if share, ok := c.powerSplit(y[iVg]); ok {
 				pw := y[iVg] * c.plasmaCurrentQuiet(y[iVg], ne) * dt
+				w.plasmaPower[k] = pw / dt
 				w.split = true
 				w.plasmaSampled += pw
 				for j, f := range share {

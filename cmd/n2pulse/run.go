@@ -137,6 +137,7 @@ func printSummary(w io.Writer, d *design.Design, r *kinetics.Result) {
 	row("peak gain", fmt.Sprintf("%.3g cm⁻¹ (gain × length %.3g)", s.PeakGain/100, s.GainLength))
 	row("inversion duration", units.Format(s.InversionDuration, "s"))
 	row("self-termination", fmt.Sprintf("%s at %s", s.TerminationCause, units.Format(s.TerminationTime, "s")))
+	row("discharge regime", regimeLine(s))
 	row("verdict", s.Verdict)
 	if s.Advice != "" {
 		row("what to change", s.Advice)
@@ -153,6 +154,32 @@ func printSummary(w io.Writer, d *design.Design, r *kinetics.Result) {
 	if c := caution(s.StoredEnergy, s.EnergyTotal); c != "" {
 		fmt.Fprintln(w, "\n"+c)
 	}
+}
+
+// regimeLine says where the shot sits against the limits of a uniform glow.
+func regimeLine(s kinetics.Summary) string {
+	var parts []string
+	for _, c := range s.Regime {
+		v, l := units.Format(c.Value, c.Unit), units.Format(c.Limit, c.Unit)
+		switch c.Unit {
+		case "m⁻³":
+			v, l = fmt.Sprintf("%.3g cm⁻³", c.Value*1e-6), fmt.Sprintf("%.3g cm⁻³", c.Limit*1e-6)
+		case "J":
+			v, l = fmt.Sprintf("%.3g eV", c.Value/units.ElectronVolt), fmt.Sprintf("%.3g eV", c.Limit/units.ElectronVolt)
+		case "":
+			v, l = fmt.Sprintf("%.3g", c.Value), fmt.Sprintf("%.3g", c.Limit)
+		}
+		mark := ""
+		if c.Outside {
+			mark = " OUTSIDE"
+		}
+		parts = append(parts, fmt.Sprintf("%s %s (limit %s%s)", c.Name, v, l, mark))
+	}
+	head := "uniform glow: "
+	if !s.UniformGlow {
+		head = "NOT a uniform glow, the prediction is an upper bound: "
+	}
+	return head + strings.Join(parts, "; ")
 }
 
 // printAccount writes the loading and where the stored energy went, in per cent of the

@@ -36,9 +36,10 @@ func Metrics() []string {
 
 // tableName is the column name of a summary field in a results table, or "" for a field
 // the table leaves out: unexported, marked "-", or a nested block such as the energy
-// account (whose figures the summary also carries flat: loading, deposited energy).
+// account or the regime checks (whose figures the summary also carries flat: loading,
+// deposited energy, uniform_glow).
 func tableName(f reflect.StructField) string {
-	if f.Type.Kind() == reflect.Struct {
+	if k := f.Type.Kind(); k == reflect.Struct || (k == reflect.Slice && f.Type.Elem().Kind() == reflect.Struct) {
 		return ""
 	}
 	return jsonName(f)
