@@ -144,13 +144,14 @@ func (c *circuit) plasmaCurrentQuiet(vg, ne float64) float64 {
 	return math.Copysign(units.ElementaryCharge*ne*k[rateDrift]*c.area, vg)
 }
 
-// pumpRates are the rate coefficients for X → B³Πg and X → C³Πu [m³/s] at channel voltage vg.
-func (c *circuit) pumpRates(vg float64) (kB, kC float64) {
+// pumpRates are the rate coefficients for X → B³Πg, X → C³Πu, X → W³Δu and X → B′³Σu⁻
+// [m³/s] at channel voltage vg (W and B′ zero for a table without them).
+func (c *circuit) pumpRates(vg float64) (kB, kC, kW, kBp float64) {
 	en := c.reducedField(vg)
 	c.count(en)
 	var k [nRates]float64
-	c.rates.at(en, rateExcB, rateExcC+1, &k, nil)
-	return k[rateExcB], k[rateExcC]
+	c.rates.at(en, rateExcB, rateExcBp+1, &k, nil)
+	return k[rateExcB], k[rateExcC], k[rateExcW], k[rateExcBp]
 }
 
 // powerSplit returns the share of the plasma power taken by each channel of the swarm's

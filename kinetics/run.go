@@ -175,6 +175,7 @@ type waveforms struct {
 	plasmaSplit                      [swarm.NumChannels]float64 // Σ plasma power × channel share × Δt over the samples [J]
 	plasmaSampled                    float64                    // Σ plasma power × Δt over the samples [J]
 	plasmaPower                      []float64                  // plasma power at each sample [W]
+	manifold                         *manifold                  // the B(v>0)/W/B′ reservoir over the run
 	split                            bool                       // the swarm table has a power split
 	energyResidual                   float64
 	peakField, peakCurrent           float64
@@ -217,6 +218,7 @@ func solveCircuit(c *circuit, d *design.Design, par *Parameters, steps int) (*wa
 	_, hi := c.table.Range()
 	nX := c.density * d.Gas.Nitrogen
 	shareC, shareB := par.UpperShare*nX, par.LowerShare*nX
+	man := newManifold(d.Levels, d.Gas, c.density, dt)
 	y := make([]float64, nState)
 	k := 0
 	for k < steps {
@@ -234,13 +236,13 @@ func solveCircuit(c *circuit, d *design.Design, par *Parameters, steps int) (*wa
 				return nil, Stats{}, fmt.Errorf("kinetics: circuit: %w", err)
 			}
 			ne := math.Exp(y[iLnNe])
-			kB, kC := c.pumpRates(y[iVg])
+			kB, kC, kW, kBp := c.pumpRates(y[iVg])
 			w.voltage[k] = y[iVg]
 			w.current[k] = y[iIc]
 			w.field[k] = c.reducedField(y[iVg])
 			w.density[k] = ne
 			w.pumpC[k] = kC * ne * shareC
-			w.pumpB[k] = kB * ne * shareB
+			w.pumpB[k] = kB*ne*shareB + man.step(((1-par.LowerShare)*kB+kW+kBp)*ne*nX)
 			if share, ok := c.powerSplit(y[iVg]); ok {
 				pw := y[iVg] * c.plasmaCurrentQuiet(y[iVg], ne) * dt
 				w.plasmaPower[k] = pw / dt
@@ -258,6 +260,7 @@ func solveCircuit(c *circuit, d *design.Design, par *Parameters, steps int) (*wa
 			}
 		}
 	}
+	w.manifold = man
 	_, yEnd := integ.State()
 	w.deposited = yEnd[iEPlasma]
 	left := c.storedEnergy(yEnd)

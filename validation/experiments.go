@@ -540,7 +540,10 @@ func optimum(x, y []float64) float64 {
 }
 
 // interpolate evaluates the piecewise-linear curve (x, y), x increasing, at t; outside the
-// curve it returns NaN.
+// curve it returns NaN. It is kept on purpose beside gonum's interp.PiecewiseLinear (which
+// kinetics/study uses): that type panics on fewer than two points and on repeated x, which a
+// digitised measured curve may have, and holds the end values outside where a comparison
+// wants NaN.
 func interpolate(x, y []float64, t float64) float64 {
 	for i := 0; i+1 < len(x); i++ {
 		if t >= x[i] && t <= x[i+1] {

@@ -121,6 +121,12 @@ type Levels struct {
 	LowerLifetime          float64 // radiative lifetime of B(0) [s]
 	LowerRemovalNitrogen   float64 // removal of B(0) by N₂ [m³/s]
 	LowerRemovalOxygen     float64 // removal of B(0) by O₂ [m³/s]
+
+	// The B³Πg(v>0)/W³Δu/B′³Σu⁻ manifold as one reservoir: fed by electrons, emptied by
+	// collisions; a share of its collisional relaxation by N₂ ends in B(0).
+	ManifoldShare              float64 // share of the manifold's relaxation by N₂ that ends in B(0)
+	ManifoldRelaxationNitrogen float64 // total collisional relaxation of the manifold by N₂ [m³/s]
+	ManifoldRelaxationOxygen   float64 // total collisional removal of the manifold by O₂ (none into B(0)) [m³/s]
 }
 
 // Optics holds the ends of the channel, the distributed loss and the excitation front.

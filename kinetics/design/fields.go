@@ -1,6 +1,7 @@
 package design
 
 import (
+	"errors"
 	"fmt"
 	"math"
 	"slices"
@@ -75,6 +76,9 @@ var fieldList = []field{
 	{key: "levels.lower_lifetime", dim: units.Time, unit: "s", num: func(d *Design) *float64 { return &d.Levels.LowerLifetime }, min: 1e-9, max: 1e-3, help: "radiative lifetime of B(0)"},
 	{key: "levels.lower_removal_nitrogen", dim: units.RateConstant, unit: "m³/s", num: func(d *Design) *float64 { return &d.Levels.LowerRemovalNitrogen }, min: 0, max: 1e-14, help: "removal of B(0) by N₂"},
 	{key: "levels.lower_removal_oxygen", dim: units.RateConstant, unit: "m³/s", num: func(d *Design) *float64 { return &d.Levels.LowerRemovalOxygen }, min: 0, max: 1e-14, help: "removal of B(0) by O₂"},
+	{key: "levels.manifold_share", dim: units.Dimensionless, num: func(d *Design) *float64 { return &d.Levels.ManifoldShare }, min: 0, max: 1, help: "share of the B(v>0)/W/B′ manifold's relaxation by N₂ that ends in B(0) (not published; estimate 0.2–1)"},
+	{key: "levels.manifold_relaxation_nitrogen", dim: units.RateConstant, unit: "m³/s", num: func(d *Design) *float64 { return &d.Levels.ManifoldRelaxationNitrogen }, min: 0, max: 1e-14, help: "collisional relaxation of the B(v>0)/W/B′ manifold by N₂"},
+	{key: "levels.manifold_relaxation_oxygen", dim: units.RateConstant, unit: "m³/s", num: func(d *Design) *float64 { return &d.Levels.ManifoldRelaxationOxygen }, min: 0, max: 1e-14, help: "removal of the B(v>0)/W/B′ manifold by O₂"},
 
 	{key: "optics.rear_reflectivity", dim: units.Dimensionless, num: func(d *Design) *float64 { return &d.Optics.RearReflectivity }, min: 0, max: 1, help: "power reflectivity at the rear end (z = 0)"},
 	{key: "optics.front_reflectivity", dim: units.Dimensionless, num: func(d *Design) *float64 { return &d.Optics.FrontReflectivity }, min: 0, max: 0.999, help: "power reflectivity at the output end (z = L)"},
@@ -140,6 +144,12 @@ func KeyUnit(key string) (unit string, ok bool) {
 	return f.unit, true
 }
 
+// KeyInteger reports whether a design key takes whole numbers only (numerics.cells).
+func KeyInteger(key string) bool {
+	f, ok := fieldIndex[key]
+	return ok && f.integer
+}
+
 // KeyError is a design value that is unknown, malformed or out of range.
 type KeyError struct {
 	Key     string // dotted key
@@ -155,7 +165,8 @@ func (e *KeyError) Error() string {
 }
 
 // Set assigns one design key from text, as on the command line: Set("gas.pressure", "40 Torr").
-// Numbers may carry any unit of the key's dimension; a bare number is SI.
+// Numbers carry any unit of the key's dimension; a bare number is refused for a dimensioned
+// key unless it is 0 (the error suggests the unit).
 //
 // The [build] keys are accepted too (Set("build.switch_plate_width", "12 cm")). After a build
 // key, the channel length or the channel gap changes, the circuit values derived from the build
@@ -230,10 +241,27 @@ func (f *field) parse(text string) (float64, error) {
 		}
 	}
 	v, err := units.Parse(t, f.dim)
+	var nu *units.NoUnitError
+	if errors.As(err, &nu) {
+		return 0, &KeyError{Key: f.key, Value: text, Problem: nu.Error()}
+	}
 	if err != nil {
 		return 0, &KeyError{Key: f.key, Value: text, Problem: fmt.Sprintf("%v (want %s)", strings.TrimPrefix(err.Error(), "units: "), f.want())}
 	}
 	return v, nil
+}
+
+// bareNumber is the one rule for a number without a unit, from a design file or the command
+// line: it stands for itself only in a dimensionless key or as 0; for any other dimensioned
+// key it is an error that suggests the unit (a builder writing pressure = 40 means Torr or
+// mbar, never pascal).
+func bareNumber(key string, dim units.Dimension, x float64) error {
+	if dim == units.Dimensionless || x == 0 {
+		return nil
+	}
+	text := strconv.FormatFloat(x, 'g', -1, 64)
+	return &KeyError{Key: key, Value: text, Problem: (&units.NoUnitError{Text: text, Want: dim}).Error() +
+		"; in a design file quote it: " + key[strings.LastIndex(key, ".")+1:] + " = \"" + text + " " + dim.String() + "\""}
 }
 
 func (f *field) want() string {

@@ -38,5 +38,17 @@ func defaultLevels() Levels {
 		// the output, the opposite of what builders see (found against the experiment cases
 		// in validation/testdata/experiments). Zero until a measured value is found.
 		LowerRemovalOxygen: 0,
+		// The share of the B/W/B′ manifold's relaxation that ends in B(0) is not published: an
+		// estimate, range 0.2–1 (a cascade of about three vibrational steps, each competing
+		// with transfer to A³Σu⁺, gives ~0.2; W(0) lies 75 cm⁻¹ above B(0), so the W and B
+		// populations mix in collisions and most of the manifold can end in B(0)). Zero
+		// (feeding off) until the default cross-section set changes with it (issue note).
+		ManifoldShare: 0,
+		// N2(B) + N2 → N2(A) + N2(v): 1.2e-11 cm³/s, J. Appl. Phys. 125, 243301 (2019), Table I,
+		// R25 (seen); 3e-11 cm³/s in Kossyi et al. 1992 (seen, secondary): range 1.2–3e-11.
+		ManifoldRelaxationNitrogen: 1.2e-17,
+		// N2(B) + O2 → N2 + O + O: 3e-10 cm³/s, Kossyi et al. 1992 (seen, secondary); none of it
+		// ends in B(0).
+		ManifoldRelaxationOxygen: 3e-16,
 	}
 }

@@ -6,6 +6,9 @@ import (
 	"fmt"
 	"math"
 
+	"gonum.org/v1/gonum/floats"
+	"gonum.org/v1/gonum/interp"
+
 	"n2pulse/kinetics"
 	"n2pulse/kinetics/design"
 	"n2pulse/units"
@@ -67,12 +70,12 @@ func (s *LengthScan) check() error {
 		return fmt.Errorf("study: length scan: --from %g m, --to %g m: want 0 < from < to", s.From, s.To)
 	}
 	for _, l := range []float64{s.From, s.To} {
-		if err := s.Design.Clone().Set("channel.length", formatNumber(l)); err != nil {
+		if err := s.Design.Clone().Set("channel.length", siText("channel.length", l)); err != nil {
 			return fmt.Errorf("study: length scan: %w", err)
 		}
 	}
 	if s.TravellingWave != 0 {
-		if err := s.Design.Clone().Set("optics.excitation_velocity", formatNumber(s.TravellingWave)); err != nil {
+		if err := s.Design.Clone().Set("optics.excitation_velocity", siText("optics.excitation_velocity", s.TravellingWave)); err != nil {
 			return fmt.Errorf("study: length scan: --travelling-wave: %w", err)
 		}
 	}
@@ -165,12 +168,7 @@ func UsefulLength(L, E []float64) (float64, string) {
 	if n < 3 {
 		return math.NaN(), "fewer than three computed lengths"
 	}
-	imax := 0
-	for i := range E {
-		if E[i] > E[imax] {
-			imax = i
-		}
-	}
+	imax := floats.MaxIdx(E)
 	top := E[imax]
 	if !(top > 0) {
 		return math.NaN(), "no output energy"
@@ -211,18 +209,23 @@ func parabolaVertex(x, y []float64) float64 {
 	return math.Max(x[0], math.Min(x[2], v))
 }
 
-// interpolate evaluates the piecewise-linear function through (x, y) at t, clamped at the ends.
+// interpolate evaluates the piecewise-linear function through (x, y) at t, held at the end
+// values outside, by gonum's interp.PiecewiseLinear; a single point is a constant, and x that
+// is not strictly increasing (which that type refuses with a panic) gives NaN.
 func interpolate(x, y []float64, t float64) float64 {
-	if t <= x[0] {
+	if len(x) == 1 {
 		return y[0]
 	}
 	for i := 1; i < len(x); i++ {
-		if t <= x[i] {
-			f := (t - x[i-1]) / (x[i] - x[i-1])
-			return y[i-1] + f*(y[i]-y[i-1])
+		if !(x[i] > x[i-1]) {
+			return math.NaN()
 		}
 	}
-	return y[len(y)-1]
+	var pl interp.PiecewiseLinear
+	if err := pl.Fit(x, y); err != nil {
+		return math.NaN()
+	}
+	return pl.Predict(t)
 }
 
 // lengthMetrics are the figures of merit a length table lists per curve.

@@ -6,6 +6,8 @@ import (
 	"strings"
 	"testing"
 
+	"gonum.org/v1/gonum/floats/scalar"
+
 	"n2pulse/kinetics"
 	"n2pulse/kinetics/design"
 	"n2pulse/units"
@@ -107,5 +109,23 @@ func TestLengthScan(t *testing.T) {
 		if _, err := bad.Run(context.Background()); err == nil {
 			t.Errorf("accepted %+v", bad)
 		}
+	}
+}
+
+// interpolate is linear between points (exact here to rounding, 1e-15 relative), held at the
+// ends, constant for one point and NaN for x that does not increase.
+func TestInterpolate(t *testing.T) {
+	t.Parallel()
+	x, y := []float64{0.1, 0.2, 0.4}, []float64{1, 3, 2}
+	for _, c := range []struct{ at, want float64 }{{0.15, 2}, {0.3, 2.5}, {0.05, 1}, {0.9, 2}, {0.2, 3}} {
+		if got := interpolate(x, y, c.at); !scalar.EqualWithinAbsOrRel(got, c.want, 1e-15, 1e-15) {
+			t.Errorf("interpolate at %g: %g, want %g", c.at, got, c.want)
+		}
+	}
+	if got := interpolate([]float64{0.2}, []float64{7}, 0.5); got != 7 {
+		t.Errorf("one point: %g, want 7", got)
+	}
+	if got := interpolate([]float64{0.2, 0.2}, []float64{1, 2}, 0.2); !math.IsNaN(got) {
+		t.Errorf("repeated x: %g, want NaN", got)
 	}
 }

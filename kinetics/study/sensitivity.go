@@ -5,7 +5,6 @@ import (
 	"fmt"
 	"math"
 	"sort"
-	"strconv"
 	"strings"
 
 	"n2pulse/internal/pool"
@@ -183,7 +182,7 @@ func perturbedRun(d *design.Design, key string, h float64) (kinetics.Summary, er
 		return kinetics.Summary{}, err
 	}
 	x := x0 * math.Exp(h)
-	if err := c.Set(key, strconv.FormatFloat(x, 'g', -1, 64)); err != nil {
+	if err := c.Set(key, siText(key, x)); err != nil {
 		return kinetics.Summary{}, rangeError{err}
 	}
 	if err := c.Validate(); err != nil {

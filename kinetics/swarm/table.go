@@ -84,10 +84,7 @@ func (c *Coefficients) HasPowerSplit() bool {
 // E/N = 0 returns zero drift velocity and the first row's other values; it is counted as below.
 type Table struct {
 	rows  []Coefficients
-	logx  []float64          // ln E/N of the rows
-	logv  [][nfields]float64 // ln of each value (or NaN where the value is not positive)
-	lin   [][nfields]float64 // the values themselves
-	slope [][nfields]float64 // d ln v / d ln(E/N) on each interval, or linearMark
+	all   *Selection // the interpolation of every column
 	below atomic.Int64
 	above atomic.Int64
 }
@@ -100,9 +97,6 @@ func NewTable(rows []Coefficients) (*Table, error) {
 		return nil, fmt.Errorf("swarm: table needs at least 2 rows, got %d", len(rows))
 	}
 	t := &Table{rows: append([]Coefficients(nil), rows...)}
-	t.logx = make([]float64, len(rows))
-	t.logv = make([][nfields]float64, len(rows))
-	t.lin = make([][nfields]float64, len(rows))
 	for i, r := range t.rows {
 		if !(r.ReducedField > 0) || math.IsInf(r.ReducedField, 0) {
 			return nil, fmt.Errorf("swarm: row %d: reduced field %g V m²: must be positive and finite", i+1, r.ReducedField)
@@ -121,26 +115,13 @@ func NewTable(rows []Coefficients) (*Table, error) {
 			if math.IsNaN(x) || math.IsInf(x, 0) || x < 0 {
 				return nil, fmt.Errorf("swarm: row %d: %s %g: must be finite and not negative", i+1, fieldNames[k], x)
 			}
-			t.lin[i][k] = x
-			if x > 0 {
-				t.logv[i][k] = math.Log(x)
-			} else {
-				t.logv[i][k] = math.NaN()
-			}
-		}
-		t.logx[i] = math.Log(r.ReducedField)
-	}
-	t.slope = make([][nfields]float64, len(rows)-1)
-	for i := range t.slope {
-		for k := 0; k < nfields; k++ {
-			a, b := t.logv[i][k], t.logv[i+1][k]
-			if math.IsNaN(a) || math.IsNaN(b) {
-				t.slope[i][k] = linearMark
-				continue
-			}
-			t.slope[i][k] = (b - a) / (t.logx[i+1] - t.logx[i])
 		}
 	}
+	cols := make([]Column, nfields)
+	for k := range cols {
+		cols[k] = Column(k)
+	}
+	t.all = t.Select(cols...)
 	return t, nil
 }
 
@@ -161,50 +142,18 @@ var ErrEmpty = errors.New("swarm: table has no rows")
 // At returns the coefficients at |reducedField| [V m²]. It does not allocate.
 func (t *Table) At(reducedField float64) Coefficients {
 	en := math.Abs(reducedField)
-	n := len(t.rows)
-	lo, hi := t.rows[0].ReducedField, t.rows[n-1].ReducedField
+	lo, hi := t.Range()
 	switch {
 	case !(en >= lo) || math.IsNaN(en): // below the range, zero, or NaN
 		t.below.Add(1)
-		c := t.rows[0]
 		if math.IsNaN(en) {
 			en = 0
 		}
-		c.DriftVelocity = c.DriftVelocity * en / lo
-		c.ReducedField = en
-		return c
 	case en > hi:
 		t.above.Add(1)
-		c := t.rows[n-1]
-		c.ReducedField = en
-		return c
 	}
-	x := math.Log(en)
-	// binary search: the last row i with logx[i] <= x, within [0, n-2]
-	lo2, hi2 := 0, n-1
-	for hi2-lo2 > 1 {
-		m := int(uint(lo2+hi2) >> 1)
-		if t.logx[m] <= x {
-			lo2 = m
-		} else {
-			hi2 = m
-		}
-	}
-	i := lo2
-	dx := x - t.logx[i]
-	sl := &t.slope[i]
-	a := &t.logv[i]
 	var v [nfields]float64
-	for k := range v {
-		if sl[k] == linearMark {
-			f := (en - t.rows[i].ReducedField) / (t.rows[i+1].ReducedField - t.rows[i].ReducedField)
-			// Clamped at zero: where ln(E/N) rounds onto a row's logarithm from below, f is a
-			// little below 0 and a value rising from zero would come out a little negative.
-			v[k] = max(0, t.lin[i][k]+f*(t.lin[i+1][k]-t.lin[i][k]))
-			continue
-		}
-		v[k] = math.Exp(a[k] + sl[k]*dx)
-	}
+	t.all.At(en, 0, nfields, v[:], nil)
 	return fromValues(en, &v)
 }
 

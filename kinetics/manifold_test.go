@@ -1,0 +1,95 @@
+package kinetics
+
+import (
+	"math"
+	"testing"
+
+	"gonum.org/v1/gonum/floats/scalar"
+
+	"n2pulse/kinetics/design"
+	"n2pulse/units"
+)
+
+// TestManifoldExact: from R = 0 with a constant feed p, R(t) = (p/Γ)(1 − e^(−Γt)) and B(0)
+// receives η·k·N_N₂·(p/Γ)·(t − (1 − e^(−Γt))/Γ) (hand integration of the reservoir
+// equation); the steps reproduce both to 1e-12, and the ledger fed = R + into B(0) + lost
+// closes to 1e-12 under a feed that changes every step (conservation).
+func TestManifoldExact(t *testing.T) {
+	t.Parallel()
+	l := design.ExampleDesign().Levels
+	l.ManifoldShare = 0.4
+	g := design.Gas{Pressure: 101325, Temperature: 300, Nitrogen: 0.79, Oxygen: 0.21}
+	n := units.GasDensity(g.Pressure, g.Temperature)
+	dt := 3e-12
+	m := newManifold(l, g, n, dt)
+	gamma := n*(0.79*l.ManifoldRelaxationNitrogen+0.21*l.ManifoldRelaxationOxygen) + 1/l.LowerLifetime
+	toB := 0.4 * n * 0.79 * l.ManifoldRelaxationNitrogen
+	const p = 1e30
+	steps := 2000
+	intoB := 0.0
+	for range steps {
+		intoB += m.step(p) * dt
+	}
+	tEnd := float64(steps) * dt
+	wantR := p / gamma * -math.Expm1(-gamma*tEnd)
+	wantB := toB * p / gamma * (tEnd + math.Expm1(-gamma*tEnd)/gamma)
+	if !scalar.EqualWithinAbsOrRel(m.r, wantR, 0, 1e-12) {
+		t.Errorf("R = %.12g m⁻³, want %.12g", m.r, wantR)
+	}
+	if !scalar.EqualWithinAbsOrRel(intoB, wantB, 0, 1e-12) || !scalar.EqualWithinAbsOrRel(m.intoB, wantB, 0, 1e-12) {
+		t.Errorf("into B(0) %.12g (ledger %.12g) m⁻³, want %.12g", intoB, m.intoB, wantB)
+	}
+	for k := range 5000 {
+		m.step(p * (1 + math.Sin(float64(k)/37)))
+	}
+	if sum := m.r + m.intoB + m.lost; !scalar.EqualWithinAbsOrRel(sum, m.fed, 0, 1e-12) {
+		t.Errorf("ledger: R + into B(0) + lost = %.12g, fed %.12g", sum, m.fed)
+	}
+}
+
+// TestManifoldDefaults: the manifold's constants are those of their sources: N₂(B) + N₂ →
+// N₂(A) + N₂ 1.2e-11 cm³/s (J. Appl. Phys. 125, 243301 (2019), Table I, R25) and N₂(B) + O₂
+// 3e-10 cm³/s (Kossyi et al., Plasma Sources Sci. Technol. 1, 207 (1992)); the share is off
+// by default until it changes together with the cross-section set.
+func TestManifoldDefaults(t *testing.T) {
+	t.Parallel()
+	l := design.ExampleDesign().Levels
+	if !scalar.EqualWithinAbsOrRel(l.ManifoldRelaxationNitrogen, 1.2e-11*1e-6, 0, 1e-12) {
+		t.Errorf("k(B manifold + N₂) = %g m³/s, want 1.2e-17", l.ManifoldRelaxationNitrogen)
+	}
+	if !scalar.EqualWithinAbsOrRel(l.ManifoldRelaxationOxygen, 3e-10*1e-6, 0, 1e-12) {
+		t.Errorf("k(B manifold + O₂) = %g m³/s, want 3e-16", l.ManifoldRelaxationOxygen)
+	}
+	if !(l.ManifoldShare >= 0 && l.ManifoldShare <= 1) {
+		t.Errorf("manifold share %g outside 0–1", l.ManifoldShare)
+	}
+}
+
+// TestManifoldConservation: with the manifold feeding B(0) (share 0.5) the example design's
+// energy and photon balances still close to 1e-6, populations stay non-negative, and the
+// feed lowers the pulse energy (a fuller lower level ends the gain sooner).
+func TestManifoldConservation(t *testing.T) {
+	t.Parallel()
+	d := design.ExampleDesign()
+	base, err := Run(d, &RunSettings{Light: true})
+	if err != nil {
+		t.Fatal(err)
+	}
+	d.Levels.ManifoldShare = 0.5
+	r, err := Run(d, nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	s := r.Summary
+	if s.EnergyBalanceResidual > 1e-6 || s.PhotonBalanceResidual > 1e-6 {
+		t.Errorf("balances %.2g (energy), %.2g (photons), want < 1e-6", s.EnergyBalanceResidual, s.PhotonBalanceResidual)
+	}
+	for i, b := range r.LowerLevel {
+		if b < 0 || r.UpperLevel[i] < 0 {
+			t.Fatalf("negative population at step %d", i)
+		}
+	}
+	if !(s.EnergyTotal < base.Summary.EnergyTotal) {
+		t.Errorf("feeding B(0) raised the pulse energy: %g → %g J", base.Summary.EnergyTotal, s.EnergyTotal)
+	}
+}
