@@ -517,8 +517,10 @@ func pulseWidth(p []float64, dt float64) (centre, fwhm float64) {
 	return centre, 2 * math.Sqrt(2*math.Ln2) * math.Sqrt(s2/s0)
 }
 
-// unfinished reports whether the run ended while the output-end power or the channel-mean
-// gain was still above a tenth of its peak.
+// unfinished reports whether the shot was still going at its last step: the output-end
+// power or the channel-mean gain above a tenth of its peak, or the discharge still building
+// up (the channel voltage or the pump into C(0) at least half its peak, which came in the
+// last tenth of the run).
 func (sh *shot) unfinished() bool {
 	last := sh.steps - 1
 	if last < 0 {
@@ -526,7 +528,23 @@ func (sh *shot) unfinished() bool {
 	}
 	pk, _ := peak(sh.powerFront)
 	gp, _ := peak(sh.meanGain)
-	return (pk > 0 && sh.powerFront[last] > 0.1*pk) || (gp > 0 && sh.meanGain[last] > 0.1*gp)
+	return (pk > 0 && sh.powerFront[last] > 0.1*pk) || (gp > 0 && sh.meanGain[last] > 0.1*gp) ||
+		rising(sh.wf.pumpC) || rising(sh.wf.voltage)
+}
+
+// rising reports whether |x| peaks in the last tenth of the series and ends at no less than
+// half that peak: a quantity still building up when the run ends.
+func rising(x []float64) bool {
+	last := len(x) - 1
+	if last < 0 {
+		return false
+	}
+	k := floats.MaxIdx(x)
+	if i := floats.MinIdx(x); -x[i] > x[k] {
+		k = i
+	}
+	p := math.Abs(x[k])
+	return p > 0 && k >= last-last/10 && math.Abs(x[last]) >= 0.5*p
 }
 
 // apertureSolidAngle is the solid angle [sr] of the channel's cross-section seen from its far

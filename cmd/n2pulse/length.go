@@ -111,7 +111,11 @@ func printLength(w io.Writer, r *study.LengthResult) {
 				continue
 			}
 			s := p.Summary
-			line += fmt.Sprintf("%.4g\t%.4g\t%.3g\t%.3g\t%.4g\t", 1e6*s.EnergyFront, 1e-3*s.PeakPower, 1e9*s.FWHM,
+			cut := ""
+			if s.Truncated {
+				cut = " (truncated)"
+			}
+			line += fmt.Sprintf("%.4g%s\t%.4g\t%.3g\t%.3g\t%.4g\t", 1e6*s.EnergyFront, cut, 1e-3*s.PeakPower, 1e9*s.FWHM,
 				1e9*s.InversionDuration, 100*units.SpeedOfLight*s.InversionDuration)
 		}
 		fmt.Fprintln(tw, line)
@@ -132,6 +136,9 @@ func printLength(w io.Writer, r *study.LengthResult) {
 	for _, p := range r.Curves[0].Points {
 		if p.Err != nil {
 			fmt.Fprintf(w, "length %.4g cm failed: %v\n", 100*p.Length, p.Err)
+		} else if p.Summary.Truncated {
+			fmt.Fprintf(w, "length %.4g cm truncated: the pulse was still going at %.4g ns, the longest a run may take; its numbers are cut short\n",
+				100*p.Length, 1e9*p.Summary.EndTime)
 		}
 	}
 }

@@ -268,7 +268,7 @@ func (r *LengthResult) Table() *Table {
 				}
 				row = append(row, formatNumber(units.SpeedOfLight*p.Summary.InversionDuration))
 			}
-			row = append(row, statusOf(p.Err))
+			row = append(row, statusOf(p.Summary, p.Err))
 		}
 		t.Rows = append(t.Rows, row)
 	}

@@ -106,7 +106,7 @@ func (s *Sweep) row(o outcome) []string {
 	} else {
 		r = append(r, make([]string, len(Metrics()))...)
 	}
-	return append(r, statusOf(o.err))
+	return append(r, statusOf(o.sum, o.err))
 }
 
 // DesignHash is the SHA-256 of the design's full key listing (design.Design.String), the
