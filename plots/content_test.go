@@ -107,7 +107,7 @@ func TestOverlayFigureContent(t *testing.T) {
 
 // The spectrum figure draws the sticks as one polyline that rises and falls at each stick
 // (3 points per stick) and the profile through its points, each with a legend sample and
-// entry; the PNG is 7 in × 4 in at 150 dpi.
+// entry; the PNG is 16 cm × 11 cm at 150 dpi.
 func TestSpectrumFigureContent(t *testing.T) {
 	t.Parallel()
 	dir := t.TempDir()
@@ -139,8 +139,8 @@ func TestSpectrumFigureContent(t *testing.T) {
 	if !slices.Equal(lines, []int{12, 6, 2, 2}) {
 		t.Errorf("coloured lines with %v points, want [12 6 2 2]", lines)
 	}
-	// 7 in and 4 in at 150 dpi.
-	if w, h := pngSize(t, filepath.Join(dir, "s.png")); w != 1050 || h != 600 {
-		t.Errorf("PNG %d × %d pixels, want 1050 × 600", w, h)
+	// 16 cm and 11 cm at 150 dpi, as the overlay.
+	if w, h := pngSize(t, filepath.Join(dir, "s.png")); math.Abs(float64(w)-944.9) > 1 || math.Abs(float64(h)-649.6) > 1 {
+		t.Errorf("PNG %d × %d pixels, want 945 × 650", w, h)
 	}
 }
