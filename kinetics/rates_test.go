@@ -28,7 +28,7 @@ func TestSwarmRates(t *testing.T) {
 		}
 		for _, en := range ens {
 			c := tb.At(en)
-			want := [nRates]float64{c.DriftVelocity, c.Ionisation, c.Attachment, c.ExciteB, c.ExciteC, c.ExciteW, c.ExciteBPrime}
+			want := [nRates]float64{c.DriftVelocity, c.Ionisation, c.Attachment, c.ExciteB, c.ExciteC, c.ExciteW, c.ExciteBPrime, c.MeanEnergy}
 			copy(want[ratePower:], c.Power[:])
 			var v, d [nRates]float64
 			r.at(en, 0, nRates, &v, &d)

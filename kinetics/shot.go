@@ -105,11 +105,15 @@ func (sh *shot) run(res *Result) {
 		}
 		res.Gain = make([][]float64, n)
 	}
-	// Decay factors depend on time only through n_e (electron mixing); precompute per step.
+	// Decay factors depend on time only through the electrons (the constant electron mixing
+	// and the Born–Bethe/Lotz estimate); precompute per step.
 	eC := make([]float64, sh.steps)
 	wC := make([]float64, sh.steps)
 	for k := range eC {
 		g := gamma0 + kE*sh.wf.density[k]
+		if sh.wf.lossC != nil {
+			g += sh.wf.lossC[k]
+		}
 		em1 := math.Expm1(-g * dt)
 		eC[k], wC[k] = 1+em1, -em1/g
 	}
