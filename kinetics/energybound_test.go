@@ -21,7 +21,7 @@ func TestApertureClippedIssue16(t *testing.T) {
 		t.Fatal(err)
 	}
 	d := design.ExampleDesign()
-	if err := d.Set("channel.aperture", "1e-2"); err != nil {
+	if err := d.Set("channel.aperture", "1e-2 m2"); err != nil {
 		t.Fatal(err)
 	}
 	r, err := Run(d, &RunSettings{Light: true})
@@ -77,7 +77,7 @@ func TestPumpBoundEveryExcitation(t *testing.T) {
 		{"optics.excitation_velocity", "infinite"},
 		{"optics.excitation_velocity", "c"},
 		{"optics.excitation_velocity", "-c"},
-		{"optics.excitation_velocity", "1e7"},
+		{"optics.excitation_velocity", "1e7 m/s"},
 		{"optics.rear_reflectivity", "0.99"},
 	} {
 		d := design.ExampleDesign()

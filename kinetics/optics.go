@@ -310,7 +310,7 @@ func (m *medium) enter(ps *pumpStep, resync, forwardFirst bool) (spont float64) 
 	n := m.n
 	cs := m.c[:n]
 	if ps != nil {
-		m.pump(ps, !resync)
+		m.pump(ps, m.n, !resync)
 		if resync {
 			m.resync()
 		}
@@ -346,36 +346,20 @@ func (m *medium) enter(ps *pumpStep, resync, forwardFirst bool) (spont float64) 
 	return spont
 }
 
-// pump advances the populations of every cell through one step of pump and decay (see
-// pumpStep) and, when follow, their gain factors with them.
-func (m *medium) pump(ps *pumpStep, follow bool) {
-	n := m.n
-	cs, bs, gf := m.c[:n], m.b[:n], m.gain[:n]
+// pump advances the populations of the first cells cells through one step of pump and decay
+// (see pumpStep) and, when follow, their gain factors with them.
+func (m *medium) pump(ps *pumpStep, cells int, follow bool) {
+	cs, bs, gf := m.c[:cells], m.b[:cells], m.gain[:cells]
 	sdz, g := m.sigma*m.dz, m.g
 	eB, wBh := ps.eB, ps.wBh
-	if ps.uniform {
-		e, pc, pb := ps.e, ps.cp, ps.bp
-		for i := range cs {
-			c0, b0 := cs[i], bs[i]
-			c := c0*e + pc
-			b := b0*eB + pb + wBh*(c0+c)
-			cs[i], bs[i] = c, b
-			if follow {
-				x := sdz * ((c - c0) - g*(b-b0))
-				if f, ok := expTiny(x); ok {
-					gf[i] *= f
-				} else {
-					gf[i] *= expMedium(x)
-				}
-			}
-		}
-		return
-	}
-	pes, pcs, pbs := ps.es[:n], ps.cps[:n], ps.bps[:n]
+	e, pc, pb := ps.e, ps.cp, ps.bp
 	for i := range cs {
+		if !ps.uniform {
+			e, pc, pb = ps.es[i], ps.cps[i], ps.bps[i]
+		}
 		c0, b0 := cs[i], bs[i]
-		c := c0*pes[i] + pcs[i]
-		b := b0*eB + pbs[i] + wBh*(c0+c)
+		c := c0*e + pc
+		b := b0*eB + pb + wBh*(c0+c)
 		cs[i], bs[i] = c, b
 		if follow {
 			x := sdz * ((c - c0) - g*(b-b0))

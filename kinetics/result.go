@@ -5,15 +5,21 @@ import "n2pulse/kinetics/ode"
 // Summary holds the figures of merit of one shot, in SI. The JSON names are part of the
 // program's interface (`run --json`, sweep tables): scripts rely on them.
 type Summary struct {
-	EnergyFront     float64 `json:"energy_front_J"`     // pulse energy leaving the output end z = L [J]
-	EnergyRear      float64 `json:"energy_rear_J"`      // pulse energy leaving the rear end z = 0 [J]
-	EnergyTotal     float64 `json:"energy_total_J"`     // both ends [J]
-	PeakPower       float64 `json:"peak_power_W"`       // peak power at the output end [W]
-	FWHM            float64 `json:"fwhm_s"`             // width of the output-end pulse: 2·sqrt(2 ln 2) × its rms duration, the FWHM of a Gaussian of the same rms width [s]
-	HalfMaxWidth    float64 `json:"half_max_width_s"`   // time between the first and last half-maximum crossings of the output-end pulse [s]
-	PulseCentre     float64 `json:"pulse_centre_s"`     // power-weighted mean time of the output-end pulse [s]
-	Rise            float64 `json:"rise_s"`             // 10–90 % rise time of the output-end pulse [s]
-	Delay           float64 `json:"delay_s"`            // switch closure to the half-maximum of the rising edge [s]
+	EnergyFront  float64 `json:"energy_front_J"`   // pulse energy leaving the output end z = L [J]
+	EnergyRear   float64 `json:"energy_rear_J"`    // pulse energy leaving the rear end z = 0 [J]
+	EnergyTotal  float64 `json:"energy_total_J"`   // both ends [J]
+	PeakPower    float64 `json:"peak_power_W"`     // peak power at the output end [W]
+	FWHM         float64 `json:"fwhm_s"`           // width of the output-end pulse: 2·sqrt(2 ln 2) × its rms duration, the FWHM of a Gaussian of the same rms width [s]
+	HalfMaxWidth float64 `json:"half_max_width_s"` // time between the first and last half-maximum crossings of the output-end pulse [s]
+	PulseCentre  float64 `json:"pulse_centre_s"`   // power-weighted mean time of the output-end pulse [s]
+	Rise         float64 `json:"rise_s"`           // 10–90 % rise time of the output-end pulse [s]
+	Delay        float64 `json:"delay_s"`          // switch closure to the half-maximum of the rising edge [s]
+	// EndTime is how long after closure the shot was followed: numerics.end_time, or up to
+	// 16 times that (at most 10 µs) when the pulse outlasted it [s].
+	EndTime float64 `json:"end_time_s"`
+	// Truncated is set when the output, the gain or the discharge was still going at EndTime,
+	// the longest a run may take: energies and widths are then cut short.
+	Truncated       bool    `json:"truncated"`
 	Efficiency      float64 `json:"efficiency"`         // total pulse energy / stored energy
 	StoredEnergy    float64 `json:"stored_energy_J"`    // ½ΣCV₀² [J]
 	DepositedEnergy float64 `json:"deposited_energy_J"` // energy delivered to the plasma [J]

@@ -31,8 +31,6 @@ func Run(d *design.Design, s *RunSettings) (*Result, error) {
 		return nil, err
 	}
 
-	circ := newCircuit(d, table)
-	par.GapCapacitance = circ.cg
 	var warnings []string
 	par.OpticalArea = d.Channel.Gap * d.Channel.Width // the discharge cross-section
 	if a := d.Channel.Aperture; a > par.OpticalArea {
@@ -47,16 +45,36 @@ func Run(d *design.Design, s *RunSettings) (*Result, error) {
 	n := d.Numerics.Cells
 	par.CellLength = d.Channel.Length / float64(n)
 	par.TimeStep = par.CellLength / units.SpeedOfLight
-	steps := int(math.Ceil(d.Numerics.EndTime / par.TimeStep))
 
-	wf, stats, err := solveCircuit(circ, d, &par, steps)
-	if err != nil {
-		return nil, err
+	// The end time follows the pulse: a shot whose output, gain or discharge is not over at
+	// numerics.end_time runs again to twice the time, up to the cap.
+	end, endCap := d.Numerics.EndTime, PulseTimeCap(d.Numerics.EndTime)
+	var (
+		circ *circuit
+		wf   *waveforms
+		sh   *shot
+		res  *Result
+	)
+	for {
+		steps := int(math.Ceil(end / par.TimeStep))
+		circ = newCircuit(d, table)
+		par.GapCapacitance = circ.cg
+		var stats Stats
+		wf, stats, err = solveCircuit(circ, d, &par, steps)
+		if err != nil {
+			return nil, err
+		}
+		res = &Result{Parameters: par, Stats: stats}
+		sh = newShot(d, &res.Parameters, wf, steps, s)
+		sh.run(res)
+		if !sh.unfinished() || end >= endCap {
+			break
+		}
+		end = math.Min(2*end, endCap)
 	}
-	res := &Result{Parameters: par, Stats: stats}
 	res.Summary.Overridden = overridden
-	sh := newShot(d, &res.Parameters, wf, steps, s)
-	sh.run(res)
+	res.Summary.EndTime = float64(sh.steps) * par.TimeStep
+	res.Summary.Truncated = sh.unfinished()
 	sh.summarise(res)
 	res.Warnings = append(res.Warnings, warnings...)
 	if err := checkPumpBound(&res.Summary); err != nil {
@@ -79,10 +97,15 @@ func Run(d *design.Design, s *RunSettings) (*Result, error) {
 			"E/N reached %.0f Td, above the swarm table (%.0f–%.0f Td): coefficients were clamped at the top row",
 			wf.peakField/units.Townsend, lo/units.Townsend, hi/units.Townsend))
 	}
-	if sh.unfinished() {
+	switch {
+	case res.Summary.Truncated:
 		res.Warnings = append(res.Warnings, fmt.Sprintf(
-			"the pulse had not ended at numerics.end_time = %s (output or gain still above a tenth of its peak): raise numerics.end_time",
-			units.Format(d.Numerics.EndTime, "s")))
+			"truncated: the pulse had not ended at %s, the longest this run may take (%s; numerics.end_time = %s): energy and widths are cut short",
+			units.Format(res.Summary.EndTime, "s"), endCapRule, units.Format(d.Numerics.EndTime, "s")))
+	case end > d.Numerics.EndTime:
+		res.Warnings = append(res.Warnings, fmt.Sprintf(
+			"the pulse outlasted numerics.end_time = %s: the run continued to %s",
+			units.Format(d.Numerics.EndTime, "s"), units.Format(res.Summary.EndTime, "s")))
 	}
 	res.Summary.Derived = append([]string(nil), d.Derived...)
 	res.Summary.Warnings = append([]string(nil), res.Warnings...)
@@ -101,6 +124,15 @@ func Run(d *design.Design, s *RunSettings) (*Result, error) {
 		res.Z, res.GainTime, res.Gain = nil, nil, nil
 	}
 	return res, nil
+}
+
+// endCapRule says in words how far PulseTimeCap lets a run follow its pulse.
+const endCapRule = "16 × numerics.end_time, at most 10 µs"
+
+// PulseTimeCap is the longest time a run follows a pulse that outlasts its end time:
+// 16 × endTime, at most 10 µs (but never below endTime) [s].
+func PulseTimeCap(endTime float64) float64 {
+	return math.Max(endTime, math.Min(16*endTime, 10e-6))
 }
 
 // squareMM formats an area in mm² (units.Format would put its prefix on the metre).

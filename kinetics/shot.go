@@ -89,15 +89,11 @@ func sample(x []float64, k, whole int, frac float64) float64 {
 	return x[j]*(1-frac) + x[j-1]*frac
 }
 
+// run takes the shot through its optical steps: before "dawn" only the pump and decay of the
+// populations, then pump, decay and both passes of every cell, until the end or until the
+// channel is dark for good; it records the waveforms and the gain map into res.
 func (sh *shot) run(res *Result) {
-	n, m, p := sh.d.Numerics.Cells, sh.med, sh.p
-	dt := p.TimeStep
-	hv := p.PhotonEnergy * p.OpticalArea
-	gamma0 := p.UpperDecayRate
-	kE := sh.d.Levels.UpperElectronMixing
-	a00 := p.EinsteinA00
-	mid := n / 2
-	colEvery := max(1, (sh.steps+sh.cols-1)/sh.cols)
+	n, p := sh.d.Numerics.Cells, sh.p
 	if !sh.light {
 		res.Z = make([]float64, n)
 		for i := range res.Z {
@@ -105,46 +101,17 @@ func (sh *shot) run(res *Result) {
 		}
 		res.Gain = make([][]float64, n)
 	}
-	// Decay factors depend on time only through the electrons (the constant electron mixing
-	// and the Born–Bethe/Lotz estimate); precompute per step.
-	eC := make([]float64, sh.steps)
-	wC := make([]float64, sh.steps)
-	for k := range eC {
-		g := gamma0 + kE*sh.wf.density[k]
-		if sh.wf.lossC != nil {
-			g += sh.wf.lossC[k]
-		}
-		em1 := math.Expm1(-g * dt)
-		eC[k], wC[k] = 1+em1, -em1/g
-	}
-	// The pump still to come bounds how much inversion can reappear: with the upper level
-	// decaying at least as fast as the lower one, a cell can regain at most
-	// ∫ max(0, P_C − g·P_B) dt from now on. Once that cannot lift any cell's gain-length over
-	// the channel above 0.1, what the channel can still emit is its spontaneous emission
-	// (amplified by at most 10 %) and the light in flight; when those are below 1e-6 of the
-	// light already out, the channel is dark for good: the optics stop, and a sweep's run ends.
-	// Photons in flight stay counted as such, so the photon balance stays exact.
-	maxDelay := 0
-	for _, w := range sh.delayWhole {
-		maxDelay = max(maxDelay, w+1)
-	}
-	invLeft := make([]float64, sh.steps+1)  // ∫ max(0, P_C − g·P_B) dt from step k on
-	pumpLeft := make([]float64, sh.steps+1) // ∫ P_C dt from step k on
-	for k := sh.steps - 1; k >= 0; k-- {
-		invLeft[k] = invLeft[k+1] + max(0, sh.wf.pumpC[k]-p.DegeneracyRatio*sh.wf.pumpB[k])*dt
-		pumpLeft[k] = pumpLeft[k+1] + sh.wf.pumpC[k]*dt
-	}
-	darkInversion := 0.1 / (p.CrossSection * sh.d.Channel.Length)
-	canGoDark := gamma0 >= p.LowerDecayRate
-	dark := false
+	colEvery := max(1, (sh.steps+sh.cols-1)/sh.cols)
+	eC, wC := sh.upperDecay()
+	rest := sh.pumpToCome()
 	// Before the discharge the channel neither amplifies nor holds an upper level worth its
 	// spontaneous emission; the optics start ("dawn") once any cell's inversion would amplify
 	// by 1e-3 over the channel length. Spontaneous photons not emitted before then would have
 	// left the channel unamplified, a part in 1e9 of a lasing pulse; the photon balance
 	// counts only what is emitted, so it stays exact.
-	lit := false
 	dawn := 1e-3 / (p.CrossSection * sh.d.Channel.Length)
-	pump := &pumpStep{uniform: sh.uniform, eB: sh.eB, wBh: 0.5 * a00 * sh.wB}
+	lit, dark := false, false
+	pump := &pumpStep{uniform: sh.uniform, eB: sh.eB, wBh: 0.5 * p.EinsteinA00 * sh.wB}
 	if !sh.uniform {
 		pump.es, pump.cps, pump.bps = make([]float64, n), make([]float64, n), make([]float64, n)
 	}
@@ -157,100 +124,178 @@ func (sh *shot) run(res *Result) {
 		}
 		var sum, maxInv float64
 		if lit && !dark {
-			// While the optics run: pump, decay and both passes of every cell in one sweep,
-			// each cell's gain factor following its populations (recomputed every 64 steps).
-			sh.fillPump(pump, k, eC, wC)
-			sh.lit++
-			front, rear := m.advance(k, pump, k%64 == 0)
-			sh.powerFront[k] = hv * front
-			sh.powerRear[k] = hv * rear
-			sum, maxInv = m.invSum, m.invMax
+			sum, maxInv = sh.stepLit(pump, k, eC, wC)
 		} else {
-			// Before dawn a simultaneous discharge keeps every cell alike: cell 0 stands for
-			// all of them until dawn.
-			one := sh.uniform && !lit
-			sh.pumpOnly(k, eC, wC, lit)
-			if !lit {
-				cells := n
-				if one {
-					cells = 1
-				}
-				for i := 0; i < cells; i++ {
-					if m.c[i]-m.g*m.b[i] > dawn {
-						lit = true
-						break
-					}
-				}
-				if lit && one {
-					for i := 1; i < n; i++ {
-						m.c[i], m.b[i] = m.c[0], m.b[0]
-					}
-				}
-			}
-			if lit {
-				m.resync()
-			}
-			if lit && !dark {
-				sh.lit++
-				front, rear := m.propagate(k)
-				sh.powerFront[k] = hv * front
-				sh.powerRear[k] = hv * rear
-			}
-			if lit || !one {
-				sum, maxInv = 0.0, math.Inf(-1)
-				for i := 0; i < n; i++ {
-					inv := m.c[i] - m.g*m.b[i]
-					sum += inv
-					if inv > maxInv {
-						maxInv = inv
-					}
-				}
-			} else {
-				maxInv = m.c[0] - m.g*m.b[0]
-				sum = maxInv * float64(n)
-			}
+			lit, sum, maxInv = sh.stepUnlit(pump, k, eC, wC, lit, dark, dawn)
 		}
-		if canGoDark && lit && !dark && maxInv+invLeft[max(0, k-maxDelay)] < darkInversion {
-			sumC := 0.0
-			for _, c := range m.c {
-				sumC += c
-			}
-			// Spontaneous photons per area still to come, both directions, amplified ≤ 10 %,
-			// A channel that absorbs lets out only what is emitted within 1/|g| of its ends:
-			// at most a fraction 1/(|g|·L) of it, with g the least absorbing cell's gain.
-			amp := 1.1
-			if gl := p.CrossSection * (maxInv + invLeft[max(0, k-maxDelay)]) * sh.d.Channel.Length; gl < -1 {
-				amp = -1 / gl
-			}
-			future := amp * 2 * m.spont * (sumC + float64(n)*pumpLeft[max(0, k-maxDelay)]) / gamma0
-			out := m.ledger.front + m.ledger.rear
-			dark = out > 0 && m.inFlight()+future < 1e-6*out
+		if lit && !dark {
+			dark = sh.dark(rest, k, maxInv)
 		}
-		g := p.CrossSection * sum / float64(n)
-		sh.meanGain[k] = g
-		at := mid // the cell whose populations are recorded
-		if sh.uniform && !lit {
-			at = 0
-		}
-		sh.midC[k], sh.midB[k] = m.c[at], m.b[at]
-		gm := p.CrossSection * (m.c[at] - m.g*m.b[at])
-		if gm > sh.peakGain {
-			sh.peakGain = gm
-		}
-		sh.peakGainLength = max(sh.peakGainLength, g*sh.d.Channel.Length)
-		if !sh.light && k%colEvery == 0 {
-			res.GainTime = append(res.GainTime, (float64(k)+1)*dt)
-			for i := 0; i < n; i++ {
-				j := i
-				if sh.uniform && !lit {
-					j = 0
-				}
-				res.Gain[i] = append(res.Gain[i], p.CrossSection*(m.c[j]-m.g*m.b[j]))
-			}
-		}
+		sh.record(res, k, sum, lit, colEvery)
 	}
 	res.Stats.OpticalSteps = sh.lit
 	res.Stats.Cells = n
+}
+
+// upperDecay returns the decay factor e^(−Γ_C Δt) and the pump weight (1 − e^(−Γ_C Δt))/Γ_C of
+// C(0) for every step: they depend on time only through n_e (electron mixing).
+func (sh *shot) upperDecay() (eC, wC []float64) {
+	dt, gamma0, kE := sh.p.TimeStep, sh.p.UpperDecayRate, sh.d.Levels.UpperElectronMixing
+	eC, wC = make([]float64, sh.steps), make([]float64, sh.steps)
+	for k := range eC {
+		g := gamma0 + kE*sh.wf.density[k]
+		if sh.wf.lossC != nil {
+			g += sh.wf.lossC[k] // the Born–Bethe/Lotz estimate of electron collisions
+		}
+		em1 := math.Expm1(-g * dt)
+		eC[k], wC[k] = 1+em1, -em1/g
+	}
+	return eC, wC
+}
+
+// pumpAhead is the pump still to come from each step on, which bounds how much inversion can
+// reappear in a cell (see shot.dark).
+type pumpAhead struct {
+	inv      []float64 // ∫ max(0, P_C − g·P_B) dt from step k on [m⁻³]
+	upper    []float64 // ∫ P_C dt from step k on [m⁻³]
+	maxDelay int       // the longest excitation delay of a cell, in whole steps plus one
+}
+
+// at returns the index into the integrals for step k, early by the longest delay.
+func (a *pumpAhead) at(k int) int { return max(0, k-a.maxDelay) }
+
+func (sh *shot) pumpToCome() *pumpAhead {
+	dt, g := sh.p.TimeStep, sh.p.DegeneracyRatio
+	a := &pumpAhead{inv: make([]float64, sh.steps+1), upper: make([]float64, sh.steps+1)}
+	for _, w := range sh.delayWhole {
+		a.maxDelay = max(a.maxDelay, w+1)
+	}
+	for k := sh.steps - 1; k >= 0; k-- {
+		a.inv[k] = a.inv[k+1] + max(0, sh.wf.pumpC[k]-g*sh.wf.pumpB[k])*dt
+		a.upper[k] = a.upper[k+1] + sh.wf.pumpC[k]*dt
+	}
+	return a
+}
+
+// stepLit is one step while the optics run: pump, decay and both passes of every cell in one
+// sweep, each cell's gain factor following its populations (recomputed every 64 steps). It
+// returns the sum and the largest inversion of the cells [m⁻³].
+func (sh *shot) stepLit(pump *pumpStep, k int, eC, wC []float64) (sum, maxInv float64) {
+	hv := sh.p.PhotonEnergy * sh.p.OpticalArea
+	sh.fillPump(pump, k, eC, wC)
+	sh.lit++
+	front, rear := sh.med.advance(k, pump, k%64 == 0)
+	sh.powerFront[k] = hv * front
+	sh.powerRear[k] = hv * rear
+	return sh.med.invSum, sh.med.invMax
+}
+
+// stepUnlit is one step while the optics do not run, before dawn or after dark: pump and decay
+// only, and the check for dawn (at which the step also propagates). Before dawn a simultaneous
+// discharge keeps every cell alike: cell 0 stands for all of them until dawn. It returns
+// whether the channel is lit and the sum and the largest inversion of the cells [m⁻³].
+func (sh *shot) stepUnlit(pump *pumpStep, k int, eC, wC []float64, lit, dark bool, dawn float64) (bool, float64, float64) {
+	n, m := sh.d.Numerics.Cells, sh.med
+	hv := sh.p.PhotonEnergy * sh.p.OpticalArea
+	one := sh.uniform && !lit
+	sh.pumpOnly(pump, k, eC, wC, lit)
+	if !lit {
+		cells := n
+		if one {
+			cells = 1
+		}
+		for i := 0; i < cells; i++ {
+			if m.c[i]-m.g*m.b[i] > dawn {
+				lit = true
+				break
+			}
+		}
+		if lit && one {
+			for i := 1; i < n; i++ {
+				m.c[i], m.b[i] = m.c[0], m.b[0]
+			}
+		}
+	}
+	if lit {
+		m.resync()
+	}
+	if lit && !dark {
+		sh.lit++
+		front, rear := m.propagate(k)
+		sh.powerFront[k] = hv * front
+		sh.powerRear[k] = hv * rear
+	}
+	if !lit && one {
+		inv := m.c[0] - m.g*m.b[0]
+		return lit, inv * float64(n), inv
+	}
+	sum, maxInv := 0.0, math.Inf(-1)
+	for i := 0; i < n; i++ {
+		inv := m.c[i] - m.g*m.b[i]
+		sum += inv
+		if inv > maxInv {
+			maxInv = inv
+		}
+	}
+	return lit, sum, maxInv
+}
+
+// dark reports whether the lit channel at step k, with largest inversion maxInv, is dark for
+// good. With the upper level decaying at least as fast as the lower one, a cell can regain at
+// most ∫ max(0, P_C − g·P_B) dt from now on. Once that cannot lift any cell's gain-length over
+// the channel above 0.1, what the channel can still emit is its spontaneous emission
+// (amplified by at most 10 %) and the light in flight; when those are below 1e-6 of the light
+// already out, the channel is dark: the optics stop, and a sweep's run ends. Photons in flight
+// stay counted as such, so the photon balance stays exact.
+func (sh *shot) dark(rest *pumpAhead, k int, maxInv float64) bool {
+	p, m, n := sh.p, sh.med, sh.d.Numerics.Cells
+	darkInversion := 0.1 / (p.CrossSection * sh.d.Channel.Length)
+	j := rest.at(k)
+	if !(p.UpperDecayRate >= p.LowerDecayRate) || !(maxInv+rest.inv[j] < darkInversion) {
+		return false
+	}
+	sumC := 0.0
+	for _, c := range m.c {
+		sumC += c
+	}
+	// Spontaneous photons per area still to come, both directions, amplified ≤ 10 %,
+	// A channel that absorbs lets out only what is emitted within 1/|g| of its ends:
+	// at most a fraction 1/(|g|·L) of it, with g the least absorbing cell's gain.
+	amp := 1.1
+	if gl := p.CrossSection * (maxInv + rest.inv[j]) * sh.d.Channel.Length; gl < -1 {
+		amp = -1 / gl
+	}
+	future := amp * 2 * m.spont * (sumC + float64(n)*rest.upper[j]) / p.UpperDecayRate
+	out := m.ledger.front + m.ledger.rear
+	return out > 0 && m.inFlight()+future < 1e-6*out
+}
+
+// record keeps step k of the channel-mean gain, the populations of the middle cell, the peak
+// gain and, every colEvery steps unless light, a column of the gain map.
+func (sh *shot) record(res *Result, k int, sum float64, lit bool, colEvery int) {
+	n, m, p := sh.d.Numerics.Cells, sh.med, sh.p
+	g := p.CrossSection * sum / float64(n)
+	sh.meanGain[k] = g
+	at := n / 2 // the cell whose populations are recorded
+	if sh.uniform && !lit {
+		at = 0
+	}
+	sh.midC[k], sh.midB[k] = m.c[at], m.b[at]
+	gm := p.CrossSection * (m.c[at] - m.g*m.b[at])
+	if gm > sh.peakGain {
+		sh.peakGain = gm
+	}
+	sh.peakGainLength = max(sh.peakGainLength, g*sh.d.Channel.Length)
+	if !sh.light && k%colEvery == 0 {
+		res.GainTime = append(res.GainTime, (float64(k)+1)*p.TimeStep)
+		for i := 0; i < n; i++ {
+			j := i
+			if sh.uniform && !lit {
+				j = 0
+			}
+			res.Gain[i] = append(res.Gain[i], p.CrossSection*(m.c[j]-m.g*m.b[j]))
+		}
+	}
 }
 
 // fillPump sets the pump and decay factors of every cell for step k: one value for all
@@ -277,37 +322,15 @@ func (sh *shot) fillPump(ps *pumpStep, k int, eC, wC []float64) {
 
 // pumpOnly advances the populations of every cell through the pump and decay of step k
 // while the optics do not run (before dawn and after dark); before dawn a simultaneous
-// discharge keeps every cell alike, so only cell 0 is stepped (shot.run copies it at dawn).
-func (sh *shot) pumpOnly(k int, eC, wC []float64, lit bool) {
-	n, m, a00 := sh.d.Numerics.Cells, sh.med, sh.p.EinsteinA00
-	cs, bs := m.c[:n], m.b[:n]
-	if sh.uniform {
-		cells := n
-		if !lit {
-			cells = 1
-		}
-		pc, pb, e, w := sh.wf.pumpC[k], sh.wf.pumpB[k], eC[k], wC[k]
-		sh.pumpPeak = max(sh.pumpPeak, pc)
-		pcw, pbw, eB, wBh := pc*w, pb*sh.wB, sh.eB, 0.5*a00*sh.wB
-		for i := 0; i < cells; i++ {
-			c0, b0 := cs[i], bs[i]
-			c1 := c0*e + pcw
-			cs[i], bs[i] = c1, b0*eB+pbw+wBh*(c0+c1)
-		}
-		return
+// discharge keeps every cell alike, so only cell 0 is stepped (shot.stepUnlit copies it at
+// dawn). It is the pump and decay of the lit steps (medium.pump) without the gain factors.
+func (sh *shot) pumpOnly(ps *pumpStep, k int, eC, wC []float64, lit bool) {
+	cells := sh.d.Numerics.Cells
+	if sh.uniform && !lit {
+		cells = 1
 	}
-	for i := 0; i < n; i++ {
-		w, f := sh.delayWhole[i], sh.delayFrac[i]
-		pc := sample(sh.wf.pumpC, k, w, f)
-		pb := sample(sh.wf.pumpB, k, w, f)
-		j := max(0, min(k-w, sh.steps-1))
-		c0, b0 := cs[i], bs[i]
-		c1 := c0*eC[j] + pc*wC[j]
-		cs[i], bs[i] = c1, b0*sh.eB+(pb+a00*0.5*(c0+c1))*sh.wB
-		if i == n/2 {
-			sh.pumpPeak = max(sh.pumpPeak, pc)
-		}
-	}
+	sh.fillPump(ps, k, eC, wC)
+	sh.med.pump(ps, cells, false)
 }
 
 // summarise computes the figures of merit and, unless light, fills the waveforms.
@@ -497,8 +520,10 @@ func pulseWidth(p []float64, dt float64) (centre, fwhm float64) {
 	return centre, 2 * math.Sqrt(2*math.Ln2) * math.Sqrt(s2/s0)
 }
 
-// unfinished reports whether the run ended while the output-end power or the channel-mean
-// gain was still above a tenth of its peak.
+// unfinished reports whether the shot was still going at its last step: the output-end
+// power or the channel-mean gain above a tenth of its peak, or the discharge still building
+// up (the channel voltage or the pump into C(0) at least half its peak, which came in the
+// last tenth of the run).
 func (sh *shot) unfinished() bool {
 	last := sh.steps - 1
 	if last < 0 {
@@ -506,7 +531,23 @@ func (sh *shot) unfinished() bool {
 	}
 	pk, _ := peak(sh.powerFront)
 	gp, _ := peak(sh.meanGain)
-	return (pk > 0 && sh.powerFront[last] > 0.1*pk) || (gp > 0 && sh.meanGain[last] > 0.1*gp)
+	return (pk > 0 && sh.powerFront[last] > 0.1*pk) || (gp > 0 && sh.meanGain[last] > 0.1*gp) ||
+		rising(sh.wf.pumpC) || rising(sh.wf.voltage)
+}
+
+// rising reports whether |x| peaks in the last tenth of the series and ends at no less than
+// half that peak: a quantity still building up when the run ends.
+func rising(x []float64) bool {
+	last := len(x) - 1
+	if last < 0 {
+		return false
+	}
+	k := floats.MaxIdx(x)
+	if i := floats.MinIdx(x); -x[i] > x[k] {
+		k = i
+	}
+	p := math.Abs(x[k])
+	return p > 0 && k >= last-last/10 && math.Abs(x[last]) >= 0.5*p
 }
 
 // apertureSolidAngle is the solid angle [sr] of the channel's cross-section seen from its far

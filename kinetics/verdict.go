@@ -63,8 +63,8 @@ func limitingCause(d *design.Design, r *Result, gl float64) (cause, advice strin
 	}
 	slow := func() (string, string) {
 		note := ""
-		if rise > d.Numerics.EndTime {
-			note = fmt.Sprintf(", beyond the simulated %s", units.Format(d.Numerics.EndTime, "s"))
+		if rise > s.EndTime {
+			note = fmt.Sprintf(", beyond the simulated %s", units.Format(s.EndTime, "s"))
 		}
 		return fmt.Sprintf("current rise too slow: the channel voltage peaks %s after closure%s, %.2g × the effective C(0) lifetime %s",
 				units.Format(rise, "s"), note, rise/tauEff, units.Format(tauEff, "s")),

@@ -31,6 +31,15 @@ func (g gainGrid) Y(r int) float64    { return g.z[r] }
 // at least two values each; NaN gains are left blank. Where the gain changes sign (absorption
 // after self-termination) the palette is diverging and centred on zero.
 func GainMap(path string, z, t []float64, gain [][]float64) error {
+	return GainMapEnds(path, z, t, gain, Ends{})
+}
+
+// Ends are the reflectivities of the channel's ends, which the gain map names: the rear end at
+// z = 0 and the output end at z = L (0 for an open end).
+type Ends struct{ Rear, Front float64 }
+
+// GainMapEnds is GainMap with the ends named in the title and on the position axis.
+func GainMapEnds(path string, z, t []float64, gain [][]float64, ends Ends) error {
 	if _, err := figureFormat(path); err != nil {
 		return err
 	}
@@ -82,9 +91,12 @@ func GainMap(path string, z, t []float64, gain [][]float64) error {
 
 	p := plot.New()
 	printStyle(p)
-	p.Title.Text = "gain g(z, t)"
-	p.X.Label.Text = "time [ns]"
-	p.Y.Label.Text = "position along the channel [cm]"
+	L := 100 * z[len(z)-1]
+	p.Title.Text = fmt.Sprintf("small-signal gain g(z, t)\nrear end at z = 0%s, output end at z = %.3g cm%s",
+		mirrorText(ends.Rear), L, mirrorText(ends.Front))
+	p.X.Label.Text = "time after switch closure [ns]"
+	p.Y.Label.Text = "position z [cm]"
+	p.Y.Tick.Marker = endTicks{L: L}
 	p.Add(hm)
 
 	bar := plot.New()
@@ -121,4 +133,27 @@ func checkAxis(name string, v []float64) error {
 		}
 	}
 	return nil
+}
+
+// mirrorText is ", mirror R = 0.9" for a reflecting end, "" for an open one.
+func mirrorText(r float64) string {
+	if r > 0 {
+		return fmt.Sprintf(" (mirror R = %.3g)", r)
+	}
+	return ""
+}
+
+// endTicks labels the position axis with numbers and the two ends by name (L [cm] is the
+// channel length shown beside the output end).
+type endTicks struct{ L float64 }
+
+// Ticks implements plot.Ticker.
+func (e endTicks) Ticks(min, max float64) []plot.Tick {
+	ts := niceTicks{}.Ticks(min, max)
+	for i := range ts {
+		if near := 0.04 * (max - min); ts[i].Label != "" && (ts[i].Value-min < near || max-ts[i].Value < near) {
+			ts[i].Label = "" // named below
+		}
+	}
+	return append(ts, plot.Tick{Value: min, Label: "rear 0"}, plot.Tick{Value: max, Label: "output " + numberText(e.L)})
 }

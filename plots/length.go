@@ -18,41 +18,66 @@ import (
 // lengthColors are the curve colours: the design as given, then the travelling wave.
 var lengthColors = []color.Color{color.RGBA{B: 170, A: 255}, color.RGBA{R: 200, G: 60, A: 255}}
 
-// lengthPanel is one quantity of the length figure, in display units.
-type lengthPanel struct {
-	label string
-	scale float64 // SI value × scale = displayed value
-	get   func(s kinetics.Summary) float64
-}
-
-var lengthPanels = []lengthPanel{
-	{"output-end energy [µJ]", 1e6, func(s kinetics.Summary) float64 { return s.EnergyFront }},
-	{"peak power [kW]", 1e-3, func(s kinetics.Summary) float64 { return s.PeakPower }},
-	{"FWHM [ns]", 1e9, func(s kinetics.Summary) float64 { return s.FWHM }},
+// lengthPanels are the quantities of the length figure, by their table keys (LabelOf gives
+// the words and units).
+var lengthPanels = []struct {
+	key string
+	get func(s kinetics.Summary) float64
+}{
+	{"energy_front_J", func(s kinetics.Summary) float64 { return s.EnergyFront }},
+	{"peak_power_W", func(s kinetics.Summary) float64 { return s.PeakPower }},
+	{"fwhm_s", func(s kinetics.Summary) float64 { return s.FWHM }},
 }
 
 // LengthFigure draws a length scan as base.png and base.svg: output-end energy, peak power and
-// FWHM against channel length in three panels, one curve per excitation velocity. On the energy
-// panel a solid vertical line marks each curve's useful length and a dashed one its transit-time
-// estimate c·τ_g. It returns the files written.
+// pulse width against channel length in three panels on one length axis, one curve per
+// excitation velocity. A solid vertical line on every panel marks each curve's useful length
+// (one rule for all curves, study.UsefulLengthRule, named in the title) and a dashed one its
+// transit-time estimate c·τ_g when that lies within the scan (the legend gives it either way).
+// It returns the files written.
 func LengthFigure(r *study.LengthResult, base string) ([]string, error) {
-	if len(r.Curves) == 0 {
+	if len(r.Curves) == 0 || len(r.Curves[0].Points) == 0 {
 		return nil, fmt.Errorf("plots: length scan has no curve")
 	}
+	pts := r.Curves[0].Points
+	xlo, xhi := 100*pts[0].Length, 100*pts[len(pts)-1].Length
+	if !(xhi > xlo) {
+		return nil, fmt.Errorf("plots: length scan spans no length (%g cm to %g cm)", xlo, xhi)
+	}
 	rows := make([][]*plot.Plot, len(lengthPanels))
+	key := plot.New() // the legend, in a strip of its own above the panels
+	key.HideAxes()
+	key.Legend.Top, key.Legend.Left = true, true
+	key.Legend.XOffs = 1.5 * vg.Centimeter
 	for k, pan := range lengthPanels {
-		p := plot.New()
-		printStyle(p)
-		p.Y.Label.Text = pan.label
+		var p *plot.Plot
+		lbl := LabelOf(pan.key)
+		var all []float64
+		for _, cur := range r.Curves {
+			for _, pt := range cur.Points {
+				if pt.Err == nil {
+					all = append(all, pan.get(pt.Summary))
+				}
+			}
+		}
+		scale, _ := lbl.Display(maxAbs(all))
+		p = plot.New()
+		p.Y.Label.Text = lbl.AxisTitle(maxAbs(all))
+		p.X.Min, p.X.Max = xlo, xhi
+		p.X.Tick.Marker = niceTicks{}
 		if k == len(lengthPanels)-1 {
 			p.X.Label.Text = "channel length [cm]"
+		} else {
+			p.X.Tick.Marker = unlabelled{niceTicks{}}
 		}
+		printStyle(p)
 		top := 0.0
 		for c, cur := range r.Curves {
 			var xy plotter.XYs
 			for _, pt := range cur.Points {
-				if pt.Err == nil {
-					v := pan.scale * pan.get(pt.Summary)
+				// A width means nothing where the laser does not lase: leave a gap.
+				if pt.Err == nil && !(lbl.Minimise && !pt.Summary.Lases) {
+					v := scale * pan.get(pt.Summary)
 					xy = append(xy, plotter.XY{X: 100 * pt.Length, Y: v})
 					top = math.Max(top, v)
 				}
@@ -67,19 +92,25 @@ func LengthFigure(r *study.LengthResult, base string) ([]string, error) {
 			l.Color, s.Color = lengthColors[c%2], lengthColors[c%2]
 			p.Add(l, s)
 			if k == 0 {
-				p.Legend.Add(velocityName(cur.Velocity), l)
+				key.Legend.Add(velocityName(cur.Velocity), l)
 			}
 		}
-		if k == 0 {
-			for c, cur := range r.Curves {
-				for _, m := range []struct {
-					x      float64
-					dashed bool
-					name   string
-				}{{cur.Useful, false, "useful length"}, {cur.Transit, true, "c·τ_g"}} {
-					if math.IsNaN(m.x) || top == 0 {
-						continue
+		p.Y.Min = 0
+		for c, cur := range r.Curves {
+			for _, m := range []struct {
+				x      float64
+				dashed bool
+				name   string
+			}{{cur.Useful, false, "useful length"}, {cur.Transit, true, "c·τ_g"}} {
+				if math.IsNaN(m.x) || top == 0 {
+					if k == 0 && m.name == "useful length" {
+						key.Legend.Add(fmt.Sprintf("no useful length (%s)", velocityName(cur.Velocity)))
 					}
+					continue
+				}
+				inside := 100*m.x >= xlo && 100*m.x <= xhi
+				var line *plotter.Line
+				if inside {
 					l, err := plotter.NewLine(plotter.XYs{{X: 100 * m.x, Y: 0}, {X: 100 * m.x, Y: top}})
 					if err != nil {
 						return nil, fmt.Errorf("plots: %w", err)
@@ -89,20 +120,32 @@ func LengthFigure(r *study.LengthResult, base string) ([]string, error) {
 						l.Dashes = []vg.Length{vg.Points(4), vg.Points(3)}
 					}
 					p.Add(l)
-					p.Legend.Add(fmt.Sprintf("%s %.3g cm (%s)", m.name, 100*m.x, velocityName(cur.Velocity)), l)
+					line = l
+				}
+				if k == 0 {
+					text := fmt.Sprintf("%s %.3g cm (%s)", m.name, 100*m.x, velocityName(cur.Velocity))
+					if !inside {
+						text += ", beyond the scan"
+					}
+					if line != nil {
+						key.Legend.Add(text, line)
+					} else {
+						key.Legend.Add(text)
+					}
 				}
 			}
-			// Lower left: the curves rise from there, leaving it empty.
-			p.Legend.Top = false
-			p.Legend.Left = true
-			p.Legend.XOffs = vg.Points(60)
-			p.Legend.YOffs = vg.Points(6)
-			p.Title.Text = "channel length scan"
+		}
+		if k == 0 {
+			key.Title.Text = "channel length scan\nuseful length: " + study.UsefulLengthRule
 		}
 		rows[k] = []*plot.Plot{p}
 	}
-	w, h := 16*vg.Centimeter, 22*vg.Centimeter
+	printStyle(key)
+	strip := vg.Length(3*len(r.Curves))*0.36*vg.Centimeter + 1.1*vg.Centimeter
+	w, h := 16*vg.Centimeter, 22*vg.Centimeter+strip
 	return studySave(base, w, h, func(c draw.Canvas) {
+		key.Draw(draw.Crop(c, 0, 0, h-strip, 0))
+		c = draw.Crop(c, 0, 0, 0, -strip)
 		tiles := draw.Tiles{Rows: len(rows), Cols: 1, PadTop: vg.Points(4), PadBottom: vg.Points(4), PadX: vg.Points(4), PadY: vg.Points(6)}
 		canvases := plot.Align(rows, tiles, c)
 		for i := range rows {

@@ -8,7 +8,10 @@ import (
 	"testing"
 )
 
+// Overlay writes a PNG through a temporary file and leaves none behind (the figure's content
+// is checked in TestOverlayFigureContent).
 func TestOverlayWritesPNG(t *testing.T) {
+	t.Parallel()
 	dir := t.TempDir()
 	path := filepath.Join(dir, "gap.png")
 	err := Overlay(path, OverlayData{
@@ -34,6 +37,7 @@ func TestOverlayWritesPNG(t *testing.T) {
 }
 
 func TestOverlayErrors(t *testing.T) {
+	t.Parallel()
 	dir := t.TempDir()
 	if err := Overlay(filepath.Join(dir, "a.png"), OverlayData{ModelX: []float64{1}}); err == nil {
 		t.Error("unpaired model values accepted")

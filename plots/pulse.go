@@ -24,23 +24,81 @@ type PulseData struct {
 	// UpperLevel and LowerLevel populations [m⁻³], PowerFront and PowerRear output power at
 	// each end [W].
 	ChannelVoltage, Current, ReducedField, ElectronDensity, UpperLevel, LowerLevel, PowerFront, PowerRear []float64
-	// FWHMStart and FWHMEnd are the half-maximum crossings of the total output [s]; 0, 0 if
-	// there are none.
+	// FWHMStart and FWHMEnd are the first and last half-maximum crossings of the output-end
+	// pulse [s] (HalfMaxCrossings); 0, 0 if there are none.
 	FWHMStart, FWHMEnd float64
+	// RearReflectivity and FrontReflectivity name the ends in the legend ("rear end, mirror
+	// R = 0.9"); 0 for an open end.
+	RearReflectivity, FrontReflectivity float64
+}
+
+// HalfMaxCrossings returns the first and last times at which p reaches half its maximum,
+// interpolated linearly between samples; 0, 0 when p has no positive maximum.
+func HalfMaxCrossings(t, p []float64) (start, end float64) {
+	if len(t) != len(p) || len(p) < 2 {
+		return 0, 0
+	}
+	top := maxAbs(p)
+	if !(top > 0) {
+		return 0, 0
+	}
+	half := top / 2
+	first, last := -1, -1
+	for i, v := range p {
+		if v >= half {
+			if first < 0 {
+				first = i
+			}
+			last = i
+		}
+	}
+	start, end = t[first], t[last]
+	if first > 0 {
+		f := (half - p[first-1]) / (p[first] - p[first-1])
+		start = t[first-1] + f*(t[first]-t[first-1])
+	}
+	if last < len(p)-1 {
+		f := (p[last] - half) / (p[last] - p[last+1])
+		end = t[last] + f*(t[last+1]-t[last])
+	}
+	return start, end
+}
+
+// pulseWindow returns the time span [ns] the power panel shows: where the total output exceeds
+// 1 % of its peak, widened by half its length on each side (and at least 1 ns in all), within
+// the run. Without output it is the whole run.
+func pulseWindow(t, total []float64) (lo, hi float64) {
+	lo, hi = t[0], t[len(t)-1]
+	top := maxAbs(total)
+	if !(top > 0) {
+		return lo, hi
+	}
+	a, b := -1, -1
+	for i, v := range total {
+		if v > 0.01*top {
+			if a < 0 {
+				a = i
+			}
+			b = i
+		}
+	}
+	w := math.Max(t[b]-t[a], 1)
+	return math.Max(t[0], t[a]-w/2), math.Min(t[len(t)-1], t[b]+w/2)
 }
 
 // Colours of the pulse report's curves.
 var (
-	colVoltage = color.RGBA{R: 20, G: 70, B: 190, A: 255}
-	colCurrent = color.RGBA{R: 200, G: 40, B: 30, A: 255}
-	colField   = color.RGBA{R: 20, G: 130, B: 60, A: 255}
-	colDensity = color.RGBA{R: 120, G: 40, B: 160, A: 255}
-	colUpper   = color.RGBA{R: 20, G: 70, B: 190, A: 255}
-	colLower   = color.RGBA{R: 230, G: 130, B: 0, A: 255}
-	colFront   = color.RGBA{R: 200, G: 40, B: 30, A: 255}
-	colRear    = color.RGBA{R: 20, G: 70, B: 190, A: 255}
-	colTotal   = color.RGBA{R: 110, G: 110, B: 110, A: 255}
-	colMark    = color.RGBA{A: 255}
+	colVoltage    = color.RGBA{R: 20, G: 70, B: 190, A: 255}
+	colCurrent    = color.RGBA{R: 200, G: 40, B: 30, A: 255}
+	colField      = color.RGBA{R: 20, G: 130, B: 60, A: 255}
+	colDensity    = color.RGBA{R: 120, G: 40, B: 160, A: 255}
+	colUpper      = color.RGBA{R: 20, G: 70, B: 190, A: 255}
+	colLower      = color.RGBA{R: 230, G: 130, B: 0, A: 255}
+	colFront      = color.RGBA{R: 200, G: 40, B: 30, A: 255}
+	colFrontLight = color.RGBA{R: 240, G: 140, B: 120, A: 255}
+	colRear       = color.RGBA{R: 20, G: 70, B: 190, A: 255}
+	colTotal      = color.RGBA{R: 110, G: 110, B: 110, A: 255}
+	colMark       = color.RGBA{A: 255}
 )
 
 // PulseReport draws the pulse report of one shot into path (.png or .svg): five panels
@@ -55,21 +113,33 @@ func PulseReport(path string, r PulseData) error {
 		return err
 	}
 	t := scaled(r.Time, 1e9)
+	lo, hi := pulseWindow(t, r.totalPower())
 	panels := []*plot.Plot{
 		r.circuitPanel(t), r.fieldPanel(t), r.densityPanel(t), r.populationPanel(t), r.powerPanel(t),
 	}
+	last := len(panels) - 1
 	for i, p := range panels {
 		printStyle(p)
 		p.X.Min, p.X.Max = t[0], t[len(t)-1]
+		if i == last {
+			p.X.Min, p.X.Max = lo, hi
+		}
 		grid := plotter.NewGrid()
 		grid.Vertical.Color = nil // the upper panels have no labelled time ticks to align with
 		p.Add(grid)
 		p.Legend.Top = true
 		p.Legend.TextStyle.Font.Size = legendSize
-		if i < len(panels)-1 {
+		switch {
+		case i == last:
+			p.X.Label.Text = "time after switch closure [ns], zoomed on the pulse"
+		case i == last-1:
+			p.X.Label.Text = "time after switch closure [ns]"
+		default:
 			p.X.Tick.Marker = unlabelled{niceTicks{}}
-		} else {
-			p.X.Label.Text = "time [ns]"
+		}
+		if i < last && (lo > t[0] || hi < t[len(t)-1]) {
+			// The span the power panel shows, shaded on the panels above.
+			p.Add(shade(lo, hi))
 		}
 	}
 	panels[0].Title.Text = r.Title
@@ -78,7 +148,7 @@ func PulseReport(path string, r PulseData) error {
 		rows[i] = []*plot.Plot{p}
 	}
 	tiles := draw.Tiles{Rows: len(panels), Cols: 1, PadTop: vg.Millimeter, PadBottom: vg.Millimeter,
-		PadLeft: vg.Millimeter, PadRight: 3 * vg.Millimeter, PadY: 2 * vg.Millimeter}
+		PadLeft: vg.Millimeter, PadRight: 3 * vg.Millimeter, PadY: 4 * vg.Millimeter}
 	w, h := 16*vg.Centimeter, 24*vg.Centimeter
 	return saveCanvas(path, w, h, func(c draw.Canvas) {
 		canvases := plot.Align(rows, tiles, c)
@@ -154,31 +224,64 @@ func (r *PulseData) populationPanel(t []float64) *plot.Plot {
 	return p
 }
 
-func (r *PulseData) powerPanel(t []float64) *plot.Plot {
-	p := plot.New()
-	var total []float64
-	if len(r.PowerFront) > 0 && len(r.PowerRear) > 0 {
-		total = make([]float64, len(t))
+// totalPower is the output of both ends (or the one given).
+func (r *PulseData) totalPower() []float64 {
+	switch {
+	case len(r.PowerFront) > 0 && len(r.PowerRear) > 0:
+		total := make([]float64, len(r.PowerFront))
 		for i := range total {
 			total[i] = r.PowerFront[i] + r.PowerRear[i]
 		}
-	} else if len(r.PowerFront) > 0 {
-		total = r.PowerFront
-	} else {
-		total = r.PowerRear
+		return total
+	case len(r.PowerFront) > 0:
+		return r.PowerFront
 	}
+	return r.PowerRear
+}
+
+// endName names an end for the legend: "output end (z = L)", "rear end, mirror R = 0.9 (z = 0)".
+func endName(end string, z string, refl float64) string {
+	if refl > 0 {
+		return fmt.Sprintf("%s end, mirror R = %.3g (z = %s)", end, refl, z)
+	}
+	return fmt.Sprintf("%s end (z = %s)", end, z)
+}
+
+func (r *PulseData) powerPanel(t []float64) *plot.Plot {
+	p := plot.New()
+	total := r.totalPower()
 	f, u := siScale(maxAbs(total), "W")
-	addCurve(p, t, r.PowerFront, f, "front end", colFront, false, false)
-	addCurve(p, t, r.PowerRear, f, "rear end", colRear, true, false)
-	if len(r.PowerFront) > 0 && len(r.PowerRear) > 0 {
-		addCurve(p, t, total, f, "total", colTotal, false, false)
+	// The output end wide and light, the rear end thin and dashed on top: both stay visible
+	// when they coincide (a channel without mirrors).
+	if l := addCurveStyled(p, t, r.PowerFront, f, colFrontLight, nil, 2.8); l != nil {
+		p.Legend.Add(endName("output", "L", r.FrontReflectivity), l)
 	}
-	p.Y.Label.Text = "power [" + u + "]"
+	if l := addCurveStyled(p, t, r.PowerRear, f, colRear, []vg.Length{vg.Points(4), vg.Points(2)}, 1); l != nil {
+		p.Legend.Add(endName("rear", "0", r.RearReflectivity), l)
+	}
+	if len(r.PowerFront) > 0 && len(r.PowerRear) > 0 {
+		addCurve(p, t, total, f, "both ends", colTotal, false, false)
+	}
+	p.Y.Label.Text = "output power [" + u + "]"
 	p.Y.Min = 0
-	if r.FWHMEnd > r.FWHMStart && maxAbs(total) > 0 {
-		markFWHM(p, 1e9*r.FWHMStart, 1e9*r.FWHMEnd, 0.5*f*maxAbs(total))
+	if r.FWHMEnd > r.FWHMStart && maxAbs(r.PowerFront) > 0 {
+		markFWHM(p, 1e9*r.FWHMStart, 1e9*r.FWHMEnd, 0.5*f*maxAbs(r.PowerFront))
 	}
 	return p
+}
+
+// shade is a translucent grey band from x = lo to hi over the full height of a panel.
+func shade(lo, hi float64) plot.Plotter { return band{lo, hi} }
+
+// band is the plotter of shade.
+type band struct{ lo, hi float64 }
+
+// Plot implements plot.Plotter.
+func (b band) Plot(c draw.Canvas, p *plot.Plot) {
+	trX, _ := p.Transforms(&c)
+	x0, x1 := trX(b.lo), trX(b.hi)
+	c.FillPolygon(color.NRGBA{R: 120, G: 120, B: 120, A: 40}, []vg.Point{
+		{X: x0, Y: c.Min.Y}, {X: x1, Y: c.Min.Y}, {X: x1, Y: c.Max.Y}, {X: x0, Y: c.Max.Y}})
 }
 
 // markFWHM draws dashed verticals at the half-maximum crossings a and b [ns], a bar between
@@ -199,9 +302,9 @@ func markFWHM(p *plot.Plot, a, b, half float64) {
 		p.Add(bar)
 	}
 	width := b - a
-	text := fmt.Sprintf("FWHM %.3g ns", width)
+	text := fmt.Sprintf("half maximum, output end: %.3g ns", width)
 	if width < 1 {
-		text = fmt.Sprintf("FWHM %.3g ps", 1e3*width)
+		text = fmt.Sprintf("half maximum, output end: %.3g ps", 1e3*width)
 	}
 	lab, err := plotter.NewLabels(plotter.XYLabels{XYs: plotter.XYs{{X: b, Y: half}}, Labels: []string{text}})
 	if err == nil {
@@ -275,4 +378,33 @@ func (u unlabelled) Ticks(min, max float64) []plot.Tick {
 		ts[i].Label = ""
 	}
 	return ts
+}
+
+// addCurveStyled adds v·factor against t as one or more lines (broken at NaN) of the given
+// colour, dashes and width [pt]; it returns the first line, or nil when nothing was drawn.
+func addCurveStyled(p *plot.Plot, t, v []float64, factor float64, col color.Color, dashes []vg.Length, width float64) *plotter.Line {
+	var first *plotter.Line
+	var cur plotter.XYs
+	flush := func() {
+		if len(cur) == 0 {
+			return
+		}
+		if l, err := plotter.NewLine(cur); err == nil {
+			l.Color, l.Width, l.Dashes = col, vg.Points(width), dashes
+			p.Add(l)
+			if first == nil {
+				first = l
+			}
+		}
+		cur = nil
+	}
+	for i, x := range v {
+		if y := x * factor; math.IsNaN(y) || math.IsInf(y, 0) {
+			flush()
+		} else {
+			cur = append(cur, plotter.XY{X: t[i], Y: y})
+		}
+	}
+	flush()
+	return first
 }

@@ -64,5 +64,6 @@ func Spectrum(path string, d SpectrumData) error {
 	p.Legend.Top = true
 	p.Legend.Left = true
 	p.Add(plotter.NewGrid())
-	return savePlot(path, p, 7*vg.Inch, 4*vg.Inch)
+	printStyle(p)
+	return savePlot(path, p, 16*vg.Centimeter, 11*vg.Centimeter)
 }

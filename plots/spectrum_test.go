@@ -6,7 +6,10 @@ import (
 	"testing"
 )
 
+// Spectrum writes PNG and SVG, refuses other formats and unpaired sticks, and leaves no
+// temporary files (the figure's content is checked in TestSpectrumFigureContent).
 func TestSpectrumFiles(t *testing.T) {
+	t.Parallel()
 	dir := t.TempDir()
 	d := SpectrumData{Title: "test", XLabel: "x", YLabel: "y",
 		StickX: []float64{1, 2, 3}, StickY: []float64{0.5, 1, 0.2},

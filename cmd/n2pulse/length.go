@@ -2,6 +2,7 @@ package main
 
 import (
 	"context"
+	"encoding/json"
 	"errors"
 	"fmt"
 	"io"
@@ -13,6 +14,7 @@ import (
 	"syscall"
 	"text/tabwriter"
 
+	"n2pulse/kinetics"
 	"n2pulse/kinetics/study"
 	"n2pulse/plots"
 	"n2pulse/units"
@@ -35,6 +37,7 @@ func runLength(args []string, stdout, stderr io.Writer) error {
 	out := fs.String("out", "", "write length.csv and the figure length.png/.svg to this directory")
 	sets := fs.StringArray("set", nil, `override a design key, e.g. --set gas.pressure="100 Torr" (repeatable)`)
 	workers := fs.Int("workers", runtime.NumCPU(), "lengths computed at once")
+	asJSON := fs.Bool("json", false, "print the scan as JSON on stdout (SI units) instead of a table")
 	scale := fs.Bool("scale-capacitors", true, "grow both capacitors in proportion to the channel length (Blumlein plates running along the channel); --scale-capacitors=false keeps the design's circuit at every length")
 	if help, err := parseFlags(fs, args); help || err != nil {
 		return err
@@ -66,13 +69,19 @@ func runLength(args []string, stdout, stderr io.Writer) error {
 	if err != nil {
 		return err
 	}
-	if *scale {
+	if *asJSON {
+		if err := printLengthJSON(stdout, r, *scale); err != nil {
+			return err
+		}
+	} else if *scale {
 		fmt.Fprintf(stdout, "capacitors scaled with the length: %s and %s per %s of channel\n",
 			units.Format(d.Circuit.SwitchCapacitance, "F"), units.Format(d.Circuit.ChannelCapacitance, "F"), units.Format(d.Channel.Length, "m"))
 	} else {
 		fmt.Fprintln(stdout, "circuit as designed at every length")
 	}
-	printLength(stdout, r)
+	if !*asJSON {
+		printLength(stdout, r)
+	}
 	if *out == "" {
 		return nil
 	}
@@ -111,7 +120,11 @@ func printLength(w io.Writer, r *study.LengthResult) {
 				continue
 			}
 			s := p.Summary
-			line += fmt.Sprintf("%.4g\t%.4g\t%.3g\t%.3g\t%.4g\t", 1e6*s.EnergyFront, 1e-3*s.PeakPower, 1e9*s.FWHM,
+			cut := ""
+			if s.Truncated {
+				cut = " (truncated)"
+			}
+			line += fmt.Sprintf("%.4g%s\t%.4g\t%.3g\t%.3g\t%.4g\t", 1e6*s.EnergyFront, cut, 1e-3*s.PeakPower, 1e9*s.FWHM,
 				1e9*s.InversionDuration, 100*units.SpeedOfLight*s.InversionDuration)
 		}
 		fmt.Fprintln(tw, line)
@@ -132,6 +145,62 @@ func printLength(w io.Writer, r *study.LengthResult) {
 	for _, p := range r.Curves[0].Points {
 		if p.Err != nil {
 			fmt.Fprintf(w, "length %.4g cm failed: %v\n", 100*p.Length, p.Err)
+		} else if p.Summary.Truncated {
+			fmt.Fprintf(w, "length %.4g cm truncated: the pulse was still going at %.4g ns, the longest a run may take; its numbers are cut short\n",
+				100*p.Length, 1e9*p.Summary.EndTime)
 		}
 	}
+}
+
+// lengthJSON is one curve of `length --json`, in SI.
+type lengthJSON struct {
+	// ExcitationVelocity is the front speed [m/s]; null for a simultaneous discharge.
+	ExcitationVelocity *float64          `json:"excitation_velocity_m_s"`
+	UsefulLength       *float64          `json:"useful_length_m"` // null when there is none
+	Rule               string            `json:"useful_length_rule"`
+	TransitLength      *float64          `json:"transit_length_m"` // c·τ_g
+	Points             []lengthPointJSON `json:"points"`
+}
+
+type lengthPointJSON struct {
+	Length  float64           `json:"length_m"`
+	Summary *kinetics.Summary `json:"summary,omitempty"`
+	Error   string            `json:"error,omitempty"`
+}
+
+// finite returns a pointer to v, or nil for NaN and infinities (JSON has no such numbers).
+func finite(v float64) *float64 {
+	if math.IsNaN(v) || math.IsInf(v, 0) {
+		return nil
+	}
+	return &v
+}
+
+// printLengthJSON writes the scan as JSON: whether the capacitors were scaled, and per curve
+// its useful length, the rule that found it, the transit estimate and every point's summary.
+func printLengthJSON(w io.Writer, r *study.LengthResult, scaled bool) error {
+	out := struct {
+		ScaleCapacitors bool         `json:"scale_capacitors"`
+		Curves          []lengthJSON `json:"curves"`
+	}{ScaleCapacitors: scaled}
+	for _, c := range r.Curves {
+		j := lengthJSON{ExcitationVelocity: finite(c.Velocity), UsefulLength: finite(c.Useful), Rule: c.Rule, TransitLength: finite(c.Transit)}
+		for _, p := range c.Points {
+			pj := lengthPointJSON{Length: p.Length}
+			if p.Err != nil {
+				pj.Error = p.Err.Error()
+			} else {
+				s := p.Summary
+				pj.Summary = &s
+			}
+			j.Points = append(j.Points, pj)
+		}
+		out.Curves = append(out.Curves, j)
+	}
+	b, err := json.MarshalIndent(out, "", "  ")
+	if err != nil {
+		return fmt.Errorf("length: %w", err)
+	}
+	fmt.Fprintln(w, string(b))
+	return nil
 }

@@ -122,7 +122,8 @@ func runLines(args []string, stdout, stderr io.Writer) error {
 			return err
 		}
 		d := plots.SpectrumData{
-			Title:  fmt.Sprintf("N₂ C→B (0,0) band at %s, %s", units.Format(p, "Pa"), units.Format(T, "K")),
+			Title: fmt.Sprintf("nitrogen C→B (0,0) band at %s, %s",
+				plots.LabelOf("gas.pressure [Pa]").Typed(units.UnitOf(*pText)).Format(p), plots.LabelOf("gas.temperature [K]").Format(T)),
 			XLabel: "wavelength in air [nm]", YLabel: "relative emission",
 			StickY: sp.StickIntensity, ProfileY: sp.ProfileIntensity,
 		}

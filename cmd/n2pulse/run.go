@@ -121,6 +121,14 @@ func printSummary(w io.Writer, d *design.Design, r *kinetics.Result) {
 	}
 	fmt.Fprintf(w, "%s\n", name)
 	row := func(label, value string) { fmt.Fprintf(w, "  %-28s %s\n", label, value) }
+	switch {
+	case s.Truncated:
+		row("TRUNCATED", fmt.Sprintf("the pulse was still going at %s after closure, the longest a run may take: energy and widths below are cut short",
+			units.Format(s.EndTime, "s")))
+	case s.EndTime > 1.5*d.Numerics.EndTime:
+		row("simulated", fmt.Sprintf("to %s after closure (the pulse outlasted numerics.end_time = %s)",
+			units.Format(s.EndTime, "s"), units.Format(d.Numerics.EndTime, "s")))
+	}
 	row("pulse energy, output end", units.Format(s.EnergyFront, "J"))
 	row("pulse energy, rear end", units.Format(s.EnergyRear, "J"))
 	row("peak power, output end", units.Format(s.PeakPower, "W"))

@@ -22,15 +22,14 @@ func writeRunFigures(dir string, d *design.Design, r *kinetics.Result) error {
 		PowerFront:      r.PowerFront,
 		PowerRear:       r.PowerRear,
 	}
-	if s := r.Summary; s.FWHM > 0 {
-		pd.FWHMStart = s.PulseCentre - s.FWHM/2
-		pd.FWHMEnd = s.PulseCentre + s.FWHM/2
-	}
+	pd.FWHMStart, pd.FWHMEnd = plots.HalfMaxCrossings(r.Time, r.PowerFront)
+	pd.RearReflectivity, pd.FrontReflectivity = d.Optics.RearReflectivity, d.Optics.FrontReflectivity
 	for _, ext := range []string{".png", ".svg"} {
 		if err := plots.PulseReport(filepath.Join(dir, "pulse-report"+ext), pd); err != nil {
 			return err
 		}
-		if err := plots.GainMap(filepath.Join(dir, "gain-map"+ext), r.Z, r.GainTime, r.Gain); err != nil {
+		if err := plots.GainMapEnds(filepath.Join(dir, "gain-map"+ext), r.Z, r.GainTime, r.Gain,
+			plots.Ends{Rear: d.Optics.RearReflectivity, Front: d.Optics.FrontReflectivity}); err != nil {
 			return err
 		}
 	}

@@ -8,13 +8,8 @@ import (
 	"path/filepath"
 	"strings"
 
-	"gonum.org/v1/plot"
-	"gonum.org/v1/plot/plotter"
-	"gonum.org/v1/plot/plotutil"
-	"gonum.org/v1/plot/vg"
-
 	"n2pulse/kinetics/swarm"
-	"n2pulse/units"
+	"n2pulse/plots"
 )
 
 func init() {
@@ -96,55 +91,17 @@ func runSwarm(args []string, stdout, stderr io.Writer) error {
 	return nil
 }
 
-// plotSwarm draws the table's v_d, α/N, η/N, k_B and k_C on log–log axes, normalised per curve
-// so that they share one axis; the legend gives each curve's scale.
+// plotSwarm draws the table's drift velocity, α/N, η/N, k_B and k_C against E/N
+// (plots.SwarmFigure).
 func plotSwarm(t *swarm.Table, title, file string) error {
-	rows := t.Rows()
-	p := plot.New()
-	p.Title.Text = "electron swarm coefficients (mole fractions " + title + ")"
-	p.X.Label.Text = "E/N [Td]"
-	p.Y.Label.Text = "value in the unit given in the legend"
-	p.X.Scale = plot.LogScale{}
-	p.Y.Scale = plot.LogScale{}
-	p.X.Tick.Marker = plot.LogTicks{Prec: -1}
-	p.Y.Tick.Marker = plot.LogTicks{Prec: -1}
-	curves := []struct {
-		name  string
-		scale float64
-		get   func(c swarm.Coefficients) float64
-	}{
-		{"v_d [1e4 m/s]", 1e-4, func(c swarm.Coefficients) float64 { return c.DriftVelocity }},
-		{"α/N [1e-22 m²]", 1e22, func(c swarm.Coefficients) float64 { return c.AlphaN }},
-		{"η/N [1e-22 m²]", 1e22, func(c swarm.Coefficients) float64 { return c.EtaN }},
-		{"k_B [1e-16 m³/s]", 1e16, func(c swarm.Coefficients) float64 { return c.ExciteB }},
-		{"k_C [1e-16 m³/s]", 1e16, func(c swarm.Coefficients) float64 { return c.ExciteC }},
+	d := plots.SwarmData{Title: "electron swarm coefficients, mole fractions " + title}
+	for _, r := range t.Rows() {
+		d.ReducedField = append(d.ReducedField, r.ReducedField)
+		d.Drift = append(d.Drift, r.DriftVelocity)
+		d.AlphaN = append(d.AlphaN, r.AlphaN)
+		d.EtaN = append(d.EtaN, r.EtaN)
+		d.ExciteB = append(d.ExciteB, r.ExciteB)
+		d.ExciteC = append(d.ExciteC, r.ExciteC)
 	}
-	var lines []any
-	for _, cv := range curves {
-		var xy plotter.XYs
-		for _, r := range rows {
-			if v := cv.get(r) * cv.scale; v > 1e-4 {
-				xy = append(xy, plotter.XY{X: r.ReducedField / units.Townsend, Y: v})
-			}
-		}
-		if len(xy) < 2 {
-			continue
-		}
-		lines = append(lines, cv.name, xy)
-	}
-	if err := plotutil.AddLines(p, lines...); err != nil {
-		return err
-	}
-	p.Legend.Top = true
-	p.Legend.Left = true
-	var buf bytes.Buffer
-	ext := strings.TrimPrefix(strings.ToLower(filepath.Ext(file)), ".")
-	wt, err := p.WriterTo(7*vg.Inch, 5*vg.Inch, ext)
-	if err != nil {
-		return err
-	}
-	if _, err := wt.WriteTo(&buf); err != nil {
-		return err
-	}
-	return atomicfile.WriteFile(file, buf.Bytes())
+	return plots.SwarmFigure(file, d)
 }

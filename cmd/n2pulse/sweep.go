@@ -184,13 +184,21 @@ func isTerminal(w io.Writer) bool {
 	return err == nil && st.Mode()&os.ModeCharDevice != 0
 }
 
-// tableCounts says how many points were computed and how many failed.
+// tableCounts says how many points were computed, how many failed and how many were cut
+// short (status "truncated": the pulse outlasted the longest run a point may take).
 func tableCounts(t *study.Table) string {
-	failed := 0
+	failed, truncated := 0, 0
+	c := t.Column(study.StatusColumn)
 	for r := range t.Rows {
-		if !t.OK(r) {
+		switch {
+		case c >= 0 && t.Rows[r][c] == study.StatusTruncated:
+			truncated++
+		case !t.OK(r):
 			failed++
 		}
+	}
+	if truncated > 0 {
+		return fmt.Sprintf("%d points, %d failed, %d truncated (left out of the optima)", len(t.Rows), failed, truncated)
 	}
 	return fmt.Sprintf("%d points, %d failed", len(t.Rows), failed)
 }

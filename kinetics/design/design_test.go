@@ -5,6 +5,8 @@ import (
 	"math"
 	"strings"
 	"testing"
+
+	"n2pulse/data"
 )
 
 func TestExampleDesign(t *testing.T) {
@@ -83,5 +85,48 @@ func TestSet(t *testing.T) {
 	}
 	if err := d.Set("circuit.charge_voltage", "-3 kV"); err == nil || !strings.Contains(err.Error(), "100 to 1e+06 V") {
 		t.Errorf("negative voltage: %v", err)
+	}
+}
+
+// TestBareNumbers checks the one rule for numbers without a unit: a dimensioned key refuses
+// them, from the command line and from a design file, and the error names the key and
+// suggests the unit; 0 and dimensionless keys stay bare; the trade's units are accepted.
+func TestBareNumbers(t *testing.T) {
+	t.Parallel()
+	d := ExampleDesign()
+	for _, c := range []struct{ key, value, want string }{
+		{"gas.pressure", "40", `"40 Pa"`},
+		{"channel.length", "0.2", `"0.2 m"`},
+		{"gas.temperature", "20 C", "°C or degC"},
+		{"build.dielectric_thickness", "0.0003", `"0.0003 m"`},
+	} {
+		err := d.Clone().Set(c.key, c.value)
+		var ke *KeyError
+		if !errors.As(err, &ke) || ke.Key != c.key || !strings.Contains(err.Error(), c.want) {
+			t.Errorf("Set(%s, %q): got %v, want a KeyError on %s containing %q", c.key, c.value, err, c.key, c.want)
+		}
+	}
+	for _, c := range []struct {
+		key, value string
+		want       float64
+	}{
+		{"gas.temperature", "20 °C", 293.15},
+		{"gas.pressure", "1013.25 mbar", 101325},
+		{"gas.oxygen", "0.21", 0.21},
+		{"channel.stray_capacitance", "0", 0},
+	} {
+		c2 := d.Clone()
+		if err := c2.Set(c.key, c.value); err != nil {
+			t.Errorf("Set(%s, %q): %v", c.key, c.value, err)
+			continue
+		}
+		if got, _ := c2.Get(c.key); math.Abs(got-c.want) > 1e-9*math.Abs(c.want) {
+			t.Errorf("Set(%s, %q) gives %g, want %g (rel. tol. 1e-9)", c.key, c.value, got, c.want)
+		}
+	}
+	file := strings.Replace(string(data.ExampleDesign()), `pressure = "760 Torr"`, "pressure = 101325", 1)
+	_, err := ParseDesign([]byte(file), "bare.toml")
+	if err == nil || !strings.Contains(err.Error(), "gas.pressure") || !strings.Contains(err.Error(), `pressure = "101325 Pa"`) {
+		t.Errorf("bare pressure in a design file: got %v, want an error naming gas.pressure and the quoted form", err)
 	}
 }

@@ -164,10 +164,16 @@ func (d *Design) setValue(key string, v any) error {
 		if f.str != nil {
 			return &KeyError{Key: key, Value: strconv.FormatInt(x, 10), Problem: "want text in quotes"}
 		}
+		if err := bareNumber(key, f.dim, float64(x)); err != nil {
+			return err
+		}
 		return f.setNumber(d, float64(x), strconv.FormatInt(x, 10))
 	case float64:
 		if f.str != nil {
 			return &KeyError{Key: key, Value: strconv.FormatFloat(x, 'g', -1, 64), Problem: "want text in quotes"}
+		}
+		if err := bareNumber(key, f.dim, x); err != nil {
+			return err
 		}
 		return f.setNumber(d, x, strconv.FormatFloat(x, 'g', -1, 64))
 	case bool:

@@ -1,6 +1,7 @@
 package design
 
 import (
+	"errors"
 	"fmt"
 	"math"
 	"slices"
@@ -144,6 +145,12 @@ func KeyUnit(key string) (unit string, ok bool) {
 	return f.unit, true
 }
 
+// KeyInteger reports whether a design key takes whole numbers only (numerics.cells).
+func KeyInteger(key string) bool {
+	f, ok := fieldIndex[key]
+	return ok && f.integer
+}
+
 // KeyError is a design value that is unknown, malformed or out of range.
 type KeyError struct {
 	Key     string // dotted key
@@ -159,7 +166,8 @@ func (e *KeyError) Error() string {
 }
 
 // Set assigns one design key from text, as on the command line: Set("gas.pressure", "40 Torr").
-// Numbers may carry any unit of the key's dimension; a bare number is SI.
+// Numbers carry any unit of the key's dimension; a bare number is refused for a dimensioned
+// key unless it is 0 (the error suggests the unit).
 //
 // The [build] keys are accepted too (Set("build.switch_plate_width", "12 cm")). After a build
 // key, the channel length or the channel gap changes, the circuit values derived from the build
@@ -234,10 +242,27 @@ func (f *field) parse(text string) (float64, error) {
 		}
 	}
 	v, err := units.Parse(t, f.dim)
+	var nu *units.NoUnitError
+	if errors.As(err, &nu) {
+		return 0, &KeyError{Key: f.key, Value: text, Problem: nu.Error()}
+	}
 	if err != nil {
 		return 0, &KeyError{Key: f.key, Value: text, Problem: fmt.Sprintf("%v (want %s)", strings.TrimPrefix(err.Error(), "units: "), f.want())}
 	}
 	return v, nil
+}
+
+// bareNumber is the one rule for a number without a unit, from a design file or the command
+// line: it stands for itself only in a dimensionless key or as 0; for any other dimensioned
+// key it is an error that suggests the unit (a builder writing pressure = 40 means Torr or
+// mbar, never pascal).
+func bareNumber(key string, dim units.Dimension, x float64) error {
+	if dim == units.Dimensionless || x == 0 {
+		return nil
+	}
+	text := strconv.FormatFloat(x, 'g', -1, 64)
+	return &KeyError{Key: key, Value: text, Problem: (&units.NoUnitError{Text: text, Want: dim}).Error() +
+		"; in a design file quote it: " + key[strings.LastIndex(key, ".")+1:] + " = \"" + text + " " + dim.String() + "\""}
 }
 
 func (f *field) want() string {

@@ -29,7 +29,7 @@ const maxAxisPoints = 100000
 
 // ParseAxis reads an axis written KEY=FROM:TO:N[:log], for example
 // "gas.pressure=20Torr:760Torr:20:log". FROM and TO take any unit of the key's dimension (a bare
-// number is SI); both ends are checked against the key's allowed range on a copy of base.
+// number is refused for a dimensioned key, 0 excepted); both ends are checked against the key's allowed range on a copy of base.
 func ParseAxis(text string, base *design.Design) (Axis, error) {
 	key, rng, ok := strings.Cut(text, "=")
 	key = strings.TrimSpace(key)
@@ -99,20 +99,31 @@ func (a Axis) Check() error {
 	return nil
 }
 
-// Values returns the N grid values in SI; the ends are exactly From and To.
+// Values returns the N grid values in SI. The ends are exactly From and To; the values
+// between are rounded to 15 significant digits, so that an axis between decimal ends gives
+// the decimals one would type (0.00225, not 0.0022500000000000003), and to whole numbers for
+// a whole-number key (numerics.cells); they never leave [From, To].
 func (a Axis) Values() []float64 {
 	v := make([]float64, a.N)
+	v[0] = a.From
 	if a.N == 1 {
-		v[0] = a.From
 		return v
 	}
-	for i := range v {
-		f := float64(i) / float64(a.N-1)
+	whole := design.KeyInteger(a.Key)
+	lo, hi := min(a.From, a.To), max(a.From, a.To)
+	n := float64(a.N - 1)
+	for i := 1; i < a.N-1; i++ {
+		var x float64
 		if a.Log {
-			v[i] = math.Exp(math.Log(a.From) + f*(math.Log(a.To)-math.Log(a.From)))
+			x = a.From * math.Pow(a.To/a.From, float64(i)/n)
 		} else {
-			v[i] = a.From + f*(a.To-a.From)
+			x = (a.From*(n-float64(i)) + a.To*float64(i)) / n
 		}
+		x, _ = strconv.ParseFloat(strconv.FormatFloat(x, 'g', 15, 64), 64)
+		if whole {
+			x = math.Round(x)
+		}
+		v[i] = max(lo, min(hi, x))
 	}
 	v[a.N-1] = a.To
 	return v
@@ -128,3 +139,13 @@ func (a Axis) Header() string {
 
 // formatNumber writes v as the shortest decimal that reads back to the same float64.
 func formatNumber(v float64) string { return strconv.FormatFloat(v, 'g', -1, 64) }
+
+// siText writes an SI value of a design key as text that Design.Set reads back to the same
+// float64: the shortest decimal and the key's SI unit (a bare number is refused for a
+// dimensioned key).
+func siText(key string, v float64) string {
+	if u, _ := design.KeyUnit(key); u != "" {
+		return formatNumber(v) + " " + u
+	}
+	return formatNumber(v)
+}

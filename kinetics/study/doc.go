@@ -19,7 +19,8 @@
 //
 // Table columns: "point" (the index), one column per varied key headed "key [SI unit]", one per
 // figure of merit of kinetics.Summary named by its JSON tag (derived by reflection, so the table
-// follows the Summary), and "status" ("ok" or "failed: <error>"). Numbers are written in SI with
+// follows the Summary), and "status" ("ok", "truncated" when the pulse outlasted the longest run a point may
+// take, or "failed: <error>"). Numbers are written in SI with
 // the shortest decimal that reads back to the same float64.
 //
 // Length scans (Length) run the design over channel lengths and mark the useful length: where

@@ -68,7 +68,7 @@ func ExampleUsefulLength() {
 	u, rule := study.UsefulLength(L, E)
 	fmt.Printf("%.3f m: %s\n", u, rule)
 	// Output:
-	// 0.233 m: 90 % of the plateau energy
+	// 0.233 m: shortest length reaching 90 % of the largest output-end energy of the scan
 }
 
 // Inside a Slurm job array the shard comes from the task variables.

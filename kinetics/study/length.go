@@ -70,12 +70,12 @@ func (s *LengthScan) check() error {
 		return fmt.Errorf("study: length scan: --from %g m, --to %g m: want 0 < from < to", s.From, s.To)
 	}
 	for _, l := range []float64{s.From, s.To} {
-		if err := s.Design.Clone().Set("channel.length", formatNumber(l)); err != nil {
+		if err := s.Design.Clone().Set("channel.length", siText("channel.length", l)); err != nil {
 			return fmt.Errorf("study: length scan: %w", err)
 		}
 	}
 	if s.TravellingWave != 0 {
-		if err := s.Design.Clone().Set("optics.excitation_velocity", formatNumber(s.TravellingWave)); err != nil {
+		if err := s.Design.Clone().Set("optics.excitation_velocity", siText("optics.excitation_velocity", s.TravellingWave)); err != nil {
 			return fmt.Errorf("study: length scan: --travelling-wave: %w", err)
 		}
 	}
@@ -150,19 +150,21 @@ func (c *LengthCurve) mark() {
 	c.Transit = units.SpeedOfLight * interpolate(L, tau, at)
 }
 
-// Plateau and fall criteria of UsefulLength.
+// Criteria of UsefulLength.
 const (
-	usefulFraction = 0.9  // the useful length reaches this share of the plateau energy
-	fallFraction   = 0.95 // an energy at the longest length below this share of the maximum has fallen
-	plateauGrowth  = 0.1  // the last quarter of the range adds less than this share: a plateau
+	usefulFraction = 0.9 // the useful length reaches this share of the largest energy
+	plateauGrowth  = 0.1 // the last quarter of the range adds less than this share: a plateau
 )
 
-// UsefulLength returns the useful channel length of an energy curve E(L) (L increasing): where
-// E falls again after a maximum (the last value below 95 % of the maximum), the length of the
-// maximum (refined by a parabola through its neighbours); otherwise, when E has levelled off
-// (the last quarter of the range adds less than 10 %), the length where E first reaches 90 % of
-// its plateau, interpolated linearly. It returns NaN when E still rises at the longest length,
-// and says which rule applied.
+// UsefulLengthRule says in words how UsefulLength finds the useful length; the same rule holds
+// for every curve, whether its energy levels off or falls again after a maximum.
+const UsefulLengthRule = "shortest length reaching 90 % of the largest output-end energy of the scan"
+
+// UsefulLength returns the useful channel length of an energy curve E(L) (L increasing): the
+// shortest length at which E reaches 90 % of its largest value in the scan, interpolated
+// linearly; a longer channel adds less than a tenth. The same rule applies whether E levels
+// off or falls after a maximum. It returns NaN when E is largest at the longest length and
+// still rising there (the last quarter of the range adds more than 10 %), and says why.
 func UsefulLength(L, E []float64) (float64, string) {
 	n := len(L)
 	if n < 3 {
@@ -173,40 +175,21 @@ func UsefulLength(L, E []float64) (float64, string) {
 	if !(top > 0) {
 		return math.NaN(), "no output energy"
 	}
-	if imax < n-1 && E[n-1] < fallFraction*top {
-		if imax == 0 {
-			return L[0], "energy falls from the shortest length"
-		}
-		return parabolaVertex(L[imax-1:imax+2], E[imax-1:imax+2]), "maximum of the energy (it falls at longer lengths)"
-	}
 	quarter := interpolate(L, E, L[n-1]-0.25*(L[n-1]-L[0]))
-	if E[n-1]-quarter > plateauGrowth*E[n-1] {
+	if imax == n-1 && E[n-1]-quarter > plateauGrowth*E[n-1] {
 		return math.NaN(), "energy still rising at the longest length: no plateau in the range"
 	}
 	want := usefulFraction * top
 	if E[0] >= want {
-		return L[0], "90 % of the plateau already at the shortest length"
+		return L[0], "90 % of the largest energy already at the shortest length"
 	}
 	for i := 1; i < n; i++ {
 		if E[i] >= want {
 			f := (want - E[i-1]) / (E[i] - E[i-1])
-			return L[i-1] + f*(L[i]-L[i-1]), "90 % of the plateau energy"
+			return L[i-1] + f*(L[i]-L[i-1]), UsefulLengthRule
 		}
 	}
-	return L[n-1], "90 % of the plateau energy"
-}
-
-// parabolaVertex returns the abscissa of the vertex of the parabola through three points,
-// kept within their span.
-func parabolaVertex(x, y []float64) float64 {
-	d1 := (y[1] - y[0]) / (x[1] - x[0])
-	d2 := (y[2] - y[1]) / (x[2] - x[1])
-	curv := (d2 - d1) / (x[2] - x[0])
-	if curv >= 0 {
-		return x[1]
-	}
-	v := 0.5*(x[0]+x[1]) - d1/(2*curv)
-	return math.Max(x[0], math.Min(x[2], v))
+	return L[imax], UsefulLengthRule
 }
 
 // interpolate evaluates the piecewise-linear function through (x, y) at t, held at the end
@@ -232,8 +215,9 @@ func interpolate(x, y []float64, t float64) float64 {
 var lengthMetrics = []string{"energy_front_J", "energy_total_J", "peak_power_W", "fwhm_s", "inversion_duration_s"}
 
 // Table returns the scan as a table: the length, then for each curve its energies, peak power,
-// FWHM, inversion duration, transit estimate c·τ_g ("transit_length_m") and status; columns of
-// the travelling-wave curve carry the prefix "tw.".
+// FWHM, inversion duration, transit estimate c·τ_g ("transit_length_m"), the curve's useful
+// length (the same on every row, empty when there is none) and status; columns of the
+// travelling-wave curve carry the prefix "tw.".
 func (r *LengthResult) Table() *Table {
 	t := &Table{Columns: []string{"channel.length [m]"}}
 	for c := range r.Curves {
@@ -244,7 +228,7 @@ func (r *LengthResult) Table() *Table {
 		for _, m := range lengthMetrics {
 			t.Columns = append(t.Columns, pre+m)
 		}
-		t.Columns = append(t.Columns, pre+"transit_length_m", pre+StatusColumn)
+		t.Columns = append(t.Columns, pre+"transit_length_m", pre+"useful_length_m", pre+StatusColumn)
 	}
 	all := Metrics()
 	pos := make([]int, len(lengthMetrics))
@@ -259,16 +243,21 @@ func (r *LengthResult) Table() *Table {
 		row := []string{formatNumber(r.Curves[0].Points[k].Length)}
 		for _, c := range r.Curves {
 			p := c.Points[k]
+			useful := ""
+			if !math.IsNaN(c.Useful) {
+				useful = formatNumber(c.Useful)
+			}
 			if p.Err != nil {
 				row = append(row, make([]string, len(lengthMetrics)+1)...)
+				row = append(row, useful)
 			} else {
 				f := summaryFields(p.Summary)
 				for _, j := range pos {
 					row = append(row, f[j])
 				}
-				row = append(row, formatNumber(units.SpeedOfLight*p.Summary.InversionDuration))
+				row = append(row, formatNumber(units.SpeedOfLight*p.Summary.InversionDuration), useful)
 			}
-			row = append(row, statusOf(p.Err))
+			row = append(row, statusOf(p.Summary, p.Err))
 		}
 		t.Rows = append(t.Rows, row)
 	}

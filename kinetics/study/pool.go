@@ -55,9 +55,13 @@ func safeRun(run Runner, d *design.Design) (s kinetics.Summary, err error) {
 	return run(d)
 }
 
-// statusOf is the status cell of a point: "ok" or "failed: <error>" on one line.
-func statusOf(err error) string {
+// statusOf is the status cell of a point: "ok", "truncated" (the pulse outlasted the
+// longest run) or "failed: <error>" on one line.
+func statusOf(s kinetics.Summary, err error) string {
 	if err == nil {
+		if s.Truncated {
+			return StatusTruncated
+		}
 		return StatusOK
 	}
 	msg := strings.Join(strings.Fields(err.Error()), " ")

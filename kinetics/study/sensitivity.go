@@ -5,7 +5,6 @@ import (
 	"fmt"
 	"math"
 	"sort"
-	"strconv"
 	"strings"
 
 	"n2pulse/internal/pool"
@@ -95,8 +94,7 @@ func Sensitivity(d *design.Design, keys []string, step float64) ([]SensitivityRo
 		sign float64
 	}
 	rows := make([]SensitivityRow, len(keys))
-	out := make([][2]kinetics.Summary, len(keys)) // [0] at x·e^(−h), [1] at x·e^(+h)
-	ok := make([][2]bool, len(keys))
+	sides := make([][2]side, len(keys)) // [0] at x·e^(−h), [1] at x·e^(+h)
 	var jobs []job
 	for i, k := range keys {
 		x, _ := d.Get(k)
@@ -121,42 +119,16 @@ func Sensitivity(d *design.Design, keys []string, step float64) ([]SensitivityRo
 	}, func(n int, p perturbed) error {
 		j := jobs[n]
 		if p.err == nil {
-			out[j.row][(int(j.sign)+1)/2] = p.sum
-			ok[j.row][(int(j.sign)+1)/2] = true
+			sides[j.row][(int(j.sign)+1)/2] = side{p.sum, true}
 		} else if !isRangeError(p.err) {
 			problems[j.row] = append(problems[j.row], p.err.Error())
 		}
 		return nil
 	})
-
 	for i := range rows {
-		if rows[i].Problem != "" {
-			continue
+		if rows[i].Problem == "" {
+			rows[i].derive(sides[i][0], sides[i][1], base.Summary, step, problems[i])
 		}
-		lo, hi := out[i][0], out[i][1]
-		var eLo, eHi, pLo, pHi, span float64
-		switch {
-		case ok[i][0] && ok[i][1]:
-			eLo, eHi, pLo, pHi, span = lo.EnergyTotal, hi.EnergyTotal, lo.PeakPower, hi.PeakPower, 2*step
-		case ok[i][1]:
-			eLo, eHi, pLo, pHi, span = e0, hi.EnergyTotal, p0, hi.PeakPower, step
-			rows[i].OneSided = true
-		case ok[i][0]:
-			eLo, eHi, pLo, pHi, span = lo.EnergyTotal, e0, lo.PeakPower, p0, step
-			rows[i].OneSided = true
-		default:
-			rows[i].Problem = "no run possible: " + strings.Join(problems[i], "; ")
-			if len(problems[i]) == 0 {
-				rows[i].Problem = "both sides out of the key's range"
-			}
-			continue
-		}
-		if !(eLo > 0 && eHi > 0 && pLo > 0 && pHi > 0) {
-			rows[i].Problem = "no output on one side" // values stay 0: JSON has no NaN
-			continue
-		}
-		rows[i].Energy = (math.Log(eHi) - math.Log(eLo)) / span
-		rows[i].PeakPower = (math.Log(pHi) - math.Log(pLo)) / span
 	}
 	sort.SliceStable(rows, func(a, b int) bool {
 		ra, rb := rows[a], rows[b]
@@ -166,6 +138,43 @@ func Sensitivity(d *design.Design, keys []string, step float64) ([]SensitivityRo
 		return math.Abs(ra.Energy) > math.Abs(rb.Energy)
 	})
 	return rows, nil
+}
+
+// side is the run on one side of a key's value: its summary, and whether it ran.
+type side struct {
+	sum kinetics.Summary
+	ok  bool
+}
+
+// derive sets the row's d ln E/d ln x and d ln P/d ln x from the runs below (lo) and above
+// (hi) the key's value by central differences over 2·step, or from one of them and the base
+// run by one-sided differences over step; or, when neither ran or one has no output, the
+// row's problem.
+func (r *SensitivityRow) derive(lo, hi side, base kinetics.Summary, step float64, problems []string) {
+	e0, p0 := base.EnergyTotal, base.PeakPower
+	var eLo, eHi, pLo, pHi, span float64
+	switch {
+	case lo.ok && hi.ok:
+		eLo, eHi, pLo, pHi, span = lo.sum.EnergyTotal, hi.sum.EnergyTotal, lo.sum.PeakPower, hi.sum.PeakPower, 2*step
+	case hi.ok:
+		eLo, eHi, pLo, pHi, span = e0, hi.sum.EnergyTotal, p0, hi.sum.PeakPower, step
+		r.OneSided = true
+	case lo.ok:
+		eLo, eHi, pLo, pHi, span = lo.sum.EnergyTotal, e0, lo.sum.PeakPower, p0, step
+		r.OneSided = true
+	default:
+		r.Problem = "no run possible: " + strings.Join(problems, "; ")
+		if len(problems) == 0 {
+			r.Problem = "both sides out of the key's range"
+		}
+		return
+	}
+	if !(eLo > 0 && eHi > 0 && pLo > 0 && pHi > 0) {
+		r.Problem = "no output on one side" // values stay 0: JSON has no NaN
+		return
+	}
+	r.Energy = (math.Log(eHi) - math.Log(eLo)) / span
+	r.PeakPower = (math.Log(pHi) - math.Log(pLo)) / span
 }
 
 // rangeError marks a perturbed value outside its key's range.
@@ -183,7 +192,7 @@ func perturbedRun(d *design.Design, key string, h float64) (kinetics.Summary, er
 		return kinetics.Summary{}, err
 	}
 	x := x0 * math.Exp(h)
-	if err := c.Set(key, strconv.FormatFloat(x, 'g', -1, 64)); err != nil {
+	if err := c.Set(key, siText(key, x)); err != nil {
 		return kinetics.Summary{}, rangeError{err}
 	}
 	if err := c.Validate(); err != nil {

@@ -4,7 +4,6 @@ import (
 	"errors"
 	"math"
 	"slices"
-	"strconv"
 	"testing"
 
 	"gonum.org/v1/gonum/floats/scalar"
@@ -46,10 +45,10 @@ func TestSensitivityAgainstExplicitRuns(t *testing.T) {
 		// Two explicit runs at x·1.01 and x·0.99 (a finite difference in x, not in ln x).
 		up, dn := d.Clone(), d.Clone()
 		x := r.Value
-		if err := up.Set(r.Key, strconv.FormatFloat(1.01*x, 'g', -1, 64)); err != nil {
+		if err := up.Set(r.Key, siText(r.Key, 1.01*x)); err != nil {
 			t.Fatal(err)
 		}
-		if err := dn.Set(r.Key, strconv.FormatFloat(0.99*x, 'g', -1, 64)); err != nil {
+		if err := dn.Set(r.Key, siText(r.Key, 0.99*x)); err != nil {
 			t.Fatal(err)
 		}
 		want := (math.Log(runEnergy(t, up)) - math.Log(runEnergy(t, dn))) / (math.Log(1.01) - math.Log(0.99))
@@ -143,7 +142,7 @@ func TestSensitivityRederivesBuild(t *testing.T) {
 	var e [2]float64
 	for i, f := range []float64{math.Exp(-0.01), math.Exp(0.01)} {
 		c := d.Clone()
-		if err := c.Set("channel.length", strconv.FormatFloat(l*f, 'g', -1, 64)); err != nil {
+		if err := c.Set("channel.length", siText("channel.length", l*f)); err != nil {
 			t.Fatal(err)
 		}
 		e[i] = runEnergy(t, c)

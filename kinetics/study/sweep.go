@@ -82,7 +82,7 @@ func (s *Sweep) PointDesign(i int) (*design.Design, error) {
 	keys := make([]string, len(s.Axes))
 	for k, v := range s.Values(i) {
 		keys[k] = s.Axes[k].Key
-		if err := d.Set(keys[k], formatNumber(v)); err != nil {
+		if err := d.Set(keys[k], siText(keys[k], v)); err != nil {
 			return nil, fmt.Errorf("study: point %d: %w", i, err)
 		}
 	}
@@ -106,7 +106,7 @@ func (s *Sweep) row(o outcome) []string {
 	} else {
 		r = append(r, make([]string, len(Metrics()))...)
 	}
-	return append(r, statusOf(o.err))
+	return append(r, statusOf(o.sum, o.err))
 }
 
 // DesignHash is the SHA-256 of the design's full key listing (design.Design.String), the

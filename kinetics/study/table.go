@@ -18,6 +18,9 @@ const (
 	PointColumn  = "point"
 	StatusColumn = "status"
 	StatusOK     = "ok"
+	// StatusTruncated marks a point whose pulse was still going at the longest time a run
+	// may take (kinetics.Summary.Truncated): its numbers are cut short, never "ok".
+	StatusTruncated = "truncated"
 )
 
 var summaryType = reflect.TypeFor[kinetics.Summary]()

@@ -1,0 +1,46 @@
+package study
+
+import (
+	"testing"
+
+	"n2pulse/kinetics/design"
+)
+
+// TestAxisEndsExact covers the points an axis used to lose: a log axis starting at a key's
+// minimum (0.1 pF gave 9.999999999999998e-14, below the range), a log axis over a whole-number
+// key (19.999999999999996 cells) and interior values with rounding noise in their last digit.
+func TestAxisEndsExact(t *testing.T) {
+	t.Parallel()
+	base := design.ExampleDesign()
+	cases := []struct {
+		axis string
+		want []string // the grid values as written to results.csv
+	}{
+		{"circuit.switch_capacitance=0.1pF:1nF:3:log", []string{"1e-13", "1e-11", "1e-09"}},
+		{"numerics.cells=20:200:4:log", []string{"20", "43", "93", "200"}},
+		{"numerics.cells=4:20000:5", []string{"4", "5003", "10002", "15001", "20000"}},
+		{"channel.gap=1.5mm:3mm:3", []string{"0.0015", "0.00225", "0.003"}},
+		{"channel.length=1mm:10m:5:log", []string{"0.001", "0.01", "0.1", "1", "10"}},
+		{"gas.pressure=10Pa:1MPa:2:log", []string{"10", "1e+06"}},
+		{"circuit.charge_voltage=16kV:8kV:5", []string{"16000", "14000", "12000", "10000", "8000"}},
+	}
+	for _, c := range cases {
+		a, err := ParseAxis(c.axis, base)
+		if err != nil {
+			t.Fatalf("%s: %v", c.axis, err)
+		}
+		s := &Sweep{Design: base, Axes: []Axis{a}}
+		v := a.Values()
+		if len(v) != len(c.want) {
+			t.Fatalf("%s: %d values, want %d", c.axis, len(v), len(c.want))
+		}
+		for i := range v {
+			if got := formatNumber(v[i]); got != c.want[i] {
+				t.Errorf("%s: value %d is %s, want %s", c.axis, i, got, c.want[i])
+			}
+			if _, err := s.PointDesign(i); err != nil {
+				t.Errorf("%s: point %d refused: %v", c.axis, i, err)
+			}
+		}
+	}
+}
