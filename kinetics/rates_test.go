@@ -31,3 +31,23 @@ func TestSwarmRates(t *testing.T) {
 		}
 	}
 }
+
+// swarmRates clamps a linearly interpolated value at zero as swarm.Table.At does: just below a
+// row where k_C is zero, ln(E/N) rounds onto the row and the weight is −2.6e-16, which gave
+// k_C = −3.8e-16 before (issue 11 item 7; the rows are those of the swarm package's test).
+func TestSwarmRatesClampedAtZero(t *testing.T) {
+	t.Parallel()
+	tb, err := swarm.NewTable([]swarm.Coefficients{
+		{ReducedField: 1e-22, DriftVelocity: 1e4},
+		{ReducedField: 2.0951001982022628e-22, DriftVelocity: 2e4},
+		{ReducedField: 3.0121552785336477e-22, DriftVelocity: 3e4, ExciteC: 1.5},
+	})
+	if err != nil {
+		t.Fatal(err)
+	}
+	var v, d [nRates]float64
+	newSwarmRates(tb).at(2.0951001982022625e-22, 0, nRates, &v, &d)
+	if v[rateExcC] != 0 || tb.At(2.0951001982022625e-22).ExciteC != 0 {
+		t.Errorf("k_C just below a zero row: swarmRates %g, Table.At %g, want exactly 0", v[rateExcC], tb.At(2.0951001982022625e-22).ExciteC)
+	}
+}

@@ -26,6 +26,10 @@ func Run(d *design.Design, s *RunSettings) (*Result, error) {
 	if err != nil {
 		return nil, err
 	}
+	// Three-body attachment is tabulated at 1 atm and 300 K: rescale it to this gas.
+	if table, err = table.AtDensity(gasDensity(d.Gas)); err != nil {
+		return nil, err
+	}
 	par, overridden, err := laserParameters(d)
 	if err != nil {
 		return nil, err

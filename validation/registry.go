@@ -72,7 +72,15 @@ type Check struct {
 	Kind      Kind
 	Source    string // citation, "common practice, no source" or "from memory"
 	Err       error  // set when the model failed to compute the value
+	// Known, when not empty, states a known limitation of the model that makes it miss this
+	// reference; a miss is then reported as a discrepancy (as for an experiment) and fails
+	// only `check --strict`. The tolerance stays the one the reference deserves.
+	Known string
 }
+
+// Tolerated reports whether a miss of this check is a discrepancy rather than a failure: an
+// experiment case, or a check with a stated known limitation.
+func (c Check) Tolerated() bool { return c.Kind == Experiment || c.Known != "" }
 
 // Deviation is the relative deviation (computed − reference)/|reference| for Relative, Factor
 // and Range checks, and the absolute deviation for Absolute checks.

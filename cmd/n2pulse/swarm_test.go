@@ -37,8 +37,13 @@ func TestSwarmCommand(t *testing.T) {
 	if code := run([]string{"swarm", "--nitrogen", "0.9", "--helium", "0.1", "--cells", "60"}, &so, &se); code != 0 {
 		t.Fatalf("mixture: exit %d: %s", code, se.String())
 	}
-	if !strings.Contains(so.String(), "mixture: N2 0.9, He 0.1") {
+	if !strings.Contains(so.String(), "mixture (mole fractions): N2 0.9, He 0.1") {
 		t.Errorf("stdout header: %.300s", so.String())
+	}
+	// columns named by species and state, no numbered legend (issue 14 item 6)
+	if !strings.Contains(so.String(), ",k_N2_C3Pi_u_m3_s,") || !strings.Contains(so.String(), ",k_He_ion_m3_s") ||
+		strings.Contains(so.String(), "k_N2_15_m3_s") {
+		t.Errorf("rate columns not named by state: %.2000s", so.String())
 	}
 	for _, args := range [][]string{
 		{"swarm", "--gas", "xenon"},

@@ -9,8 +9,14 @@ func defaultLevels() Levels {
 		// secondary). Published spread 1.0–1.5e-11 (Pancheshnyi et al., Chem. Phys. Lett. 294,
 		// 523 (1998): about 1.3e-11, from memory).
 		UpperQuenchingNitrogen: 1.0e-17,
-		// N2(C,v=0) + O2: 3.0e-10 cm³/s, Kossyi et al. 1992 (seen, secondary); spread 2.7–3.3e-10.
-		UpperQuenchingOxygen: 3.0e-16,
+		// N2(C,v=0) + O2: 2.7e-10 cm³/s, the low end of the published spread 2.7–3.3e-10
+		// (3.0e-10 in Kossyi et al. 1992, seen, secondary). Chosen inside that spread so that the
+		// Stern–Volmer constants with τ_C from package spectro (39.9 ns) and the N2 rate above
+		// reproduce the measured quenching pressure of the 337 nm band in dry air at 293 K,
+		// p′ = 15.89 hPa (AIRFLY: M. Ave et al., Astropart. Phys. 28, 41 (2007); read in a
+		// transcription with that citation, seen): 2.7e-10 gives 15.71 hPa (−1.1 %), 3.0e-10
+		// gives 14.32 hPa (−9.9 %). Checked in the validation registry (fluorescence.*).
+		UpperQuenchingOxygen: 2.7e-16,
 		// N2(C) + He: no value found; taken as zero (from memory: helium is a weak quencher).
 		UpperQuenchingHelium: 0,
 		// Electron-induced loss of C(0): no published rate coefficient found; a free parameter,

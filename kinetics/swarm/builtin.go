@@ -11,7 +11,9 @@ import (
 	"n2pulse/internal/atomicfile"
 	"os"
 	"path/filepath"
+	"strings"
 	"sync"
+	"unicode"
 
 	"n2pulse/data"
 	"n2pulse/units"
@@ -107,8 +109,8 @@ func Mixture(nitrogen, oxygen, helium float64) ([]Component, error) {
 	return mix, nil
 }
 
-// Extra columns written after Columns by SolveTable's CSV.
-var extraColumns = []string{"k_att3_m3_s", "growth_m3_s", "power_balance"}
+// Extra columns written after Columns and OptionalColumns by WriteResultsCSV.
+var extraColumns = []string{"growth_m3_s", "power_balance"}
 
 // SolveTable solves the mixture at the given reduced fields (ascending) and returns the table
 // and the per-row results.
@@ -132,31 +134,92 @@ func SolveTable(mix []Component, s *Settings, fields []float64) (*Table, []*Resu
 	return t, res, nil
 }
 
-// WriteResultsCSV writes a table of results with the Columns, the extra columns k_att3_m3_s
-// (three-body part of k_att), growth_m3_s (ν̄/N) and power_balance, and then the rate
-// coefficient of every process (per target molecule), headed "k_<species>_<n>_m3_s" with the
-// process names in the comment lines.
+// WriteResultsCSV writes a table of results: the Columns, OptionalColumns, growth_m3_s (ν̄/N),
+// power_balance, then the rate coefficient of every process per target molecule, each column
+// named after its species and the state it leads to (ColumnName), e.g. k_N2_C3Pi_u_m3_s.
 func WriteResultsCSV(w io.Writer, comments []string, res []*Result) error {
 	if len(res) == 0 {
 		return ErrEmpty
 	}
 	names := append([]string(nil), extraColumns...)
-	for i, q := range res[0].Rates {
-		col := fmt.Sprintf("k_%s_%d_m3_s", q.Species, i+1)
+	seen := map[string]int{}
+	for _, c := range append(append([]string(nil), Columns...), OptionalColumns...) {
+		seen[c] = 1
+	}
+	for _, n := range names {
+		seen[n] = 1
+	}
+	for _, q := range res[0].Rates {
+		col := ColumnName(q.Species, q.Name, q.Label)
+		if n := seen[col]; n > 0 {
+			seen[col] = n + 1
+			col = strings.TrimSuffix(col, "_m3_s") + fmt.Sprintf("_%d_m3_s", n+1)
+		}
+		seen[col]++
 		names = append(names, col)
-		comments = append(comments, fmt.Sprintf("%s: %s (%s, threshold %.4g eV)", col, q.Name, q.Kind, q.Threshold/units.ElectronVolt))
 	}
 	rows := make([]Coefficients, len(res))
 	extra := make([][]float64, len(res))
 	for i, r := range res {
 		rows[i] = r.Coefficients
-		e := []float64{r.ThreeBodyAttachment, r.GrowthRate, r.PowerBalance()}
+		e := []float64{r.GrowthRate, r.PowerBalance()}
 		for _, q := range r.Rates {
 			e = append(e, q.K)
 		}
 		extra[i] = e
 	}
 	return writeCSV(w, comments, rows, names, extra)
+}
+
+// ColumnName is the CSV column of the rate coefficient of a process: "k_<species>_<state>_m3_s",
+// the state being what the process name gives after "->" inside the species' parentheses
+// ("N2(X) -> N2(C3Pi_u) (all v)" gives k_N2_C3Pi_u_m3_s, "N2(X,v=0) -> N2(v=1)" gives
+// k_N2_v1_m3_s); a process whose product is not one state of the species is named by its
+// label (k_O2_ion_m3_s), else by its whole product. Signs and primes are spelled out
+// (+ plus, − minus, ' p) so that the name is one identifier.
+func ColumnName(species, name, label string) string {
+	prod := name
+	if _, after, ok := strings.Cut(name, "->"); ok {
+		prod = strings.TrimSpace(after)
+	}
+	state := ""
+	if rest, ok := strings.CutPrefix(prod, species+"("); ok {
+		if inner, _, ok := strings.Cut(rest, ")"); ok && !strings.Contains(inner, ",") {
+			state = inner
+		}
+	}
+	if state == "" && label != "" {
+		state = label
+	}
+	if state == "" {
+		state, _, _ = strings.Cut(prod, " (")
+	}
+	var b strings.Builder
+	for _, r := range state {
+		switch {
+		case r == '+':
+			b.WriteString("plus")
+		case r == '-':
+			b.WriteString("minus")
+		case r == '\'':
+			b.WriteString("p")
+		case r == '*':
+			b.WriteString("star")
+		case r == '=':
+		case r == '_' || r < 128 && (unicode.IsLetter(r) || unicode.IsDigit(r)):
+			b.WriteRune(r)
+		default:
+			b.WriteRune('_')
+		}
+	}
+	slug := strings.Trim(b.String(), "_")
+	for strings.Contains(slug, "__") {
+		slug = strings.ReplaceAll(slug, "__", "_")
+	}
+	if slug == "" {
+		slug = "process"
+	}
+	return "k_" + species + "_" + slug + "_m3_s"
 }
 
 // Composition describes a mixture for file headers.
@@ -184,11 +247,16 @@ func TableComments(mix []Component, s *Settings) []string {
 		}
 	}
 	return []string{
-		"n2pulse swarm table, two-term Boltzmann solution (Hagelaar & Pitchford 2005 formulation, temporal growth, equal energy sharing)",
-		"mixture: " + Composition(mix),
-		fmt.Sprintf("solver %s, %d energy cells, gas temperature %g K; cross sections from data/xsec-*.txt (sources there)", SolverVersion, set.Cells, set.GasTemperature),
-		"k_ion and k_att per molecule of the whole gas; k_A, k_B, k_C per N2 molecule; k_att includes three-body attachment to O2 at 2.446e25 m^-3 (column k_att3_m3_s)",
+		"n2pulse swarm table: electron transport and rate coefficients against E/N, from n2pulse's own steady solution of the electron Boltzmann equation with the distribution expanded to first order in the direction of motion; electron number grows in time, an ionising collision splits the remaining energy evenly between the two electrons (method: package swarm)",
+		"mixture (mole fractions): " + Composition(mix),
+		fmt.Sprintf("solver %s, %d energy cells, gas temperature %g K; cross sections: %s", SolverVersion, set.Cells, set.GasTemperature, crossSectionNote()),
+		fmt.Sprintf("k_ion, k_att per molecule of the whole gas; k_A, k_B, k_C and the k_<species>_<state> columns per target molecule; k_att includes three-body attachment to O2 at %.4g m^-3 (its part in %s)", ReferenceDensity, ThreeBodyColumn),
 	}
+}
+
+// crossSectionNote names the cross-section files behind the built-in species.
+func crossSectionNote() string {
+	return "data/xsec-*.txt (each process with its source)"
 }
 
 var (
@@ -224,10 +292,23 @@ func Builtin(gas string) (*Table, error) {
 	return t, nil
 }
 
+// memTables holds the tables ForMixture made in this process, keyed like the cache files: a
+// sweep solves a mixture once even when the cache directory cannot be written.
+var memTables sync.Map // key → *tableEntry
+
+type tableEntry struct {
+	once sync.Once
+	t    *Table
+	err  error
+}
+
 // ForMixture returns a table for the mole fractions of N₂, O₂ and He. Pure N₂ and Air (each
 // fraction within 1e-3) return the shipped tables. Other mixtures are solved at TableFields and
-// cached as CSV in cacheDir (os.UserCacheDir()/n2pulse when empty), keyed by the composition and
-// SolverVersion; the cache file is written to a temporary file and renamed.
+// cached as CSV in cacheDir (os.UserCacheDir()/n2pulse when empty), keyed by the composition,
+// SolverVersion and a hash of the cross sections; the cache file is written to a temporary
+// file and renamed. The table returned is always the one read back from the CSV text (written
+// at full precision), so a fresh solve, a cached file and another worker give the same
+// numbers bit for bit. When the cache cannot be written the table is kept in memory only.
 func ForMixture(nitrogen, oxygen, helium float64, cacheDir string) (*Table, error) {
 	mix, err := Mixture(nitrogen, oxygen, helium)
 	if err != nil {
@@ -240,23 +321,43 @@ func ForMixture(nitrogen, oxygen, helium float64, cacheDir string) (*Table, erro
 	if near(nitrogen, AirNitrogen) && near(oxygen, AirOxygen) && near(helium, 0) {
 		return Builtin("air")
 	}
-	if cacheDir == "" {
-		d, err := os.UserCacheDir()
-		if err != nil {
-			return nil, fmt.Errorf("swarm: no cache directory: %w", err)
-		}
-		cacheDir = filepath.Join(d, "n2pulse")
+	xs, err := crossSectionHash()
+	if err != nil {
+		return nil, err
 	}
-	key := fmt.Sprintf("%s N2=%.6f O2=%.6f He=%.6f", SolverVersion, nitrogen, oxygen, helium)
+	key := fmt.Sprintf("%s xsec=%s N2=%.6f O2=%.6f He=%.6f", SolverVersion, xs, nitrogen, oxygen, helium)
 	sum := sha256.Sum256([]byte(key))
-	path := filepath.Join(cacheDir, "swarm-"+hex.EncodeToString(sum[:8])+".csv")
-	if b, err := os.ReadFile(path); err == nil {
-		if t, err := ReadCSV(bytes.NewReader(b), path); err == nil {
-			return t, nil
+	name := "swarm-" + hex.EncodeToString(sum[:8]) + ".csv"
+	if cacheDir == "" {
+		if d, err := os.UserCacheDir(); err == nil {
+			cacheDir = filepath.Join(d, "n2pulse")
 		}
-		// a damaged cache file is recomputed and replaced
 	}
-	t, res, err := SolveTable(mix, nil, TableFields)
+	e, _ := memTables.LoadOrStore(key, &tableEntry{})
+	ent := e.(*tableEntry)
+	ent.once.Do(func() { ent.t, ent.err = solveOrLoad(mix, key, cacheDir, name) })
+	if ent.err != nil {
+		memTables.Delete(key) // a later call tries again
+		return nil, ent.err
+	}
+	return ent.t, nil
+}
+
+// solveOrLoad reads the cache file when it holds a valid table, else solves the mixture, writes
+// the file (when cacheDir is not empty and writable) and returns the table read back from the
+// text written.
+func solveOrLoad(mix []Component, key, cacheDir, name string) (*Table, error) {
+	path := ""
+	if cacheDir != "" {
+		path = filepath.Join(cacheDir, name)
+		if b, err := os.ReadFile(path); err == nil {
+			if t, err := ReadCSV(bytes.NewReader(b), path); err == nil {
+				return t, nil
+			}
+			// a damaged cache file is recomputed and replaced
+		}
+	}
+	_, res, err := SolveTable(mix, nil, TableFields)
 	if err != nil {
 		return nil, err
 	}
@@ -264,11 +365,45 @@ func ForMixture(nitrogen, oxygen, helium float64, cacheDir string) (*Table, erro
 	if err := WriteResultsCSV(&buf, append(TableComments(mix, nil), "cache key: "+key), res); err != nil {
 		return nil, err
 	}
-	if err := os.MkdirAll(cacheDir, 0o755); err != nil {
-		return nil, fmt.Errorf("swarm: cache: %w", err)
+	t, err := ReadCSV(bytes.NewReader(buf.Bytes()), "solved table")
+	if err != nil {
+		return nil, err
 	}
-	if err := atomicfile.WriteFile(path, buf.Bytes()); err != nil {
-		return nil, fmt.Errorf("swarm: cache: %w", err)
+	if path != "" {
+		// A cache that cannot be written is not an error: the table lives in memory.
+		if os.MkdirAll(cacheDir, 0o755) == nil {
+			_ = atomicfile.WriteFile(path, buf.Bytes())
+		}
 	}
 	return t, nil
+}
+
+var (
+	xsecHashOnce sync.Once
+	xsecHash     string
+	xsecHashErr  error
+)
+
+// crossSectionHash is a short hash of the shipped cross-section files, part of the cache key:
+// a table cached before a data change is not read back after it.
+func crossSectionHash() (string, error) {
+	xsecHashOnce.Do(func() {
+		h := sha256.New()
+		names, err := fs.Glob(data.CrossSections, "xsec-*.txt")
+		if err != nil {
+			xsecHashErr = fmt.Errorf("swarm: %w", err)
+			return
+		}
+		for _, n := range names {
+			b, err := fs.ReadFile(data.CrossSections, n)
+			if err != nil {
+				xsecHashErr = fmt.Errorf("swarm: %w", err)
+				return
+			}
+			fmt.Fprintf(h, "%s %d\n", n, len(b))
+			h.Write(b)
+		}
+		xsecHash = hex.EncodeToString(h.Sum(nil)[:8])
+	})
+	return xsecHash, xsecHashErr
 }

@@ -2,6 +2,7 @@ package swarm
 
 import (
 	"bufio"
+	"bytes"
 	"encoding/csv"
 	"errors"
 	"fmt"
@@ -21,12 +22,24 @@ var Columns = []string{"reduced_field_Td", "mean_energy_eV", "drift_velocity_m_s
 // ncols is the number of required columns.
 const ncols = 10
 
-// OptionalColumns may follow the Columns anywhere in the header, found by name: the rate
+// ThreeBodyColumn is the optional column of the three-body part of k_att at ReferenceDensity
+// [m³/s]. A table without it has no three-body attachment to rescale (Table.AtDensity leaves
+// it as it is).
+const ThreeBodyColumn = "k_att3_m3_s"
+
+// Limits of ReadCSV: a swarm table is a few hundred rows; these bounds keep a wrong file (a
+// device, a huge log) from exhausting memory.
+const (
+	MaxCSVBytes = 16 << 20 // 16 MiB
+	MaxCSVRows  = 100000
+)
+
+// OptionalColumns may follow the Columns anywhere in the header, found by name: ThreeBodyColumn, the rate
 // coefficients of X → W³Δu and X → B′³Σu⁻ per N₂ molecule, and the power per electron and
 // per molecule of the whole gas taken by each Channel of the power split, in eV m³/s. A
 // table without them reads as zeros (no power split, no W and B′ feed).
 var OptionalColumns = func() []string {
-	c := []string{"k_W_m3_s", "k_Bp_m3_s"}
+	c := []string{ThreeBodyColumn, "k_W_m3_s", "k_Bp_m3_s"}
 	for ch := range NumChannels {
 		c = append(c, "power_"+ch.String()+"_eV_m3_s")
 	}
@@ -36,7 +49,7 @@ var OptionalColumns = func() []string {
 // optionalValues returns the optional values of c in the order of OptionalColumns, in the
 // CSV's units.
 func optionalValues(c *Coefficients) []float64 {
-	v := []float64{c.ExciteW, c.ExciteBPrime}
+	v := []float64{c.ThreeBodyAttachment, c.ExciteW, c.ExciteBPrime}
 	for _, p := range c.Power {
 		v = append(v, p/units.ElectronVolt)
 	}
@@ -47,18 +60,28 @@ func optionalValues(c *Coefficients) []float64 {
 func setOptional(c *Coefficients, i int, x float64) {
 	switch i {
 	case 0:
-		c.ExciteW = x
+		c.ThreeBodyAttachment = x
 	case 1:
+		c.ExciteW = x
+	case 2:
 		c.ExciteBPrime = x
 	default:
-		c.Power[i-2] = x * units.ElectronVolt
+		c.Power[i-3] = x * units.ElectronVolt
 	}
 }
 
 // ReadCSV reads a swarm table: an optional block of '#' comment lines, a header with at least
-// the Columns in order, then one row per reduced field. Errors read "name:line: column: problem".
+// the Columns in order (OptionalColumns anywhere after them), then one row per reduced field.
+// At most MaxCSVBytes and MaxCSVRows are read. Errors read "name:line: column: problem".
 func ReadCSV(r io.Reader, name string) (*Table, error) {
-	cr := csv.NewReader(r)
+	b, err := io.ReadAll(io.LimitReader(r, MaxCSVBytes+1))
+	if err != nil {
+		return nil, fmt.Errorf("swarm: %s: %w", name, err)
+	}
+	if len(b) > MaxCSVBytes {
+		return nil, fmt.Errorf("swarm: %s: file larger than %d MiB, the limit of a swarm table", name, MaxCSVBytes>>20)
+	}
+	cr := csv.NewReader(bytes.NewReader(b))
 	cr.FieldsPerRecord = -1
 	cr.TrimLeadingSpace = true
 	cr.Comment = '#'
@@ -102,6 +125,9 @@ func ReadCSV(r io.Reader, name string) (*Table, error) {
 			return nil, fmt.Errorf("swarm: %s: %w", name, err)
 		}
 		ln, _ := cr.FieldPos(0)
+		if len(rows) >= MaxCSVRows {
+			return nil, fmt.Errorf("swarm: %s:%d: more than %d rows, the limit of a swarm table", name, ln, MaxCSVRows)
+		}
 		if len(rec) < len(Columns) {
 			return nil, fmt.Errorf("swarm: %s:%d: %s: missing (row has %d columns, need %d)", name, ln, Columns[len(rec)], len(rec), len(Columns))
 		}
@@ -162,13 +188,13 @@ func ReadCSV(r io.Reader, name string) (*Table, error) {
 }
 
 // WriteCSV writes the table with the Columns and OptionalColumns header, E/N in Td and mean
-// energy in eV.
+// energy in eV, every number in the shortest form that reads back to the same float64.
 func (t *Table) WriteCSV(w io.Writer) error {
 	return writeCSV(w, nil, t.rows, nil, nil)
 }
 
-// writeCSV writes comment lines, the header (Columns plus extra names) and the rows with their
-// extra values.
+// writeCSV writes comment lines, the header (Columns, OptionalColumns, then extra names) and
+// the rows with their extra values, each number in the shortest form that round-trips.
 func writeCSV(w io.Writer, comments []string, rows []Coefficients, extraNames []string, extra [][]float64) error {
 	bw := bufio.NewWriter(w)
 	for _, c := range comments {
@@ -188,7 +214,7 @@ func writeCSV(w io.Writer, comments []string, rows []Coefficients, extraNames []
 			if k > 0 {
 				bw.WriteByte(',')
 			}
-			bw.WriteString(strconv.FormatFloat(v, 'g', 8, 64))
+			bw.WriteString(strconv.FormatFloat(v, 'g', -1, 64))
 		}
 		bw.WriteByte('\n')
 	}

@@ -76,8 +76,9 @@
 // after the solve as a two-body rate at the reference density N_ref (default 2.446e25 m⁻³,
 // 101325 Pa and 300 K), from the expressions of I.A. Kossyi, A.Yu. Kostinsky, A.A. Matveyev &
 // V.P. Silakov, Plasma Sources Sci. Technol. 1, 207 (1992), as quoted in public air-plasma
-// mechanism files, with T_e = (2/3)⟨ε⟩/k_B. It scales with N: a user at density N multiplies the
-// k_att3_m3_s column by N/N_ref. It is negligible above about 100 Td.
+// mechanism files, with T_e = (2/3)⟨ε⟩/k_B. It scales with N: Table.AtDensity rescales the
+// k_att3_m3_s column, and its part of k_att and η/N, from N_ref to the gas's density (the laser
+// model does so for every design). It is negligible above about 100 Td.
 //
 // Superelastic collisions are not included (at 300 K the vibrational and electronic
 // populations of the gas are negligible).
@@ -86,7 +87,10 @@
 //
 // SI in the API: E/N [V m²] (1 Td = 1e-21 V m²), energies [J], w [m/s], α/N and η/N [m²],
 // rate coefficients [m³/s]. Inside the solver energies are in eV. The CSV tables use Td and eV
-// for E/N and the mean energy, SI otherwise.
+// for E/N and the mean energy, SI otherwise. Tables are written with every number in its shortest round-trip form, and a
+// solved table is always used as read back from that text, so a fresh solve and a cached file
+// give the same results bit for bit. Rate columns of the single processes are named by species
+// and state (k_N2_C3Pi_u_m3_s, see ColumnName).
 //
 // # Rates per molecule
 //

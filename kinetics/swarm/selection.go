@@ -20,6 +20,7 @@ const (
 	ColExciteA
 	ColExciteB
 	ColExciteC
+	ColThreeBodyAttachment
 	ColExciteW
 	ColExciteBPrime
 	ColPower
@@ -111,7 +112,9 @@ func (s *Selection) At(en float64, first, last int, v, d []float64) {
 	for j := first; j < last; j++ {
 		if sl[j] == linearMark {
 			f := (en - s.x[i]) / (s.x[i+1] - s.x[i])
-			v[j] = a[j] + f*(b[j]-a[j])
+			// Clamped at zero: where ln(E/N) rounds onto a row's logarithm from below, f is a
+			// little below 0 and a value rising from zero would come out a little negative.
+			v[j] = max(0, a[j]+f*(b[j]-a[j]))
 			if d != nil {
 				d[j] = (b[j] - a[j]) / (s.x[i+1] - s.x[i])
 			}

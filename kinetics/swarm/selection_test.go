@@ -10,8 +10,8 @@ import (
 // interpolation itself; below the range the drift velocity is proportional to E/N.
 func TestSelection(t *testing.T) {
 	t.Parallel()
-	if ColPower != nbase+2 {
-		t.Fatalf("ColPower = %d, want %d: the columns must follow Coefficients.values", ColPower, nbase+2)
+	if ColPower != nbase+3 {
+		t.Fatalf("ColPower = %d, want %d: the columns must follow Coefficients.values", ColPower, nbase+3)
 	}
 	cols := []Column{ColExciteC, ColDrift, ColAttachment, ColPower + Column(ChannelIonisation), ColMeanEnergy}
 	for _, name := range []string{"n2", "air"} {

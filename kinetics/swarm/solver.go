@@ -145,14 +145,14 @@ func (t *table1) integral(a, b float64) float64 {
 // renormalised to sum exactly to 1; components with zero fraction are dropped) and settings.
 func NewSolver(mix []Component, s *Settings) (*Solver, error) {
 	set := Settings{Cells: DefaultCells, GasTemperature: 300,
-		ReferenceDensity: units.GasDensity(units.Atmosphere, 300)}
+		ReferenceDensity: ReferenceDensity}
 	if s != nil {
 		set = *s
 		if set.Cells == 0 {
 			set.Cells = DefaultCells
 		}
 		if set.ReferenceDensity == 0 {
-			set.ReferenceDensity = units.GasDensity(units.Atmosphere, 300)
+			set.ReferenceDensity = ReferenceDensity
 		}
 		if set.GasTemperature == 0 {
 			set.GasTemperature = 300
@@ -715,7 +715,7 @@ func (s *Solver) result(st *state) *Result {
 	r.ThreeBodyAttachment = k3
 	r.Coefficients = Coefficients{ReducedField: en, MeanEnergy: mean * ev, DriftVelocity: w,
 		Ionisation: kIon, Attachment: kAtt + k3, ExciteA: kA, ExciteB: kB, ExciteC: kC,
-		ExciteW: kW, ExciteBPrime: kBp}
+		ThreeBodyAttachment: k3, ExciteW: kW, ExciteBPrime: kBp}
 	// The power split: the elastic recoil, each channel's collisions, and the energy given to
 	// new electrons counted with ionisation. Where attachment outpaces ionisation that last
 	// term is negative; it is left out there (its size is the energy the lost electrons

@@ -5,6 +5,8 @@ import (
 	"fmt"
 	"math"
 	"sync/atomic"
+
+	"n2pulse/units"
 )
 
 // Coefficients are the electron transport and rate coefficients at one reduced field (SI).
@@ -25,30 +27,33 @@ type Coefficients struct {
 	ExciteC       float64 // k for X → C³Πu (all v) [m³/s]
 
 	// Optional: zero in a table that does not give them.
-	ExciteW      float64              // k for X → W³Δu, per N₂ molecule [m³/s]
-	ExciteBPrime float64              // k for X → B′³Σu⁻, per N₂ molecule [m³/s]
-	Power        [NumChannels]float64 // power taken by each Channel, per electron and per molecule of the whole gas [J m³/s]
+	// ThreeBodyAttachment is the part of Attachment (and of EtaN·DriftVelocity) that comes from
+	// three-body attachment to O₂, taken at ReferenceDensity [m³/s]; see Table.AtDensity.
+	ThreeBodyAttachment float64
+	ExciteW             float64              // k for X → W³Δu, per N₂ molecule [m³/s]
+	ExciteBPrime        float64              // k for X → B′³Σu⁻, per N₂ molecule [m³/s]
+	Power               [NumChannels]float64 // power taken by each Channel, per electron and per molecule of the whole gas [J m³/s]
 }
 
 // nbase is the number of interpolated quantities after ReducedField that every table has;
 // nfields counts the optional ones too.
 const (
 	nbase   = 9
-	nfields = nbase + 2 + int(NumChannels)
+	nfields = nbase + 3 + int(NumChannels)
 )
 
 func (c *Coefficients) values() [nfields]float64 {
 	v := [nfields]float64{c.MeanEnergy, c.DriftVelocity, c.AlphaN, c.EtaN, c.Ionisation,
-		c.Attachment, c.ExciteA, c.ExciteB, c.ExciteC, c.ExciteW, c.ExciteBPrime}
-	copy(v[nbase+2:], c.Power[:])
+		c.Attachment, c.ExciteA, c.ExciteB, c.ExciteC, c.ThreeBodyAttachment, c.ExciteW, c.ExciteBPrime}
+	copy(v[nbase+3:], c.Power[:])
 	return v
 }
 
 func fromValues(en float64, v *[nfields]float64) Coefficients {
 	c := Coefficients{ReducedField: en, MeanEnergy: v[0], DriftVelocity: v[1], AlphaN: v[2],
 		EtaN: v[3], Ionisation: v[4], Attachment: v[5], ExciteA: v[6], ExciteB: v[7], ExciteC: v[8],
-		ExciteW: v[9], ExciteBPrime: v[10]}
-	copy(c.Power[:], v[nbase+2:])
+		ThreeBodyAttachment: v[9], ExciteW: v[10], ExciteBPrime: v[11]}
+	copy(c.Power[:], v[nbase+3:])
 	return c
 }
 
@@ -85,7 +90,8 @@ type Table struct {
 }
 
 // NewTable checks rows (at least two, E/N positive and strictly ascending, all values finite
-// and not negative, drift velocity positive) and builds a table over a copy of them.
+// and not negative, drift velocity positive, the three-body part of the attachment not above
+// the attachment) and builds a table over a copy of them.
 func NewTable(rows []Coefficients) (*Table, error) {
 	if len(rows) < 2 {
 		return nil, fmt.Errorf("swarm: table needs at least 2 rows, got %d", len(rows))
@@ -101,7 +107,11 @@ func NewTable(rows []Coefficients) (*Table, error) {
 		if !(r.DriftVelocity > 0) {
 			return nil, fmt.Errorf("swarm: row %d: drift velocity %g m/s: must be positive", i+1, r.DriftVelocity)
 		}
-		for k, x := range r.values() {
+		if r.ThreeBodyAttachment > r.Attachment*(1+1e-12) {
+			return nil, fmt.Errorf("swarm: row %d: k_att3 %g m³/s: must not exceed k_att %g m³/s", i+1, r.ThreeBodyAttachment, r.Attachment)
+		}
+		v := r.values()
+		for k, x := range v {
 			if math.IsNaN(x) || math.IsInf(x, 0) || x < 0 {
 				return nil, fmt.Errorf("swarm: row %d: %s %g: must be finite and not negative", i+1, fieldNames[k], x)
 			}
@@ -119,9 +129,9 @@ func NewTable(rows []Coefficients) (*Table, error) {
 var linearMark = math.Inf(1)
 
 var fieldNames = func() [nfields]string {
-	n := [nfields]string{"mean energy", "drift velocity", "alpha/N", "eta/N", "k_ion", "k_att", "k_A", "k_B", "k_C", "k_W", "k_Bp"}
+	n := [nfields]string{"mean energy", "drift velocity", "alpha/N", "eta/N", "k_ion", "k_att", "k_A", "k_B", "k_C", "k_att3", "k_W", "k_Bp"}
 	for c := range NumChannels {
-		n[nbase+2+int(c)] = "power " + c.String()
+		n[nbase+3+int(c)] = "power " + c.String()
 	}
 	return n
 }()
@@ -145,6 +155,40 @@ func (t *Table) At(reducedField float64) Coefficients {
 	var v [nfields]float64
 	t.all.At(en, 0, nfields, v[:], nil)
 	return fromValues(en, &v)
+}
+
+// ReferenceDensity is the total gas density [m⁻³] at which the three-body attachment in the
+// solver's tables is counted (101325 Pa at 300 K, 2.446e25 m⁻³): the k_att3_m3_s column and the
+// part of k_att and η/N it gives.
+var ReferenceDensity = units.GasDensity(units.Atmosphere, 300)
+
+// AtDensity returns the table for a gas of total density n [m⁻³]: three-body attachment, a
+// two-body rate proportional to the density, is rescaled from ReferenceDensity to n in the
+// attachment rate, η/N and the k_att3 column; every other value is unchanged (the power split
+// keeps its 1-atm attachment share, a small term below 100 Td). A table without three-body
+// attachment (all k_att3 zero, as a user table without that column) is returned as it is.
+// n must be positive and finite.
+func (t *Table) AtDensity(n float64) (*Table, error) {
+	if !(n > 0) || math.IsInf(n, 0) {
+		return nil, fmt.Errorf("swarm: gas density %g m⁻³: must be positive and finite", n)
+	}
+	has := false
+	for _, r := range t.rows {
+		has = has || r.ThreeBodyAttachment > 0
+	}
+	if !has || n == ReferenceDensity {
+		return t, nil
+	}
+	f := n / ReferenceDensity
+	rows := t.Rows()
+	for i := range rows {
+		r := &rows[i]
+		d := r.ThreeBodyAttachment * (f - 1)
+		r.Attachment = max(0, r.Attachment+d)
+		r.EtaN = max(0, r.EtaN+d/r.DriftVelocity)
+		r.ThreeBodyAttachment *= f
+	}
+	return NewTable(rows)
 }
 
 // Range returns the lowest and highest reduced field of the rows [V m²].
