@@ -45,46 +45,19 @@ func ExampleDesign() *Design {
 }
 
 // ParseDesign decodes a TOML design, rejecting unknown keys, wrong units and impossible
-// values; name is used in messages. Keys absent from the file take the defaults of Defaults.
+// values; name is used in messages. Keys absent from the file take the defaults of Defaults;
+// a [build] section gives the circuit values the file leaves out (see ParseBuiltDesign, the
+// one parse path).
 func ParseDesign(b []byte, name string) (*Design, error) {
 	flat, err := decodeFlat(b, name)
 	if err != nil {
 		return nil, err
 	}
-	if hasBuild(flat) {
-		b, err := parseBuilt(flat)
-		if err != nil {
-			return nil, fmt.Errorf("%s: %w", name, err)
-		}
-		b.Design.Derived = b.Derived
-		return b.Design, nil
-	}
-	keys := slices.Sorted(maps.Keys(flat))
-	d := Defaults()
-	d.given = make(map[string]bool, len(flat))
-	for _, k := range keys {
-		d.given[k] = true
-		if err := d.setValue(k, flat[k]); err != nil {
-			return nil, fmt.Errorf("%s: %w", name, err)
-		}
-	}
-	for _, k := range requiredKeys {
-		if _, ok := flat[k]; !ok {
-			return nil, fmt.Errorf("%s: %w", name, &KeyError{Key: k, Problem: "missing: every design must give it"})
-		}
-	}
-	for _, x := range derivable {
-		if _, ok := flat[x.key]; !ok {
-			return nil, fmt.Errorf("%s: %w", name, &KeyError{Key: x.key, Problem: "missing: every design must give it"})
-		}
-	}
-	if err := d.BalanceMixture(keys); err != nil {
+	built, err := parseBuilt(flat)
+	if err != nil {
 		return nil, fmt.Errorf("%s: %w", name, err)
 	}
-	if err := d.Validate(); err != nil {
-		return nil, fmt.Errorf("%s: %w", name, err)
-	}
-	return d, nil
+	return built.Design, nil
 }
 
 // mixtureKeys are the mole-fraction keys of the gas, nitrogen first.
