@@ -10,6 +10,8 @@ import (
 	"strings"
 	"testing"
 
+	"github.com/BurntSushi/toml"
+
 	"n2pulse/kinetics/build"
 	"n2pulse/kinetics/study"
 	"n2pulse/units"
@@ -133,15 +135,21 @@ func TestSweepVaryBuildKey(t *testing.T) {
 	}
 }
 
-// init --all lists the build keys with the others.
+// init --all lists the build keys with the others, and its output is TOML (it once held +Inf).
 func TestInitAllListsBuildKeys(t *testing.T) {
+	t.Parallel()
 	var out, errb bytes.Buffer
 	if code := run([]string{"init", "--all"}, &out, &errb); code != 0 {
 		t.Fatalf("init --all: exit %d, stderr %q", code, errb.String())
 	}
-	for _, k := range []string{"build.switch_plate_width = 0", `build.dielectric = ""`, "build.secondary_emission = 0", "circuit.switch_capacitance = 0"} {
-		if !strings.Contains(out.String(), k+"\n") {
+	for _, k := range []string{"# build.switch_plate_width = 0  #", `# build.dielectric = ""  #`, "# build.secondary_emission = 0  #",
+		"# circuit.switch_capacitance = 0  # required", `optics.excitation_velocity = "infinite"  #`} {
+		if !strings.Contains(out.String(), "\n"+k) {
 			t.Errorf("init --all lacks %q", k)
 		}
+	}
+	var raw map[string]any
+	if _, err := toml.Decode(out.String(), &raw); err != nil {
+		t.Errorf("init --all is not TOML: %v", err)
 	}
 }

@@ -34,8 +34,11 @@ func runInit(args []string, stdout, stderr io.Writer) error {
 		text = data.BoardDesign()
 	}
 	if *all {
-		text = []byte("# every key of a design file, with the defaults in SI (apparatus keys have no default)\n" +
-			design.Defaults().String())
+		text = []byte("# n2pulse design: every key with its default, in SI units with the unit written out.\n" +
+			"# Lines starting with '# key =' are keys with no default (the apparatus: give them) or\n" +
+			"# optional [build] keys; the comment after each key says what it means and its range.\n" +
+			"# CAUTION: a charged laser holds lethal energy and its 337 nm beam harms eyes and skin.\n" +
+			design.Defaults().Listing())
 	}
 	if fs.NArg() == 0 {
 		_, err := stdout.Write(text)

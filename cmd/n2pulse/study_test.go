@@ -153,7 +153,28 @@ func TestShardedSweepMerges(t *testing.T) {
 		t.Errorf("merge drew no map: %v", err)
 	}
 	errb.Reset()
-	if code := run([]string{"merge", "--out", merged, shards[0], shards[2]}, &out, &errb); code != 1 || !strings.Contains(errb.String(), "2 of 6 points missing: 1, 4") {
+	if code := run([]string{"merge", "--force", "--out", merged, shards[0], shards[2]}, &out, &errb); code != 1 || !strings.Contains(errb.String(), "2 of 6 points missing: 1, 4") {
 		t.Errorf("merge of two shards: exit %d, %q", code, errb.String())
+	}
+	// An existing merge is not overwritten without --force, and a shard's own directory is
+	// never the output (it would become the whole sweep and refuse to resume as a shard).
+	for _, c := range []struct {
+		args []string
+		want string
+	}{
+		{append([]string{"merge", "--out", merged}, shards...), "is not empty"},
+		{append([]string{"merge", "--force", "--out", shards[1]}, shards...), "is the shard directory"},
+	} {
+		errb.Reset()
+		if code := run(c.args, &out, &errb); code != 1 || !strings.Contains(errb.String(), c.want) {
+			t.Errorf("%v: exit %d, %q; want exit 1 and %q", c.args, code, errb.String(), c.want)
+		}
+	}
+	if m1, err := study.ReadManifest(shards[1]); err != nil || m1.Shard.K != 2 || m1.Shard.N != 3 {
+		t.Errorf("shard 2's manifest after a refused merge: %+v, %v; want shard 2/3", m1, err)
+	}
+	errb.Reset()
+	if code := run(append([]string{"merge", "--force", "--out", merged}, shards...), &out, &errb); code != 0 {
+		t.Errorf("merge --force over the earlier merge: exit %d, %q", code, errb.String())
 	}
 }

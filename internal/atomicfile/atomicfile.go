@@ -9,6 +9,7 @@ import (
 	"io"
 	"os"
 	"path/filepath"
+	"regexp"
 )
 
 // WriteFile writes b to path atomically with permissions 0644.
@@ -46,4 +47,29 @@ func WriteTo(path string, w io.WriterTo) error {
 		return fmt.Errorf("writing %s: %w", path, err)
 	}
 	return WriteFile(path, b.Bytes())
+}
+
+// tempPattern is the name CreateTemp gives WriteFile's temporary files: "." + the target's
+// name + ".tmp" + digits.
+var tempPattern = regexp.MustCompile(`^\..+\.tmp[0-9]+$`)
+
+// RemoveLeftovers deletes the temporary files that a WriteFile killed before its rename left
+// in dir, and returns how many it removed. Call it when a program starts writing into a
+// directory again (a resumed sweep, a re-run into the same output), never while another
+// process writes there.
+func RemoveLeftovers(dir string) (int, error) {
+	entries, err := os.ReadDir(dir)
+	if err != nil {
+		return 0, fmt.Errorf("cleaning %s: %w", dir, err)
+	}
+	n := 0
+	for _, e := range entries {
+		if e.Type().IsRegular() && tempPattern.MatchString(e.Name()) {
+			if err := os.Remove(filepath.Join(dir, e.Name())); err != nil {
+				return n, fmt.Errorf("cleaning %s: %w", dir, err)
+			}
+			n++
+		}
+	}
+	return n, nil
 }

@@ -15,6 +15,7 @@ import (
 
 	"n2pulse/data"
 	"n2pulse/kinetics/build"
+	"n2pulse/units"
 )
 
 // requiredKeys must appear in every design file: the defaults cover only published constants
@@ -44,46 +45,19 @@ func ExampleDesign() *Design {
 }
 
 // ParseDesign decodes a TOML design, rejecting unknown keys, wrong units and impossible
-// values; name is used in messages. Keys absent from the file take the defaults of Defaults.
+// values; name is used in messages. Keys absent from the file take the defaults of Defaults;
+// a [build] section gives the circuit values the file leaves out (see ParseBuiltDesign, the
+// one parse path).
 func ParseDesign(b []byte, name string) (*Design, error) {
 	flat, err := decodeFlat(b, name)
 	if err != nil {
 		return nil, err
 	}
-	if hasBuild(flat) {
-		b, err := parseBuilt(flat)
-		if err != nil {
-			return nil, fmt.Errorf("%s: %w", name, err)
-		}
-		b.Design.Derived = b.Derived
-		return b.Design, nil
-	}
-	keys := slices.Sorted(maps.Keys(flat))
-	d := Defaults()
-	d.given = make(map[string]bool, len(flat))
-	for _, k := range keys {
-		d.given[k] = true
-		if err := d.setValue(k, flat[k]); err != nil {
-			return nil, fmt.Errorf("%s: %w", name, err)
-		}
-	}
-	for _, k := range requiredKeys {
-		if _, ok := flat[k]; !ok {
-			return nil, fmt.Errorf("%s: %w", name, &KeyError{Key: k, Problem: "missing: every design must give it"})
-		}
-	}
-	for _, x := range derivable {
-		if _, ok := flat[x.key]; !ok {
-			return nil, fmt.Errorf("%s: %w", name, &KeyError{Key: x.key, Problem: "missing: every design must give it"})
-		}
-	}
-	if err := d.BalanceMixture(keys); err != nil {
+	built, err := parseBuilt(flat)
+	if err != nil {
 		return nil, fmt.Errorf("%s: %w", name, err)
 	}
-	if err := d.Validate(); err != nil {
-		return nil, fmt.Errorf("%s: %w", name, err)
-	}
-	return d, nil
+	return built.Design, nil
 }
 
 // mixtureKeys are the mole-fraction keys of the gas, nitrogen first.
@@ -243,4 +217,73 @@ func (d *Design) String() string {
 		}
 	}
 	return b.String()
+}
+
+// Listing writes every key with the design's value as a TOML design file of dotted keys, each
+// with what it means and its allowed range as a comment: numbers in SI with their unit
+// ("0.2 m"), pure numbers and 0 bare, an infinite excitation velocity as "infinite". A key
+// whose value could not be read back is written commented out: an apparatus key with no value
+// given (the defaults give none), an empty choice, and the [build] keys of a design without a
+// [build] section (giving one switches the file to a design described as built). So the
+// listing always parses as TOML and, once the apparatus keys are given, as a design.
+func (d *Design) Listing() string {
+	var b strings.Builder
+	hasBuild := d.Build != (build.Spec{})
+	for _, f := range fieldList {
+		var value string
+		ok := true
+		switch {
+		case f.str != nil:
+			v := *f.str(d)
+			value = strconv.Quote(v)
+			ok = v != "" || f.choices == nil
+		case f.integer:
+			value = strconv.Itoa(d.Numerics.Cells)
+		default:
+			v := *f.num(d)
+			switch {
+			case math.IsInf(v, 1):
+				value = `"infinite"`
+			case f.dim == units.Dimensionless || v == 0:
+				value = strconv.FormatFloat(v, 'g', -1, 64)
+			default:
+				value = strconv.Quote(strconv.FormatFloat(v, 'g', -1, 64) + " " + f.unit)
+			}
+			ok = (v == 0 && f.zeroOK) || (v >= f.min && v <= f.max)
+		}
+		note := f.help
+		switch {
+		case f.num != nil || f.integer:
+			note += "; allowed " + f.rangeText()
+		case f.choices != nil:
+			note += "; allowed " + strings.Join(f.choices(), ", ")
+		}
+		if isBuildKey(f.key) && !hasBuild {
+			ok = false
+		}
+		if required(f.key) && !d.given[f.key] {
+			ok = false
+			note = "required: " + note
+		}
+		prefix := ""
+		if !ok {
+			prefix = "# "
+		}
+		fmt.Fprintf(&b, "%s%s = %s  # %s\n", prefix, f.key, value, note)
+	}
+	return b.String()
+}
+
+// required reports whether every design file must give key (requiredKeys, and the circuit
+// values a [build] section can derive).
+func required(key string) bool {
+	if slices.Contains(requiredKeys, key) {
+		return true
+	}
+	for _, x := range derivable {
+		if x.key == key {
+			return true
+		}
+	}
+	return false
 }

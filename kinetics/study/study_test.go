@@ -3,6 +3,7 @@ package study
 import (
 	"bytes"
 	"context"
+	"encoding/json"
 	"errors"
 	"fmt"
 	"math"
@@ -435,13 +436,30 @@ func TestWorkersRunConcurrently(t *testing.T) {
 	}
 }
 
-// TestJournalThatIsNotThisSweep: a damaged line inside the journal, a point outside the grid or
-// another shard's point make resume refuse, naming the line.
+// signedLine is a journal line with its correct checksum.
+func signedLine(t *testing.T, point int, row []string) string {
+	t.Helper()
+	e := journalEntry{Point: point, Row: row}
+	sum, err := e.checksum()
+	if err != nil {
+		t.Fatal(err)
+	}
+	b, err := json.Marshal(journalLine{Point: point, Row: row, CRC: sum})
+	if err != nil {
+		t.Fatal(err)
+	}
+	return string(b) + "\n"
+}
+
+// TestJournalThatIsNotThisSweep: a damaged line inside the journal, a line without a checksum
+// (an older journal) or with one that does not match (a number edited by hand), a point
+// outside the grid or another shard's point make resume refuse, naming the line.
 func TestJournalThatIsNotThisSweep(t *testing.T) {
 	for _, c := range []struct{ line, want string }{
 		{`{"point":1,"row":[` + "\n", "journal.jsonl:1"},
-		{`{"point":99,"row":[]}` + "\n", "outside the grid"},
-		{`{"point":1,"row":["1"]}` + "\n", "1 fields"},
+		{`{"point":1,"row":["1"]}` + "\n", "no checksum"},
+		{signedLine(t, 99, []string{}), "outside the grid"},
+		{signedLine(t, 1, []string{"1"}), "1 fields"},
 	} {
 		s := testSweep(t, t.TempDir())
 		interrupt(t, s, 3)
@@ -458,9 +476,59 @@ func TestJournalThatIsNotThisSweep(t *testing.T) {
 	interrupt(t, s, 3)
 	path := filepath.Join(s.Dir, JournalFile)
 	good, _ := os.ReadFile(path)
-	os.WriteFile(path, append([]byte(`{"point":0,"row":[]}`+"\n"), good...), 0o644)
+	os.WriteFile(path, append([]byte(signedLine(t, 0, []string{})), good...), 0o644)
 	s.Resume = true
 	if _, err := s.Run(context.Background()); err == nil || !strings.Contains(err.Error(), "not in shard 2/2") {
 		t.Errorf("another shard's point: %v", err)
+	}
+}
+
+// TestJournalEditedNumber: a digit changed inside a whole, well-formed journal line is caught
+// by the line's checksum, on resume and on merge.
+func TestJournalEditedNumber(t *testing.T) {
+	t.Parallel()
+	s := testSweep(t, t.TempDir())
+	interrupt(t, s, 3)
+	path := filepath.Join(s.Dir, JournalFile)
+	b := readFile(t, path)
+	first, rest, _ := bytes.Cut(b, []byte("\n"))
+	var jl journalLine
+	if err := json.Unmarshal(first, &jl); err != nil {
+		t.Fatal(err)
+	}
+	k := len(s.Axes) + 1 // the first figure of merit
+	if jl.Row[k] == "" {
+		t.Fatalf("point %d has no value in column %d to edit: %v", jl.Point, k, jl.Row)
+	}
+	edited := bytes.Replace(first, []byte(`"`+jl.Row[k]+`"`), []byte(`"`+jl.Row[k]+`1"`), 1)
+	if bytes.Equal(edited, first) {
+		t.Fatal("edit did not change the line")
+	}
+	os.WriteFile(path, append(append(edited, '\n'), rest...), 0o644)
+	s.Resume = true
+	if _, err := s.Run(context.Background()); err == nil || !strings.Contains(err.Error(), "changed after it was written") {
+		t.Errorf("resume over an edited line: %v", err)
+	}
+	if _, _, err := Merge([]string{s.Dir}); err == nil || !strings.Contains(err.Error(), "journal.jsonl:1: checksum") {
+		t.Errorf("merge over an edited line: %v", err)
+	}
+}
+
+// TestResumeRemovesLeftovers: a temporary results.csv left by a kill between write and
+// rename is removed when the sweep resumes.
+func TestResumeRemovesLeftovers(t *testing.T) {
+	t.Parallel()
+	s := testSweep(t, t.TempDir())
+	interrupt(t, s, 3)
+	left := filepath.Join(s.Dir, ".results.csv.tmp2718281828")
+	if err := os.WriteFile(left, []byte("point,half a table"), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	s.Resume = true
+	if _, err := s.Run(context.Background()); err != nil {
+		t.Fatal(err)
+	}
+	if _, err := os.Stat(left); !errors.Is(err, os.ErrNotExist) {
+		t.Errorf("%s still there after resume: %v", left, err)
 	}
 }

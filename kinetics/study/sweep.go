@@ -11,6 +11,7 @@ import (
 	"path/filepath"
 	"slices"
 
+	"n2pulse/internal/atomicfile"
 	"n2pulse/kinetics/design"
 )
 
@@ -166,6 +167,11 @@ func (s *Sweep) Run(ctx context.Context) (*Table, error) {
 	}
 	if err := s.prepare(m); err != nil {
 		return nil, err
+	}
+	// A kill between the write and the rename of results.csv or sweep.json leaves a
+	// temporary file; the next run or resume removes it.
+	if _, err := atomicfile.RemoveLeftovers(s.Dir); err != nil {
+		return nil, fmt.Errorf("study: %w", err)
 	}
 	j, err := openJournal(filepath.Join(s.Dir, JournalFile), m)
 	if err != nil {
