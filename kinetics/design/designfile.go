@@ -4,6 +4,7 @@ import (
 	"bytes"
 	"errors"
 	"fmt"
+	"io"
 	"maps"
 	"math"
 	"os"
@@ -28,11 +29,37 @@ var requiredKeys = []string{
 
 // LoadDesign reads and checks a design file.
 func LoadDesign(path string) (*Design, error) {
-	b, err := os.ReadFile(path)
+	b, err := ReadFile(path)
+	if err != nil {
+		return nil, err
+	}
+	return ParseDesign(b, path)
+}
+
+// MaxDesignBytes bounds the text of a design: the listing of every key with comments is
+// about 10 kB, so a larger input (a wrong file, /dev/zero) is refused before it fills memory.
+const MaxDesignBytes = 1 << 20
+
+// ReadFile returns the text of the design file at path, at most MaxDesignBytes.
+func ReadFile(path string) ([]byte, error) {
+	f, err := os.Open(path)
 	if err != nil {
 		return nil, fmt.Errorf("design: %w", err)
 	}
-	return ParseDesign(b, path)
+	defer f.Close()
+	return ReadText(f, path)
+}
+
+// ReadText reads a design's text from r (named name in messages), at most MaxDesignBytes.
+func ReadText(r io.Reader, name string) ([]byte, error) {
+	b, err := io.ReadAll(io.LimitReader(r, MaxDesignBytes+1))
+	if err != nil {
+		return nil, fmt.Errorf("design: %s: %w", name, err)
+	}
+	if len(b) > MaxDesignBytes {
+		return nil, fmt.Errorf("design: %s: longer than %d bytes, not a design file", name, MaxDesignBytes)
+	}
+	return b, nil
 }
 
 // ExampleDesign returns the built-in example: a bench-top atmospheric Blumlein laser.
