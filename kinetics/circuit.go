@@ -146,12 +146,13 @@ func (c *circuit) plasmaCurrentQuiet(vg, ne float64) float64 {
 
 // pumpRates are the rate coefficients for X → B³Πg, X → C³Πu, X → W³Δu and X → B′³Σu⁻
 // [m³/s] at channel voltage vg (W and B′ zero for a table without them).
-func (c *circuit) pumpRates(vg float64) (kB, kC, kW, kBp float64) {
+// The mean electron energy [J] comes with them.
+func (c *circuit) pumpRates(vg float64) (kB, kC, kW, kBp, mean float64) {
 	en := c.reducedField(vg)
 	c.count(en)
 	var k [nRates]float64
-	c.rates.at(en, rateExcB, rateExcBp+1, &k, nil)
-	return k[rateExcB], k[rateExcC], k[rateExcW], k[rateExcBp]
+	c.rates.at(en, rateExcB, rateMean+1, &k, nil)
+	return k[rateExcB], k[rateExcC], k[rateExcW], k[rateExcBp], k[rateMean]
 }
 
 // powerSplit returns the share of the plasma power taken by each channel of the swarm's

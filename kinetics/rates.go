@@ -3,8 +3,8 @@ package kinetics
 import "n2pulse/kinetics/swarm"
 
 // Coefficients of a swarm table that the circuit and the pump use, in the order swarmRates
-// keeps them: the first three for the discharge (Eval and its Jacobian), the next four for
-// the pump rates, then the power taken by each channel of the swarm's power split.
+// keeps them: the first three for the discharge (Eval and its Jacobian), the next five for
+// the pump rates and the electrons' mean energy, then the power taken by each channel of the swarm's power split.
 const (
 	rateDrift = iota // drift velocity [m/s]
 	rateIon          // k_ion [m³/s]
@@ -13,6 +13,7 @@ const (
 	rateExcC         // k for X → C³Πu [m³/s]
 	rateExcW         // k for X → W³Δu [m³/s]
 	rateExcBp        // k for X → B′³Σu⁻ [m³/s]
+	rateMean         // mean electron energy [J]
 	ratePower        // first of swarm.NumChannels powers per electron and molecule [J m³/s]
 	nRates    = ratePower + int(swarm.NumChannels)
 )
@@ -20,7 +21,7 @@ const (
 // rateColumns are the columns of the swarm table in the order above.
 var rateColumns = func() []swarm.Column {
 	c := []swarm.Column{swarm.ColDrift, swarm.ColIonisation, swarm.ColAttachment, swarm.ColExciteB,
-		swarm.ColExciteC, swarm.ColExciteW, swarm.ColExciteBPrime}
+		swarm.ColExciteC, swarm.ColExciteW, swarm.ColExciteBPrime, swarm.ColMeanEnergy}
 	for ch := range swarm.NumChannels {
 		c = append(c, swarm.ColPower+swarm.Column(ch))
 	}

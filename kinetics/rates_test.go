@@ -21,7 +21,7 @@ func TestSwarmRates(t *testing.T) {
 		lo, hi := tb.Range()
 		for _, en := range []float64{0, 0.3 * lo, lo, math.Sqrt(lo * hi), 0.5 * hi, hi, 1.7 * hi} {
 			c := tb.At(en)
-			want := [nRates]float64{c.DriftVelocity, c.Ionisation, c.Attachment, c.ExciteB, c.ExciteC, c.ExciteW, c.ExciteBPrime}
+			want := [nRates]float64{c.DriftVelocity, c.Ionisation, c.Attachment, c.ExciteB, c.ExciteC, c.ExciteW, c.ExciteBPrime, c.MeanEnergy}
 			copy(want[ratePower:], c.Power[:])
 			var v, d [nRates]float64
 			r.at(en, 0, nRates, &v, &d)

@@ -202,6 +202,7 @@ func laserParameters(d *design.Design) (Parameters, []string, error) {
 type waveforms struct {
 	voltage, current, field, density []float64                  // V_ch [V], channel current [A], E/N [V m²], n_e [m⁻³]
 	pumpC, pumpB                     []float64                  // excitation rates into C(0) and B(0) [m⁻³ s⁻¹]
+	lossC                            []float64                  // loss rate of C(0) by electron collisions (Born–Bethe and Lotz estimate) [s⁻¹]
 	stored, deposited                float64                    // [J]
 	switchLoss, shuntLoss, left      float64                    // dissipated in the switch and the shunt, left in the circuit [J]
 	plasmaSplit                      [swarm.NumChannels]float64 // Σ plasma power × channel share × Δt over the samples [J]
@@ -244,13 +245,14 @@ func solveCircuit(c *circuit, d *design.Design, par *Parameters, steps int) (*wa
 		voltage: make([]float64, steps), current: make([]float64, steps),
 		field: make([]float64, steps), density: make([]float64, steps),
 		pumpC: make([]float64, steps), pumpB: make([]float64, steps),
-		plasmaPower: make([]float64, steps),
-		stored:      stored,
+		plasmaPower: make([]float64, steps), lossC: make([]float64, steps),
+		stored: stored,
 	}
 	_, hi := c.table.Range()
 	nX := c.density * d.Gas.Nitrogen
 	shareC, shareB := par.UpperShare*nX, par.LowerShare*nX
 	man := newManifold(d.Levels, d.Gas, c.density, dt)
+	eScale := d.Levels.UpperElectronScale
 	y := make([]float64, nState)
 	k := 0
 	for k < steps {
@@ -268,11 +270,14 @@ func solveCircuit(c *circuit, d *design.Design, par *Parameters, steps int) (*wa
 				return nil, Stats{}, fmt.Errorf("kinetics: circuit: %w", err)
 			}
 			ne := math.Exp(y[iLnNe])
-			kB, kC, kW, kBp := c.pumpRates(y[iVg])
+			kB, kC, kW, kBp, mean := c.pumpRates(y[iVg])
 			w.voltage[k] = y[iVg]
 			w.current[k] = y[iIc]
 			w.field[k] = c.reducedField(y[iVg])
 			w.density[k] = ne
+			if eScale > 0 {
+				w.lossC[k] = eScale * upperElectronLoss(mean, par.UpperLifetime, par.PhotonEnergy, par.UpperEnergy) * ne
+			}
 			w.pumpC[k] = kC * ne * shareC
 			w.pumpB[k] = kB*ne*shareB + man.step(((1-par.LowerShare)*kB+kW+kBp)*ne*nX)
 			if share, ok := c.powerSplit(y[iVg]); ok {

@@ -144,6 +144,9 @@ func (sh *shot) upperDecay() (eC, wC []float64) {
 	eC, wC = make([]float64, sh.steps), make([]float64, sh.steps)
 	for k := range eC {
 		g := gamma0 + kE*sh.wf.density[k]
+		if sh.wf.lossC != nil {
+			g += sh.wf.lossC[k] // the Born–Bethe/Lotz estimate of electron collisions
+		}
 		em1 := math.Expm1(-g * dt)
 		eC[k], wC[k] = 1+em1, -em1/g
 	}

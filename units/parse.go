@@ -357,14 +357,18 @@ func parseFactor(t string) (baseUnit, int, int, error) {
 
 // Format writes v (in the SI unit unit) with an SI prefix and three significant figures:
 // Format(1.234e-6, "J") is "1.23 µJ".
-func Format(v float64, unit string) string {
+func Format(v float64, unit string) string { return FormatDigits(v, unit, 3) }
+
+// FormatDigits writes v (in the SI unit unit) with an SI prefix and the given number of
+// significant figures: FormatDigits(2666.4473684210525, "Pa", 6) is "2.66645 kPa".
+func FormatDigits(v float64, unit string, digits int) string {
 	if v == 0 || math.IsNaN(v) || math.IsInf(v, 0) {
-		return fmt.Sprintf("%.3g %s", v, unit)
+		return fmt.Sprintf("%.*g %s", digits, v, unit)
 	}
 	exp := int(math.Floor(math.Log10(math.Abs(v))/3)) * 3
 	exp = max(-15, min(12, exp))
 	names := map[int]string{-15: "f", -12: "p", -9: "n", -6: "µ", -3: "m", 0: "", 3: "k", 6: "M", 9: "G", 12: "T"}
-	return fmt.Sprintf("%.3g %s%s", v/math.Pow(10, float64(exp)), names[exp], unit)
+	return fmt.Sprintf("%.*g %s%s", digits, v/math.Pow(10, float64(exp)), names[exp], unit)
 }
 
 // UnitOf returns the unit written after the number in text ("20Torr" → "Torr", "14 kV" → "kV"),

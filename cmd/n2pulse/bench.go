@@ -5,7 +5,6 @@ import (
 	"fmt"
 	"io"
 	"math"
-	"os"
 	"strings"
 	"text/tabwriter"
 
@@ -38,10 +37,9 @@ func runBench(args []string, stdout, stderr io.Writer) error {
 	case 0:
 		text = data.ExampleDesign()
 	case 1:
-		name = fs.Arg(0)
 		var err error
-		if text, err = os.ReadFile(name); err != nil {
-			return fmt.Errorf("bench: %w", err)
+		if text, name, err = designText(fs.Arg(0)); err != nil {
+			return err
 		}
 	default:
 		return usagef("bench: takes at most one design file, got %d arguments", fs.NArg())
@@ -57,11 +55,11 @@ func runBench(args []string, stdout, stderr io.Writer) error {
 				return usagef("--set %q: want key=value, e.g. --set gas.pressure=\"40 Torr\"", s)
 			}
 			if err := b.Design.Set(strings.TrimSpace(key), strings.TrimSpace(value)); err != nil {
-				return err
+				return usageOf("--set: ", err)
 			}
 		}
 		if err := b.Design.Validate(); err != nil {
-			return err
+			return usageOf("--set: ", err)
 		}
 		// Set has re-derived the circuit from the build; rate the design as it now stands.
 		if _, err = b.Design.ApplyBuild(&b.Design.Build); err != nil {

@@ -73,8 +73,9 @@ func TestRunSetBuildKey(t *testing.T) {
 		t.Errorf("explicit C₁: stored %.9g J, want %.9g J; derived %v", s.Stored, want, s.Derived)
 	}
 
+	// A value given through --set is a usage error (exit 2), as through --vary.
 	errb.Reset()
-	if code := run([]string{"run", path, "--set", "build.dielectric_thickness=1.6 kg"}, &out, &errb); code != 1 ||
+	if code := run([]string{"run", path, "--set", "build.dielectric_thickness=1.6 kg"}, &out, &errb); code != 2 ||
 		!strings.Contains(errb.String(), "build.dielectric_thickness") || !strings.Contains(errb.String(), "want a number") {
 		t.Errorf("bad build value: exit %d, stderr %q", code, errb.String())
 	}

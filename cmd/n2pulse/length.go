@@ -42,6 +42,12 @@ func runLength(args []string, stdout, stderr io.Writer) error {
 	if help, err := parseFlags(fs, args); help || err != nil {
 		return err
 	}
+	if *points < 3 || *points > 10000 {
+		return usagef("length: --points %d: allowed 3 to 10000", *points)
+	}
+	if *workers < 1 {
+		return usagef("length: --workers %d: want at least 1", *workers)
+	}
 	d, err := loadDesign(fs.Args(), *sets)
 	if err != nil {
 		return err
@@ -52,6 +58,14 @@ func runLength(args []string, stdout, stderr io.Writer) error {
 	}
 	if s.To, err = units.Parse(*to, units.Length); err != nil {
 		return usagef("length: --to %q: %v", *to, err)
+	}
+	if !(s.From > 0 && s.From < s.To) {
+		return usagef("length: --from %s --to %s: want 0 < from < to", *from, *to)
+	}
+	for _, l := range []struct{ flag, text string }{{"--from", *from}, {"--to", *to}} {
+		if err := d.Clone().Set("channel.length", l.text); err != nil {
+			return usagef("length: %s: %v", l.flag, err)
+		}
 	}
 	if *tw != "" {
 		probe := d.Clone()

@@ -10,6 +10,7 @@ import (
 	"io"
 	"os"
 	"sort"
+	"strings"
 
 	"github.com/spf13/pflag"
 )
@@ -27,12 +28,22 @@ var commands = map[string]command{}
 // register adds a subcommand; each lives in a file of its own and registers in init.
 func register(c command) { commands[c.name] = c }
 
-// usageError marks a mistake in how the command was called.
-type usageError struct{ msg string }
+// usageError marks a mistake in how the command was called; err, when set, is the library's
+// error it carries (a *design.KeyError, say), for errors.As.
+type usageError struct {
+	msg string
+	err error
+}
 
 func (e usageError) Error() string { return e.msg }
 
-func usagef(format string, a ...any) error { return usageError{fmt.Sprintf(format, a...)} }
+func (e usageError) Unwrap() error { return e.err }
+
+// usageOf marks err, caused by a value on the command line, as a usage error; prefix names
+// where the value came from ("--set: ").
+func usageOf(prefix string, err error) error { return usageError{prefix + err.Error(), err} }
+
+func usagef(format string, a ...any) error { return usageError{msg: fmt.Sprintf(format, a...)} }
 
 // errSilent is returned when the command has already printed why it failed.
 var errSilent = errors.New("")
@@ -54,7 +65,7 @@ func parseFlags(fs *pflag.FlagSet, args []string) (help bool, err error) {
 		if errors.Is(err, pflag.ErrHelp) {
 			return true, nil
 		}
-		return false, usageError{err.Error()}
+		return false, usageOf("", err)
 	}
 	return false, nil
 }
@@ -82,19 +93,45 @@ func run(args []string, stdout, stderr io.Writer) int {
 	return exitCode(c.run(args[1:], stdout, stderr), stderr)
 }
 
+// exitCode applies the one exit-code rule of every command and prints the error: 0 success;
+// 2 a mistake in how the command was written (an unknown command or flag, a wrong number of
+// arguments, a value given on the command line that is malformed, unknown, out of range or
+// without its unit: --set, --vary, --from, --pressure, …); 1 everything else (a file that is
+// missing or is not a valid design, an output directory that already holds something, a run
+// that fails, a discrepancy under check --strict).
 func exitCode(err error, stderr io.Writer) int {
 	if err == nil {
 		return 0
 	}
 	var u usageError
 	if errors.As(err, &u) {
-		fmt.Fprintf(stderr, "n2pulse: %v\n", err)
+		fmt.Fprintf(stderr, "n2pulse: %s\n", userMessage(err))
 		return 2
 	}
 	if err != errSilent {
-		fmt.Fprintf(stderr, "n2pulse: %v\n", err)
+		fmt.Fprintf(stderr, "n2pulse: %s\n", userMessage(err))
 	}
 	return 1
+}
+
+// internalPrefixes are the package names the library puts before its errors; a user reading
+// the message needs the key, the file and the reason, not the package.
+var internalPrefixes = []string{"study: ", "units: ", "design: ", "kinetics: ", "swarm: ", "spectro: ", "validation: ", "plots: ", "ode: "}
+
+// userMessage is the error's text without the library's package prefixes, wherever they
+// stand in a chain of wrapped messages ("study: point 3: design: gas.pressure …" becomes
+// "point 3: gas.pressure …").
+func userMessage(err error) string {
+	msg := err.Error()
+	for changed := true; changed; {
+		changed = false
+		for _, p := range internalPrefixes {
+			if m := strings.ReplaceAll(strings.TrimPrefix(msg, p), ": "+p, ": "); m != msg {
+				msg, changed = m, true
+			}
+		}
+	}
+	return msg
 }
 
 func printHelp(w io.Writer) {

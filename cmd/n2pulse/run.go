@@ -32,8 +32,11 @@ func loadDesign(args []string, sets []string) (*design.Design, error) {
 	case 0:
 		d = design.ExampleDesign()
 	case 1:
-		var err error
-		if d, err = design.LoadDesign(args[0]); err != nil {
+		text, name, err := designText(args[0])
+		if err != nil {
+			return nil, err
+		}
+		if d, err = design.ParseDesign(text, name); err != nil {
 			return nil, err
 		}
 	default:
@@ -47,17 +50,33 @@ func loadDesign(args []string, sets []string) (*design.Design, error) {
 		}
 		key = strings.TrimSpace(key)
 		if err := d.Set(key, strings.TrimSpace(value)); err != nil {
-			return nil, err
+			return nil, usageOf("--set: ", err)
 		}
 		keys = append(keys, key)
 	}
+	// The file was checked when read: what fails now comes from the --set values.
 	if err := d.BalanceMixture(keys); err != nil {
-		return nil, err
+		return nil, usageOf("--set: ", err)
 	}
 	if err := d.Validate(); err != nil {
-		return nil, err
+		return nil, usageOf("--set: ", err)
 	}
 	return d, nil
+}
+
+// stdin is where `run -` (and the other commands given "-" for the design) read the design;
+// tests replace it.
+var stdin io.Reader = os.Stdin
+
+// designText returns the text of the design named on the command line: a file, or "-" for
+// standard input (at most design.MaxDesignBytes either way), and the name for messages.
+func designText(arg string) ([]byte, string, error) {
+	if arg == "-" {
+		b, err := design.ReadText(stdin, "standard input")
+		return b, "standard input", err
+	}
+	b, err := design.ReadFile(arg)
+	return b, arg, err
 }
 
 func runRun(args []string, stdout, stderr io.Writer) error {

@@ -110,7 +110,7 @@ func TestSweepCommandErrors(t *testing.T) {
 		{[]string{"merge", dir}, 1, "sweep.json"},
 		{[]string{"length", "--from", "3 kV"}, 2, "--from"},
 		{[]string{"length", "--travelling-wave", "fast"}, 2, "optics.excitation_velocity"},
-		{[]string{"length", "--points", "2"}, 1, "allowed 3 to 10000"},
+		{[]string{"length", "--points", "2"}, 2, "allowed 3 to 10000"},
 	} {
 		var out, errb bytes.Buffer
 		if code := run(c.args, &out, &errb); code != c.code || !strings.Contains(errb.String(), c.msg) {

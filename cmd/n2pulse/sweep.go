@@ -57,7 +57,7 @@ func runSweep(args []string, stdout, stderr io.Writer) error {
 	for _, v := range *vary {
 		a, err := study.ParseAxis(v, d)
 		if err != nil {
-			return usageError{err.Error()}
+			return usageOf("", err)
 		}
 		s.Axes = append(s.Axes, a)
 	}
@@ -66,6 +66,9 @@ func runSweep(args []string, stdout, stderr io.Writer) error {
 	}
 	if s.Shard, err = shardOf(*shardText); err != nil {
 		return err
+	}
+	if err := s.Check(); err != nil {
+		return usageOf("", err)
 	}
 	if !*quiet && isTerminal(stderr) {
 		s.Progress = stderr
@@ -171,7 +174,7 @@ func shardOf(text string) (study.Shard, error) {
 	if text != "" {
 		s, err := study.ParseShard(text)
 		if err != nil {
-			return s, usageError{err.Error()}
+			return s, usageOf("", err)
 		}
 		return s, nil
 	}

@@ -166,17 +166,6 @@ func (d *Design) BenchConditions() build.Conditions {
 	return cond
 }
 
-// hasBuild reports whether a flattened design has a [build] section: the hook by which
-// ParseDesign hands such a design to parseBuilt.
-func hasBuild(flat map[string]any) bool {
-	for k := range flat {
-		if strings.HasPrefix(k, "build.") {
-			return true
-		}
-	}
-	return false
-}
-
 // isBuildKey reports whether key belongs to the [build] section.
 func isBuildKey(key string) bool { return strings.HasPrefix(key, "build.") }
 

@@ -95,13 +95,6 @@ func TestParseBuiltDesignErrors(t *testing.T) {
 	}
 }
 
-func TestHasBuild(t *testing.T) {
-	t.Parallel()
-	if hasBuild(map[string]any{"channel.length": 0.2}) || !hasBuild(map[string]any{"build.rail_height": "5 mm"}) {
-		t.Error("hasBuild misreads the section")
-	}
-}
-
 func TestFringeCorrectionKey(t *testing.T) {
 	t.Parallel()
 	for _, v := range []string{"true", `"palmer"`, `"Palmer"`} {

@@ -118,6 +118,7 @@ type Levels struct {
 	UpperQuenchingOxygen   float64 // k_qC for C(0) + O₂ [m³/s]
 	UpperQuenchingHelium   float64 // k_qC for C(0) + He [m³/s]
 	UpperElectronMixing    float64 // k_eC, electron-induced loss of C(0) [m³/s]
+	UpperElectronScale     float64 // factor on the estimated electron collisions with C(0) (superelastic C → B, ionisation); 0 switches them off
 	LowerLifetime          float64 // radiative lifetime of B(0) [s]
 	LowerRemovalNitrogen   float64 // removal of B(0) by N₂ [m³/s]
 	LowerRemovalOxygen     float64 // removal of B(0) by O₂ [m³/s]

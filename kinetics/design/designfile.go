@@ -4,6 +4,7 @@ import (
 	"bytes"
 	"errors"
 	"fmt"
+	"io"
 	"maps"
 	"math"
 	"os"
@@ -28,11 +29,37 @@ var requiredKeys = []string{
 
 // LoadDesign reads and checks a design file.
 func LoadDesign(path string) (*Design, error) {
-	b, err := os.ReadFile(path)
+	b, err := ReadFile(path)
+	if err != nil {
+		return nil, err
+	}
+	return ParseDesign(b, path)
+}
+
+// MaxDesignBytes bounds the text of a design: the listing of every key with comments is
+// about 10 kB, so a larger input (a wrong file, /dev/zero) is refused before it fills memory.
+const MaxDesignBytes = 1 << 20
+
+// ReadFile returns the text of the design file at path, at most MaxDesignBytes.
+func ReadFile(path string) ([]byte, error) {
+	f, err := os.Open(path)
 	if err != nil {
 		return nil, fmt.Errorf("design: %w", err)
 	}
-	return ParseDesign(b, path)
+	defer f.Close()
+	return ReadText(f, path)
+}
+
+// ReadText reads a design's text from r (named name in messages), at most MaxDesignBytes.
+func ReadText(r io.Reader, name string) ([]byte, error) {
+	b, err := io.ReadAll(io.LimitReader(r, MaxDesignBytes+1))
+	if err != nil {
+		return nil, fmt.Errorf("design: %s: %w", name, err)
+	}
+	if len(b) > MaxDesignBytes {
+		return nil, fmt.Errorf("design: %s: longer than %d bytes, not a design file", name, MaxDesignBytes)
+	}
+	return b, nil
 }
 
 // ExampleDesign returns the built-in example: a bench-top atmospheric Blumlein laser.
@@ -45,46 +72,19 @@ func ExampleDesign() *Design {
 }
 
 // ParseDesign decodes a TOML design, rejecting unknown keys, wrong units and impossible
-// values; name is used in messages. Keys absent from the file take the defaults of Defaults.
+// values; name is used in messages. Keys absent from the file take the defaults of Defaults;
+// a [build] section gives the circuit values the file leaves out (see ParseBuiltDesign, the
+// one parse path).
 func ParseDesign(b []byte, name string) (*Design, error) {
 	flat, err := decodeFlat(b, name)
 	if err != nil {
 		return nil, err
 	}
-	if hasBuild(flat) {
-		b, err := parseBuilt(flat)
-		if err != nil {
-			return nil, fmt.Errorf("%s: %w", name, err)
-		}
-		b.Design.Derived = b.Derived
-		return b.Design, nil
-	}
-	keys := slices.Sorted(maps.Keys(flat))
-	d := Defaults()
-	d.given = make(map[string]bool, len(flat))
-	for _, k := range keys {
-		d.given[k] = true
-		if err := d.setValue(k, flat[k]); err != nil {
-			return nil, fmt.Errorf("%s: %w", name, err)
-		}
-	}
-	for _, k := range requiredKeys {
-		if _, ok := flat[k]; !ok {
-			return nil, fmt.Errorf("%s: %w", name, &KeyError{Key: k, Problem: "missing: every design must give it"})
-		}
-	}
-	for _, x := range derivable {
-		if _, ok := flat[x.key]; !ok {
-			return nil, fmt.Errorf("%s: %w", name, &KeyError{Key: x.key, Problem: "missing: every design must give it"})
-		}
-	}
-	if err := d.BalanceMixture(keys); err != nil {
+	built, err := parseBuilt(flat)
+	if err != nil {
 		return nil, fmt.Errorf("%s: %w", name, err)
 	}
-	if err := d.Validate(); err != nil {
-		return nil, fmt.Errorf("%s: %w", name, err)
-	}
-	return d, nil
+	return built.Design, nil
 }
 
 // mixtureKeys are the mole-fraction keys of the gas, nitrogen first.

@@ -73,6 +73,7 @@ var fieldList = []field{
 	{key: "levels.upper_quenching_oxygen", dim: units.RateConstant, unit: "m³/s", num: func(d *Design) *float64 { return &d.Levels.UpperQuenchingOxygen }, min: 0, max: 1e-14, help: "C(0) quenching by O₂"},
 	{key: "levels.upper_quenching_helium", dim: units.RateConstant, unit: "m³/s", num: func(d *Design) *float64 { return &d.Levels.UpperQuenchingHelium }, min: 0, max: 1e-14, help: "C(0) quenching by He"},
 	{key: "levels.upper_electron_mixing", dim: units.RateConstant, unit: "m³/s", num: func(d *Design) *float64 { return &d.Levels.UpperElectronMixing }, min: 0, max: 1e-10, help: "electron-induced loss of C(0) (no published value; free parameter)"},
+	{key: "levels.upper_electron_scale", dim: units.Dimensionless, num: func(d *Design) *float64 { return &d.Levels.UpperElectronScale }, min: 0, max: 10, help: "factor on the estimated electron collisions with C(0) (Born–Bethe superelastic C → B plus Lotz ionisation; range 0.5–2; 0: off)"},
 	{key: "levels.lower_lifetime", dim: units.Time, unit: "s", num: func(d *Design) *float64 { return &d.Levels.LowerLifetime }, min: 1e-9, max: 1e-3, help: "radiative lifetime of B(0)"},
 	{key: "levels.lower_removal_nitrogen", dim: units.RateConstant, unit: "m³/s", num: func(d *Design) *float64 { return &d.Levels.LowerRemovalNitrogen }, min: 0, max: 1e-14, help: "removal of B(0) by N₂"},
 	{key: "levels.lower_removal_oxygen", dim: units.RateConstant, unit: "m³/s", num: func(d *Design) *float64 { return &d.Levels.LowerRemovalOxygen }, min: 0, max: 1e-14, help: "removal of B(0) by O₂"},

@@ -22,6 +22,11 @@ func defaultLevels() Levels {
 		// Electron-induced loss of C(0): no published rate coefficient found; a free parameter,
 		// zero by default.
 		UpperElectronMixing: 0,
+		// Electron collisions with C(0) as estimated by package kinetics (Born–Bethe
+		// superelastic C → B and Lotz ionisation, about 2–3e-8 cm³/s at 300 Td): factor 1;
+		// the estimate's range is ×0.5–2 (van Regemorter's form for allowed transitions of
+		// neutrals) and up to ×3 if ionisation could leave the ion in its ground state.
+		UpperElectronScale: 1,
 		// B(v) radiative rate 1.34e5 s⁻¹ (τ = 7.5 µs), band average of Capitelli et al., Plasma
 		// Kinetics in Atmospheric Gases (Springer 2000), as quoted in mechanism files (seen,
 		// secondary); τ(B, v=0) is 8–13 µs (Eyler & Pipkin 1983, from memory).

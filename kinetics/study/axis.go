@@ -129,6 +129,29 @@ func (a Axis) Values() []float64 {
 	return v
 }
 
+// String writes the axis as it would be typed, in the unit the user typed (or SI with a
+// prefix) and six significant figures: "gas.pressure=20 Torr:760 Torr:20:log".
+func (a Axis) String() string {
+	s := fmt.Sprintf("%s=%s:%s:%d", a.Key, a.display(a.From), a.display(a.To), a.N)
+	if a.Log {
+		s += ":log"
+	}
+	return s
+}
+
+// display writes one value of the axis in the unit the user typed, or in SI with a prefix.
+func (a Axis) display(v float64) string {
+	if a.Display != "" {
+		if f, _, err := units.ParseUnit(a.Display); err == nil {
+			return strconv.FormatFloat(v/f, 'g', 6, 64) + " " + a.Display
+		}
+	}
+	if a.Unit == "" {
+		return strconv.FormatFloat(v, 'g', 6, 64)
+	}
+	return strings.ReplaceAll(units.FormatDigits(v, a.Unit, 6), " ", "")
+}
+
 // Header is the column heading of the axis in a results table: "gas.pressure [Pa]".
 func (a Axis) Header() string {
 	if a.Unit == "" {

@@ -44,3 +44,32 @@ func TestAxisEndsExact(t *testing.T) {
 		}
 	}
 }
+
+// TestResumeMessageInUserUnits: a resume refused for a different grid names the axes in the
+// units typed, not in 16-digit pascals.
+func TestResumeMessageInUserUnits(t *testing.T) {
+	t.Parallel()
+	base := design.ExampleDesign()
+	a, err := ParseAxis("gas.pressure=20Torr:760Torr:20:log", base)
+	if err != nil {
+		t.Fatal(err)
+	}
+	b, err := ParseAxis("gas.pressure=20Torr:700Torr:20:log", base)
+	if err != nil {
+		t.Fatal(err)
+	}
+	m1 := &Manifest{Axes: []Axis{a}}
+	m2 := &Manifest{Axes: []Axis{b}}
+	want := "axis 1: gas.pressure=20 Torr:760 Torr:20:log against gas.pressure=20 Torr:700 Torr:20:log"
+	if got := m1.Differs(m2); got != want {
+		t.Errorf("Differs = %q, want %q", got, want)
+	}
+	v, err := ParseAxis("circuit.charge_voltage=8000V:16kV:5", base)
+	if err != nil {
+		t.Fatal(err)
+	}
+	v.Display = ""
+	if got, want := v.String(), "circuit.charge_voltage=8kV:16kV:5"; got != want {
+		t.Errorf("String = %q, want %q", got, want)
+	}
+}

@@ -87,8 +87,12 @@ func (m *Manifest) Differs(o *Manifest) string {
 		a, b := m.Axes[i], o.Axes[i]
 		a.Display, b.Display = "", "" // the unit typed changes the figures, not the grid
 		if a != b {
-			return fmt.Sprintf("axis %d: %s=%g:%g:%d (log %v) against %s=%g:%g:%d (log %v)",
-				i+1, a.Key, a.From, a.To, a.N, a.Log, b.Key, b.From, b.To, b.N, b.Log)
+			x, y := m.Axes[i].String(), o.Axes[i].String()
+			if x == y { // they differ beyond six figures
+				x = fmt.Sprintf("%s=%v:%v:%d (log %v)", a.Key, a.From, a.To, a.N, a.Log)
+				y = fmt.Sprintf("%s=%v:%v:%d (log %v)", b.Key, b.From, b.To, b.N, b.Log)
+			}
+			return fmt.Sprintf("axis %d: %s against %s", i+1, x, y)
 		}
 	}
 	if !slices.Equal(m.Columns, o.Columns) {

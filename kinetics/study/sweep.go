@@ -117,7 +117,9 @@ func DesignHash(d *design.Design) string {
 	return hex.EncodeToString(h[:])
 }
 
-func (s *Sweep) check() error {
+// Check reports a sweep that is specified wrongly (no design or axes, an axis that cannot make
+// a grid, a key varied twice, too many points, a bad shard, no directory); Run calls it first.
+func (s *Sweep) Check() error {
 	if s.Design == nil {
 		return errors.New("study: sweep has no design")
 	}
@@ -154,7 +156,7 @@ func (s *Sweep) check() error {
 // sweep. Cancelling ctx stops starting points and returns ctx.Err() after the points in flight
 // are journaled; Run with Resume then finishes the job.
 func (s *Sweep) Run(ctx context.Context) (*Table, error) {
-	if err := s.check(); err != nil {
+	if err := s.Check(); err != nil {
 		return nil, err
 	}
 	run := s.Runner

@@ -1,0 +1,62 @@
+package kinetics
+
+import (
+	"testing"
+
+	"gonum.org/v1/gonum/floats/scalar"
+
+	"n2pulse/units"
+)
+
+// TestExpIntE1 against mpmath 1.3.0, mpmath.e1(x) at 30 digits (kinetics/testdata/e1-mpmath.txt),
+// to 1e-13 relative, on both sides of the switch between series and continued fraction.
+func TestExpIntE1(t *testing.T) {
+	t.Parallel()
+	for _, c := range []struct{ x, want float64 }{
+		{0.1, 1.8229239584193906}, {0.5, 0.55977359477616081}, {1, 0.21938393439552027},
+		{1.5, 0.10001958240663265}, {2, 0.04890051070806112}, {5, 0.0011482955912753258},
+		{20, 9.8355252906498817e-11},
+	} {
+		if got := expIntE1(c.x); !scalar.EqualWithinAbsOrRel(got, c.want, 0, 1e-13) {
+			t.Errorf("E1(%g) = %.17g, want %.17g", c.x, got, c.want)
+		}
+	}
+}
+
+// TestUpperElectronHand checks the Born–Bethe and Lotz estimates against a hand calculation.
+//
+// Oscillator strength: f = (ε₀·m_e·c/(2π·e²))·A·λ² with ε₀m_ec/(2πe²) = 14991.94 s/m²,
+// A = 1/τ_C = 1/(40 ns) = 2.5e7 s⁻¹, λ = 337.1 nm: f = 14991.94 × 2.5e7 × (337.1e-9)² = 0.042591.
+//
+// Superelastic C → B at kT = 2 eV: ΔE = hc/λ = 3.67796 eV, y = ΔE/kT = 1.83898,
+// E₁(y) = 0.061239, 0.276·e^y·E₁(y) = 0.106 < 0.2, so P = 0.2;
+// k = sqrt(8/(π·m_e·kT))·(8π/√3)·πa₀²·f·E_H²/ΔE·P = 2.5899e-14 m³/s (2.59e-8 cm³/s).
+//
+// Lotz ionisation of the C electron into N₂⁺(B) at kT = 2 eV with E_C(0) = 11.032 eV:
+// I = 18.738 − 11.032 = 7.706 eV, E₁(I/kT) = E₁(3.853) = 0.0045184;
+// k = sqrt(8/(π·m_e·kT))·a·q/I·E₁ = 1.2486e-15 m³/s (1.25e-9 cm³/s), a = 4.5e-14 cm² eV², q = 1.
+//
+// (Computed with mpmath 1.3.0 at 30 digits from the same formulas, CODATA 2018 constants.)
+func TestUpperElectronHand(t *testing.T) {
+	t.Parallel()
+	ev := units.ElectronVolt
+	lambda := 337.1e-9
+	f := oscillatorStrength(1/40e-9, lambda, 1)
+	if !scalar.EqualWithinAbsOrRel(f, 0.04259075, 0, 1e-6) {
+		t.Errorf("f(B→C) = %.7g, want 0.04259075", f)
+	}
+	de := units.Planck * units.SpeedOfLight / lambda
+	if got := superelasticRate(f, de, 2*ev, 1); !scalar.EqualWithinAbsOrRel(got, 2.58986e-14, 0, 1e-5) {
+		t.Errorf("superelastic C→B at 2 eV: %.6g m³/s, want 2.58986e-14", got)
+	}
+	if got := lotzRate(1, (18.738-11.032)*ev, 2*ev); !scalar.EqualWithinAbsOrRel(got, 1.248641e-15, 0, 1e-5) {
+		t.Errorf("Lotz ionisation out of C at 2 eV: %.6g m³/s, want 1.248641e-15", got)
+	}
+	// The sum, at ⟨ε⟩ = 3 eV (kT = 2 eV) and E_C(0) = 11.032 eV.
+	if got := upperElectronLoss(3*ev, 40e-9, de, 11.032*ev); !scalar.EqualWithinAbsOrRel(got, 2.58986e-14+1.248641e-15, 0, 1e-5) {
+		t.Errorf("total electron loss of C(0): %.6g m³/s", got)
+	}
+	if got := upperElectronLoss(0, 40e-9, de, 11.032*ev); got != 0 {
+		t.Errorf("no electron energy: loss %g, want 0", got)
+	}
+}
