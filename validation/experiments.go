@@ -121,6 +121,7 @@ func Variations() ([]Variation, error) {
 type expResults struct {
 	checks     []Check
 	variations []Variation
+	scores     []ScoreRow
 	err        error
 }
 
@@ -136,7 +137,7 @@ func experimentResults() expResults {
 			expRes.err = err
 			return
 		}
-		expRes.checks, expRes.variations = runExperiments(cases)
+		expRes.checks, expRes.variations, expRes.scores = runExperiments(cases)
 	})
 	return expRes
 }
@@ -246,7 +247,7 @@ type scanPlan struct {
 	setErr error
 }
 
-func runExperiments(cases []expCase) ([]Check, []Variation) {
+func runExperiments(cases []expCase) ([]Check, []Variation, []ScoreRow) {
 	base := make([]*job, len(cases))
 	var all []*job
 	for i := range cases {
@@ -264,8 +265,10 @@ func runExperiments(cases []expCase) ([]Check, []Variation) {
 	runJobs(all)
 
 	var checks []Check
+	scores := make([]ScoreRow, len(cases))
 	for i := range cases {
 		checks = append(checks, pointChecks(&cases[i], base[i])...)
+		scores[i] = scoreRow(&cases[i], base[i])
 	}
 	optima := map[string]float64{}
 	var vars []Variation
@@ -298,7 +301,7 @@ func runExperiments(cases []expCase) ([]Check, []Variation) {
 		}
 		checks = append(checks, c)
 	}
-	return checks, vars
+	return checks, vars, scores
 }
 
 // planScan prepares the model runs of one variation.

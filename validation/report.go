@@ -21,7 +21,11 @@ type Figure func(path string, v Variation) error
 // and, when figure is not nil, one overlay figure per experimental variation,
 // variation-<case>-<id>.png, listed in checks.md. Every file is written to a temporary file
 // and renamed.
-func WriteReport(dir string, checks []Check, figure Figure) error {
+//
+// The scoreboard (model/measured energy and FWHM of every experiment case against its
+// specific loading) is a section of checks.md; when a score drawer is given, its figure
+// ScoreboardFigureName too.
+func WriteReport(dir string, checks []Check, figure Figure, score ...ScoreFigure) error {
 	if err := os.MkdirAll(dir, 0o755); err != nil {
 		return fmt.Errorf("validation: report: %w", err)
 	}
@@ -37,8 +41,17 @@ func WriteReport(dir string, checks []Check, figure Figure) error {
 		}
 		figs = append(figs, name)
 	}
+	rows, _ := Scoreboard()
+	scoreFig := ""
+	if len(score) > 0 && score[0] != nil && len(rows) > 0 {
+		if err := score[0](filepath.Join(dir, ScoreboardFigureName), rows); err != nil {
+			return fmt.Errorf("validation: report: %w", err)
+		}
+		scoreFig = ScoreboardFigureName
+	}
 	var md bytes.Buffer
 	writeMarkdown(&md, checks, vars, figs, verr)
+	writeScoreboard(&md, rows, scoreFig)
 	if err := reportWrite(filepath.Join(dir, "checks.md"), md.Bytes()); err != nil {
 		return err
 	}
@@ -124,7 +137,10 @@ func writeMarkdown(w *bytes.Buffer, checks []Check, vars []Variation, figs []str
 		fmt.Fprintf(w, "The experiment cases could not be run: %s\n\n", mdCell(verr.Error()))
 	}
 	for i, v := range vars {
-		fmt.Fprintf(w, "### %s: %s\n\n![%s](%s)\n\n", v.ID, v.Title, v.ID, figs[i])
+		fmt.Fprintf(w, "### %s: %s\n\n", v.ID, v.Title)
+		if i < len(figs) { // no figures when WriteReport had no drawer
+			fmt.Fprintf(w, "![%s](%s)\n\n", v.ID, figs[i])
+		}
 		fmt.Fprintf(w, "Source: %s\n\n", v.Source)
 		fmt.Fprintf(w, "| %s | measured %s | model %s | how measured |\n| --- | --- | --- | --- |\n", v.XLabel, v.YLabel, v.YLabel)
 		for k := range v.MeasuredX {

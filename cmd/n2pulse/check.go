@@ -30,7 +30,7 @@ func runCheck(args []string, stdout, stderr io.Writer) error {
 	}
 	checks := validation.RunAll()
 	if *report != "" {
-		if err := validation.WriteReport(*report, checks, drawVariation); err != nil {
+		if err := validation.WriteReport(*report, checks, drawVariation, drawScoreboard); err != nil {
 			return err
 		}
 	}
@@ -51,6 +51,16 @@ func drawVariation(path string, v validation.Variation) error {
 		ModelLabel: "model", ModelX: v.ModelX, ModelY: v.ModelY,
 		MeasuredLbl: "measured", MeasuredX: v.MeasuredX, MeasuredY: v.MeasuredY,
 	})
+}
+
+// drawScoreboard draws the report's scoreboard: model/measured energy and FWHM of every
+// experiment case against its specific loading.
+func drawScoreboard(path string, rows []validation.ScoreRow) error {
+	pts := make([]plots.ScorePoint, len(rows))
+	for i, r := range rows {
+		pts[i] = plots.ScorePoint{Loading: r.EnergyPerMolecule, EnergyRatio: r.EnergyRatio(), FWHMRatio: r.FWHMRatio()}
+	}
+	return plots.Scoreboard(path, pts)
 }
 
 // printChecks writes the check table and counts failures and experiment discrepancies.

@@ -161,7 +161,10 @@ func printSummary(w io.Writer, d *design.Design, r *kinetics.Result) {
 	row("peak E/N", fmt.Sprintf("%.0f Td", s.PeakReducedField))
 	row("peak current", fmt.Sprintf("%s (%.3g kA/cm²)", units.Format(s.PeakCurrent, "A"), s.PeakCurrentDensity*1e-7))
 	row("peak electron density", fmt.Sprintf("%.3g cm⁻³", s.PeakElectronDensity*1e-6))
-	row("peak gain", fmt.Sprintf("%.3g cm⁻¹ (gain × length %.3g)", s.PeakGain/100, s.GainLength))
+	// Two different gains: the highest of the mid-channel cell, and the highest channel-mean
+	// gain, whose gain-length ∫g dz is the one the verdict uses.
+	row("peak gain (mid-channel cell)", fmt.Sprintf("%.3g cm⁻¹ (× channel length: %.3g)", s.PeakGain/100, s.PeakGain*d.Channel.Length))
+	row("channel-mean gain, peak", fmt.Sprintf("%.3g cm⁻¹ (gain-length gL = ∫g dz: %.3g)", s.GainLength/d.Channel.Length/100, s.GainLength))
 	row("inversion duration", units.Format(s.InversionDuration, "s"))
 	row("self-termination", fmt.Sprintf("%s at %s", s.TerminationCause, units.Format(s.TerminationTime, "s")))
 	row("discharge regime", regimeLine(s))
