@@ -6,6 +6,7 @@ import (
 
 	"n2pulse/kinetics/design"
 	"n2pulse/kinetics/spectro"
+	"n2pulse/kinetics/swarm"
 	"n2pulse/units"
 )
 
@@ -33,45 +34,17 @@ func Run(d *design.Design, s *RunSettings) (*Result, error) {
 	}
 
 	var warnings []string
-	par.OpticalArea = d.Channel.Gap * d.Channel.Width // the discharge cross-section
-	if a := d.Channel.Aperture; a > par.OpticalArea {
-		// Light gains only inside the excited volume: an optical cross-section larger than
-		// the discharge's would multiply the photons of the same populations.
-		warnings = append(warnings, fmt.Sprintf(
-			"channel.aperture = %s is larger than the discharge cross-section channel.gap × channel.width = %s: the optics use %s (no gain outside the excited volume)",
-			squareMM(a), squareMM(par.OpticalArea), squareMM(par.OpticalArea)))
-	} else if a > 0 {
-		par.OpticalArea = a
+	var warning string
+	if par.OpticalArea, warning = opticalArea(d.Channel); warning != "" {
+		warnings = append(warnings, warning)
 	}
 	n := d.Numerics.Cells
 	par.CellLength = d.Channel.Length / float64(n)
 	par.TimeStep = par.CellLength / units.SpeedOfLight
 
-	// The end time follows the pulse: a shot whose output, gain or discharge is not over at
-	// numerics.end_time runs again to twice the time, up to the cap.
-	end, endCap := d.Numerics.EndTime, PulseTimeCap(d.Numerics.EndTime)
-	var (
-		circ *circuit
-		wf   *waveforms
-		sh   *shot
-		res  *Result
-	)
-	for {
-		steps := int(math.Ceil(end / par.TimeStep))
-		circ = newCircuit(d, table)
-		par.GapCapacitance = circ.cg
-		var stats Stats
-		wf, stats, err = solveCircuit(circ, d, &par, steps)
-		if err != nil {
-			return nil, err
-		}
-		res = &Result{Parameters: par, Stats: stats}
-		sh = newShot(d, &res.Parameters, wf, steps, s)
-		sh.run(res)
-		if !sh.unfinished() || end >= endCap {
-			break
-		}
-		end = math.Min(2*end, endCap)
+	circ, wf, sh, res, end, err := followPulse(d, table, &par, s)
+	if err != nil {
+		return nil, err
 	}
 	res.Summary.Overridden = overridden
 	res.Summary.EndTime = float64(sh.steps) * par.TimeStep
@@ -81,15 +54,7 @@ func Run(d *design.Design, s *RunSettings) (*Result, error) {
 	if err := checkPumpBound(&res.Summary); err != nil {
 		return nil, err
 	}
-	res.Summary.StoredEnergy = wf.stored
-	res.Summary.DepositedEnergy = wf.deposited
-	res.Summary.EnergyBalanceResidual = wf.energyResidual
-	res.Summary.PeakReducedField = wf.peakField / units.Townsend
-	res.Summary.PeakCurrent = wf.peakCurrent
-	res.Summary.PeakElectronDensity = wf.peakDensity
-	if wf.stored > 0 {
-		res.Summary.Efficiency = res.Summary.EnergyTotal / wf.stored
-	}
+	dischargeSummary(&res.Summary, wf)
 	account(d, &res.Parameters, wf, &res.Summary)
 	res.Stats.TableBelow, res.Stats.TableAbove = circ.below, circ.above
 	if wf.fieldAbove {
@@ -119,12 +84,72 @@ func Run(d *design.Design, s *RunSettings) (*Result, error) {
 		res.Summary.Verdict += "; " + note
 	}
 	if s.Light {
-		res.Time, res.ChannelVoltage, res.Current, res.ReducedField = nil, nil, nil, nil
-		res.ElectronDensity, res.UpperLevel, res.LowerLevel = nil, nil, nil
-		res.PowerFront, res.PowerRear, res.MeanGain = nil, nil, nil
-		res.Z, res.GainTime, res.Gain = nil, nil, nil
+		res.dropSeries()
 	}
 	return res, nil
+}
+
+// opticalArea returns the optical cross-section of the channel [m²]: channel.aperture when
+// given and not larger than the discharge cross-section gap × width, else that cross-section,
+// with a warning when the aperture was larger. Light gains only inside the excited volume: an
+// optical cross-section larger than the discharge's would multiply the photons of the same
+// populations.
+func opticalArea(ch design.Channel) (area float64, warning string) {
+	area = ch.Gap * ch.Width // the discharge cross-section
+	if a := ch.Aperture; a > area {
+		warning = fmt.Sprintf(
+			"channel.aperture = %s is larger than the discharge cross-section channel.gap × channel.width = %s: the optics use %s (no gain outside the excited volume)",
+			squareMM(a), squareMM(area), squareMM(area))
+	} else if a > 0 {
+		area = a
+	}
+	return area, warning
+}
+
+// followPulse solves the circuit and takes the shot to numerics.end_time; a shot whose output,
+// gain or discharge is not over by then runs again to twice the time, up to PulseTimeCap. It
+// returns the last attempt and its end time [s].
+func followPulse(d *design.Design, table *swarm.Table, par *Parameters, s *RunSettings) (*circuit, *waveforms, *shot, *Result, float64, error) {
+	end, endCap := d.Numerics.EndTime, PulseTimeCap(d.Numerics.EndTime)
+	for {
+		steps := int(math.Ceil(end / par.TimeStep))
+		circ := newCircuit(d, table)
+		par.GapCapacitance = circ.cg
+		wf, stats, err := solveCircuit(circ, d, par, steps)
+		if err != nil {
+			return nil, nil, nil, nil, 0, err
+		}
+		res := &Result{Parameters: *par, Stats: stats}
+		sh := newShot(d, &res.Parameters, wf, steps, s)
+		sh.run(res)
+		if !sh.unfinished() || end >= endCap {
+			return circ, wf, sh, res, end, nil
+		}
+		end = math.Min(2*end, endCap)
+	}
+}
+
+// dischargeSummary copies the figures of the circuit and discharge into the summary: stored
+// and deposited energy, the energy balance, the peaks of E/N, current and electron density,
+// and the efficiency (total output over stored energy).
+func dischargeSummary(s *Summary, wf *waveforms) {
+	s.StoredEnergy = wf.stored
+	s.DepositedEnergy = wf.deposited
+	s.EnergyBalanceResidual = wf.energyResidual
+	s.PeakReducedField = wf.peakField / units.Townsend
+	s.PeakCurrent = wf.peakCurrent
+	s.PeakElectronDensity = wf.peakDensity
+	if wf.stored > 0 {
+		s.Efficiency = s.EnergyTotal / wf.stored
+	}
+}
+
+// dropSeries removes the waveforms and the gain map, keeping the summary (RunSettings.Light).
+func (r *Result) dropSeries() {
+	r.Time, r.ChannelVoltage, r.Current, r.ReducedField = nil, nil, nil, nil
+	r.ElectronDensity, r.UpperLevel, r.LowerLevel = nil, nil, nil
+	r.PowerFront, r.PowerRear, r.MeanGain = nil, nil, nil
+	r.Z, r.GainTime, r.Gain = nil, nil, nil
 }
 
 // endCapRule says in words how far PulseTimeCap lets a run follow its pulse.
