@@ -51,6 +51,9 @@ func Run(d *design.Design, s *RunSettings) (*Result, error) {
 	res.Summary.Truncated = sh.unfinished()
 	sh.summarise(res)
 	res.Warnings = append(res.Warnings, warnings...)
+	if err := checkFiniteLight(&res.Summary, d, par); err != nil {
+		return nil, err
+	}
 	if err := checkPumpBound(&res.Summary); err != nil {
 		return nil, err
 	}
@@ -163,6 +166,19 @@ func PulseTimeCap(endTime float64) float64 {
 
 // squareMM formats an area in mm² (units.Format would put its prefix on the metre).
 func squareMM(a float64) string { return fmt.Sprintf("%.3g mm²", a*1e6) }
+
+// checkFiniteLight refuses a shot whose light is not a finite number. The single-pass gain
+// factor of a cell, e^(σ·ΔN·Δz), overflows a float64 beyond 709 e-folds in one cell, which
+// only an effective cross section far above the computed one (or very long cells) can reach;
+// the error names those keys.
+func checkFiniteLight(s *Summary, d *design.Design, p Parameters) error {
+	if !math.IsNaN(s.EnergyTotal) && !math.IsInf(s.EnergyTotal, 0) && !math.IsNaN(s.PeakPower) && !math.IsInf(s.PeakPower, 0) {
+		return nil
+	}
+	return &design.KeyError{Key: "spectroscopy.cross_section", Value: fmt.Sprintf("%.3g m²", p.CrossSection),
+		Problem: fmt.Sprintf("the gain of one cell (%s long, numerics.cells = %d) overflowed: e^(σ·ΔN·Δz) beyond e^709 gives no finite pulse; lower the cross section toward the computed value (0) or give more cells",
+			units.Format(p.CellLength, "m"), d.Numerics.Cells)}
+}
 
 // checkPumpBound is the invariant energy in ≥ light out: the pulse energy cannot exceed one
 // laser photon for every excitation into C(0) of the discharge volume. A violation is a

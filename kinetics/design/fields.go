@@ -150,6 +150,16 @@ func KeyUnit(key string) (unit string, ok bool) {
 	return f.unit, true
 }
 
+// KeyRange returns the allowed closed range [lo, hi] of a numeric design key in SI, whether 0
+// is allowed besides it (meaning "none" or "computed"), and whether the key is numeric.
+func KeyRange(key string) (lo, hi float64, zeroOK, ok bool) {
+	f, found := fieldIndex[key]
+	if !found || (f.num == nil && !f.integer) {
+		return 0, 0, false, false
+	}
+	return f.min, f.max, f.zeroOK, true
+}
+
 // KeyInteger reports whether a design key takes whole numbers only (numerics.cells).
 func KeyInteger(key string) bool {
 	f, ok := fieldIndex[key]
