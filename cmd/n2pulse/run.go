@@ -81,7 +81,7 @@ func designText(arg string) ([]byte, string, error) {
 
 func runRun(args []string, stdout, stderr io.Writer) error {
 	fs := newFlags("run", "[DESIGN] [--out DIR] [--json] [--set key=value …]", stderr)
-	out := fs.String("out", "", "write waveforms.csv, summary.json and the figures to this directory")
+	out := fs.String("out", "", "write waveforms.csv, summary.json, the figures and report.html (one self-contained page to send) to this directory")
 	asJSON := fs.Bool("json", false, "print the summary as JSON on stdout")
 	sets := fs.StringArray("set", nil, "override a design key, e.g. --set gas.pressure=\"40 Torr\" (repeatable)")
 	stats := fs.Bool("stats", false, "print solver statistics")
@@ -277,5 +277,8 @@ func writeRunOutputs(dir string, d *design.Design, r *kinetics.Result) error {
 	if err := atomicfile.WriteFile(filepath.Join(dir, "summary.json"), append(js, '\n')); err != nil {
 		return err
 	}
-	return writeRunFigures(dir, d, r)
+	if err := writeRunFigures(dir, d, r); err != nil {
+		return err
+	}
+	return writeRunReport(dir, d, r)
 }
