@@ -28,8 +28,8 @@ type Summary struct {
 	// each cell's pump delayed as in the run), i.e. the energy put into C(0) × hν/E_C. Run
 	// checks EnergyTotal ≤ it on every shot [J].
 	UpperPumpedPhotonEnergy float64       `json:"upper_pumped_photon_energy_J"`
-	PeakGain                float64       `json:"peak_gain_per_m"`           // highest small-signal gain σ·(N_C − g·N_B) [m⁻¹]
-	GainLength              float64       `json:"gain_length"`               // highest channel-integrated gain ∫g dz
+	PeakGain                float64       `json:"peak_gain_per_m"`           // highest small-signal gain σ·(N_C − g·N_B) of the mid-channel cell (not the channel mean) [m⁻¹]
+	GainLength              float64       `json:"gain_length"`               // highest channel-mean gain × length, ∫g dz over the channel at one moment: the gain-length of the verdict
 	InversionDuration       float64       `json:"inversion_duration_s"`      // duration of the gain: equivalent width ∫g⁺dt / g_max of the channel-mean gain [s]
 	TerminationTime         float64       `json:"termination_time_s"`        // when the mid-channel gain falls below 10 % of its peak after it [s]
 	TerminationCause        string        `json:"termination_cause"`         // "lower-level bottleneck", "pump collapse", "quenching", "extraction by the pulse" or "no gain"

@@ -1,12 +1,10 @@
 package kinetics
 
 import (
-	"errors"
 	"fmt"
 	"math"
 
 	"n2pulse/kinetics/design"
-	"n2pulse/kinetics/ode"
 	"n2pulse/kinetics/spectro"
 	"n2pulse/kinetics/swarm"
 	"n2pulse/units"
@@ -36,63 +34,30 @@ func Run(d *design.Design, s *RunSettings) (*Result, error) {
 	}
 
 	var warnings []string
-	par.OpticalArea = d.Channel.Gap * d.Channel.Width // the discharge cross-section
-	if a := d.Channel.Aperture; a > par.OpticalArea {
-		// Light gains only inside the excited volume: an optical cross-section larger than
-		// the discharge's would multiply the photons of the same populations.
-		warnings = append(warnings, fmt.Sprintf(
-			"channel.aperture = %s is larger than the discharge cross-section channel.gap × channel.width = %s: the optics use %s (no gain outside the excited volume)",
-			squareMM(a), squareMM(par.OpticalArea), squareMM(par.OpticalArea)))
-	} else if a > 0 {
-		par.OpticalArea = a
+	var warning string
+	if par.OpticalArea, warning = opticalArea(d.Channel); warning != "" {
+		warnings = append(warnings, warning)
 	}
 	n := d.Numerics.Cells
 	par.CellLength = d.Channel.Length / float64(n)
 	par.TimeStep = par.CellLength / units.SpeedOfLight
 
-	// The end time follows the pulse: a shot whose output, gain or discharge is not over at
-	// numerics.end_time runs again to twice the time, up to the cap.
-	end, endCap := d.Numerics.EndTime, PulseTimeCap(d.Numerics.EndTime)
-	var (
-		circ *circuit
-		wf   *waveforms
-		sh   *shot
-		res  *Result
-	)
-	for {
-		steps := int(math.Ceil(end / par.TimeStep))
-		circ = newCircuit(d, table)
-		par.GapCapacitance = circ.cg
-		var stats Stats
-		wf, stats, err = solveCircuit(circ, d, &par, steps)
-		if err != nil {
-			return nil, err
-		}
-		res = &Result{Parameters: par, Stats: stats}
-		sh = newShot(d, &res.Parameters, wf, steps, s)
-		sh.run(res)
-		if !sh.unfinished() || end >= endCap {
-			break
-		}
-		end = math.Min(2*end, endCap)
+	circ, wf, sh, res, end, err := followPulse(d, table, &par, s)
+	if err != nil {
+		return nil, err
 	}
 	res.Summary.Overridden = overridden
 	res.Summary.EndTime = float64(sh.steps) * par.TimeStep
 	res.Summary.Truncated = sh.unfinished()
 	sh.summarise(res)
 	res.Warnings = append(res.Warnings, warnings...)
+	if err := checkFiniteLight(&res.Summary, d, par); err != nil {
+		return nil, err
+	}
 	if err := checkPumpBound(&res.Summary); err != nil {
 		return nil, err
 	}
-	res.Summary.StoredEnergy = wf.stored
-	res.Summary.DepositedEnergy = wf.deposited
-	res.Summary.EnergyBalanceResidual = wf.energyResidual
-	res.Summary.PeakReducedField = wf.peakField / units.Townsend
-	res.Summary.PeakCurrent = wf.peakCurrent
-	res.Summary.PeakElectronDensity = wf.peakDensity
-	if wf.stored > 0 {
-		res.Summary.Efficiency = res.Summary.EnergyTotal / wf.stored
-	}
+	dischargeSummary(&res.Summary, wf)
 	account(d, &res.Parameters, wf, &res.Summary)
 	res.Stats.TableBelow, res.Stats.TableAbove = circ.below, circ.above
 	if wf.fieldAbove {
@@ -122,12 +87,72 @@ func Run(d *design.Design, s *RunSettings) (*Result, error) {
 		res.Summary.Verdict += "; " + note
 	}
 	if s.Light {
-		res.Time, res.ChannelVoltage, res.Current, res.ReducedField = nil, nil, nil, nil
-		res.ElectronDensity, res.UpperLevel, res.LowerLevel = nil, nil, nil
-		res.PowerFront, res.PowerRear, res.MeanGain = nil, nil, nil
-		res.Z, res.GainTime, res.Gain = nil, nil, nil
+		res.dropSeries()
 	}
 	return res, nil
+}
+
+// opticalArea returns the optical cross-section of the channel [m²]: channel.aperture when
+// given and not larger than the discharge cross-section gap × width, else that cross-section,
+// with a warning when the aperture was larger. Light gains only inside the excited volume: an
+// optical cross-section larger than the discharge's would multiply the photons of the same
+// populations.
+func opticalArea(ch design.Channel) (area float64, warning string) {
+	area = ch.Gap * ch.Width // the discharge cross-section
+	if a := ch.Aperture; a > area {
+		warning = fmt.Sprintf(
+			"channel.aperture = %s is larger than the discharge cross-section channel.gap × channel.width = %s: the optics use %s (no gain outside the excited volume)",
+			squareMM(a), squareMM(area), squareMM(area))
+	} else if a > 0 {
+		area = a
+	}
+	return area, warning
+}
+
+// followPulse solves the circuit and takes the shot to numerics.end_time; a shot whose output,
+// gain or discharge is not over by then runs again to twice the time, up to PulseTimeCap. It
+// returns the last attempt and its end time [s].
+func followPulse(d *design.Design, table *swarm.Table, par *Parameters, s *RunSettings) (*circuit, *waveforms, *shot, *Result, float64, error) {
+	end, endCap := d.Numerics.EndTime, PulseTimeCap(d.Numerics.EndTime)
+	for {
+		steps := int(math.Ceil(end / par.TimeStep))
+		circ := newCircuit(d, table)
+		par.GapCapacitance = circ.cg
+		wf, stats, err := solveCircuit(circ, d, par, steps)
+		if err != nil {
+			return nil, nil, nil, nil, 0, err
+		}
+		res := &Result{Parameters: *par, Stats: stats}
+		sh := newShot(d, &res.Parameters, wf, steps, s)
+		sh.run(res)
+		if !sh.unfinished() || end >= endCap {
+			return circ, wf, sh, res, end, nil
+		}
+		end = math.Min(2*end, endCap)
+	}
+}
+
+// dischargeSummary copies the figures of the circuit and discharge into the summary: stored
+// and deposited energy, the energy balance, the peaks of E/N, current and electron density,
+// and the efficiency (total output over stored energy).
+func dischargeSummary(s *Summary, wf *waveforms) {
+	s.StoredEnergy = wf.stored
+	s.DepositedEnergy = wf.deposited
+	s.EnergyBalanceResidual = wf.energyResidual
+	s.PeakReducedField = wf.peakField / units.Townsend
+	s.PeakCurrent = wf.peakCurrent
+	s.PeakElectronDensity = wf.peakDensity
+	if wf.stored > 0 {
+		s.Efficiency = s.EnergyTotal / wf.stored
+	}
+}
+
+// dropSeries removes the waveforms and the gain map, keeping the summary (RunSettings.Light).
+func (r *Result) dropSeries() {
+	r.Time, r.ChannelVoltage, r.Current, r.ReducedField = nil, nil, nil, nil
+	r.ElectronDensity, r.UpperLevel, r.LowerLevel = nil, nil, nil
+	r.PowerFront, r.PowerRear, r.MeanGain = nil, nil, nil
+	r.Z, r.GainTime, r.Gain = nil, nil, nil
 }
 
 // endCapRule says in words how far PulseTimeCap lets a run follow its pulse.
@@ -141,6 +166,19 @@ func PulseTimeCap(endTime float64) float64 {
 
 // squareMM formats an area in mm² (units.Format would put its prefix on the metre).
 func squareMM(a float64) string { return fmt.Sprintf("%.3g mm²", a*1e6) }
+
+// checkFiniteLight refuses a shot whose light is not a finite number. The single-pass gain
+// factor of a cell, e^(σ·ΔN·Δz), overflows a float64 beyond 709 e-folds in one cell, which
+// only an effective cross section far above the computed one (or very long cells) can reach;
+// the error names those keys.
+func checkFiniteLight(s *Summary, d *design.Design, p Parameters) error {
+	if !math.IsNaN(s.EnergyTotal) && !math.IsInf(s.EnergyTotal, 0) && !math.IsNaN(s.PeakPower) && !math.IsInf(s.PeakPower, 0) {
+		return nil
+	}
+	return &design.KeyError{Key: "spectroscopy.cross_section", Value: fmt.Sprintf("%.3g m²", p.CrossSection),
+		Problem: fmt.Sprintf("the gain of one cell (%s long, numerics.cells = %d) overflowed: e^(σ·ΔN·Δz) beyond e^709 gives no finite pulse; lower the cross section toward the computed value (0) or give more cells",
+			units.Format(p.CellLength, "m"), d.Numerics.Cells)}
+}
 
 // checkPumpBound is the invariant energy in ≥ light out: the pulse energy cannot exceed one
 // laser photon for every excitation into C(0) of the discharge volume. A violation is a
@@ -195,115 +233,4 @@ func laserParameters(d *design.Design) (Parameters, []string, error) {
 	p.UpperDecayRate = upperDecayRate(d.Levels, p.UpperLifetime, d.Gas)
 	p.LowerDecayRate = lowerDecayRate(d.Levels, d.Gas)
 	return p, over, nil
-}
-
-// waveforms are the circuit and discharge quantities sampled at the middle of every optical
-// step, (k+½)·Δt.
-type waveforms struct {
-	voltage, current, field, density []float64                  // V_ch [V], channel current [A], E/N [V m²], n_e [m⁻³]
-	pumpC, pumpB                     []float64                  // excitation rates into C(0) and B(0) [m⁻³ s⁻¹]
-	lossC                            []float64                  // loss rate of C(0) by electron collisions (Born–Bethe and Lotz estimate) [s⁻¹]
-	stored, deposited                float64                    // [J]
-	switchLoss, shuntLoss, left      float64                    // dissipated in the switch and the shunt, left in the circuit [J]
-	plasmaSplit                      [swarm.NumChannels]float64 // Σ plasma power × channel share × Δt over the samples [J]
-	plasmaSampled                    float64                    // Σ plasma power × Δt over the samples [J]
-	plasmaPower                      []float64                  // plasma power at each sample [W]
-	manifold, upperV1                *reservoir                 // the B(v>0)/W/B′ and C(v=1) reservoirs over the run
-	split                            bool                       // the swarm table has a power split
-	energyResidual                   float64
-	peakField, peakCurrent           float64
-	peakDensity                      float64
-	fieldAbove                       bool
-}
-
-// solveCircuit integrates the circuit and discharge from closure to steps·dt and samples them.
-func solveCircuit(c *circuit, d *design.Design, par *Parameters, steps int) (*waveforms, Stats, error) {
-	dt := par.TimeStep
-	y0, stored := c.initial(d.Circuit.ChargeVoltage, d.Discharge.SeedDensity)
-	v0 := d.Circuit.ChargeVoltage
-	iScale := v0 / math.Sqrt(math.Max(d.Circuit.SwitchInductance, d.Circuit.ChannelInductance)/
-		math.Min(d.Circuit.SwitchCapacitance, d.Circuit.ChannelCapacitance))
-	atol := make([]float64, nState)
-	for _, i := range []int{iV1, iV2, iVg} {
-		atol[i] = 1e-7 * v0
-	}
-	for _, i := range []int{iIs, iIc, iIsh} {
-		atol[i] = 1e-7 * iScale
-	}
-	atol[iLnNe] = 1e-7
-	atol[iQ] = 1e-7 * iScale * iScale * 1e-9
-	for _, i := range []int{iESwitch, iEPlasma, iEShunt} {
-		atol[i] = 1e-9 * stored
-	}
-	integ := ode.NewRosenbrock(nil)
-	end := float64(steps) * dt
-	set := &ode.Settings{RelTol: d.Numerics.Tolerance, AbsTol: atol, MaxStep: end / 50, MaxSteps: 200000, Stops: []float64{end}}
-	if err := integ.Init(c, 0, y0, set); err != nil {
-		return nil, Stats{}, fmt.Errorf("kinetics: circuit: %w", err)
-	}
-	w := &waveforms{
-		voltage: make([]float64, steps), current: make([]float64, steps),
-		field: make([]float64, steps), density: make([]float64, steps),
-		pumpC: make([]float64, steps), pumpB: make([]float64, steps),
-		plasmaPower: make([]float64, steps), lossC: make([]float64, steps),
-		stored: stored,
-	}
-	_, hi := c.table.Range()
-	nX := c.density * d.Gas.Nitrogen
-	shareC, shareB := par.UpperShare*nX, par.LowerShare*nX
-	man := newManifold(d.Levels, d.Gas, c.density, dt)
-	v1 := newUpperV1(d.Levels, d.Gas, c.density, par.UpperLifetime, dt)
-	shareC1 := par.UpperShare1 * nX
-	eScale := d.Levels.UpperElectronScale
-	y := make([]float64, nState)
-	k := 0
-	for k < steps {
-		t, err := integ.Step()
-		if err != nil {
-			var se *ode.StepError
-			if errors.As(err, &se) {
-				return nil, Stats{}, fmt.Errorf("kinetics: circuit did not converge (tighten or loosen numerics.tolerance, check the circuit values): %w", err)
-			}
-			return nil, Stats{}, fmt.Errorf("kinetics: circuit: %w", err)
-		}
-		for ; k < steps && (float64(k)+0.5)*dt <= t; k++ {
-			tk := (float64(k) + 0.5) * dt
-			if err := integ.Interpolate(tk, y); err != nil {
-				return nil, Stats{}, fmt.Errorf("kinetics: circuit: %w", err)
-			}
-			ne := math.Exp(y[iLnNe])
-			kB, kC, kW, kBp, mean := c.pumpRates(y[iVg])
-			w.voltage[k] = y[iVg]
-			w.current[k] = y[iIc]
-			w.field[k] = c.reducedField(y[iVg])
-			w.density[k] = ne
-			if eScale > 0 {
-				w.lossC[k] = eScale * upperElectronLoss(mean, par.UpperLifetime, par.PhotonEnergy, par.UpperEnergy) * ne
-			}
-			w.pumpC[k] = kC*ne*shareC + v1.step(kC*ne*shareC1)
-			w.pumpB[k] = kB*ne*shareB + man.step(((1-par.LowerShare)*kB+kW+kBp)*ne*nX)
-			if share, ok := c.powerSplit(y[iVg]); ok {
-				pw := y[iVg] * c.plasmaCurrentQuiet(y[iVg], ne) * dt
-				w.plasmaPower[k] = pw / dt
-				w.split = true
-				w.plasmaSampled += pw
-				for j, f := range share {
-					w.plasmaSplit[j] += f * pw
-				}
-			}
-			w.peakField = math.Max(w.peakField, w.field[k])
-			w.peakCurrent = math.Max(w.peakCurrent, math.Abs(y[iIc]))
-			w.peakDensity = math.Max(w.peakDensity, ne)
-			if w.field[k] > hi {
-				w.fieldAbove = true
-			}
-		}
-	}
-	w.manifold, w.upperV1 = man, v1
-	_, yEnd := integ.State()
-	w.deposited = yEnd[iEPlasma]
-	left := c.storedEnergy(yEnd)
-	w.switchLoss, w.shuntLoss, w.left = yEnd[iESwitch], yEnd[iEShunt], left
-	w.energyResidual = math.Abs(stored-(left+yEnd[iESwitch]+yEnd[iEPlasma]+yEnd[iEShunt])) / stored
-	return w, Stats{Circuit: integ.Stats()}, nil
 }

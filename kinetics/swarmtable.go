@@ -9,11 +9,11 @@ import (
 
 // swarmTable returns the table for the design: the user's file when numerics.swarm_table
 // names one (read once per process by swarm.Load), else the built-in or solved table for the
-// gas mixture.
+// gas mixture and the cross-section set of numerics.cross_sections.
 func swarmTable(d *design.Design, cacheDir string) (*swarm.Table, error) {
 	path := d.Numerics.SwarmTable
 	if path == "" {
-		t, err := swarm.ForMixture(d.Gas.Nitrogen, d.Gas.Oxygen, d.Gas.Helium, cacheDir)
+		t, err := swarm.ForMixtureSet(d.Numerics.CrossSections, d.Gas.Nitrogen, d.Gas.Oxygen, d.Gas.Helium, cacheDir)
 		if err != nil {
 			return nil, fmt.Errorf("kinetics: swarm table for the mixture: %w", err)
 		}

@@ -90,7 +90,14 @@ func saveCanvas(path string, w, h vg.Length, render func(c draw.Canvas)) error {
 	if _, err := wt.WriteTo(&b); err != nil {
 		return fmt.Errorf("plots: rendering %s: %w", path, err)
 	}
-	if err := atomicfile.WriteFile(path, b.Bytes()); err != nil {
+	out := b.Bytes()
+	if ext == "svg" {
+		// Raster parts (heat maps, colour bars) must fill the box they are given: a browser
+		// otherwise keeps the bitmap's proportions and draws a one-pixel-wide colour bar as
+		// a hairline.
+		out = bytes.ReplaceAll(out, []byte("<image "), []byte(`<image preserveAspectRatio="none" `))
+	}
+	if err := atomicfile.WriteFile(path, out); err != nil {
 		return fmt.Errorf("plots: %w", err)
 	}
 	return nil

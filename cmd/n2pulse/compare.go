@@ -18,6 +18,7 @@ import (
 	"n2pulse/kinetics/design"
 	"n2pulse/kinetics/study"
 	"n2pulse/plots"
+	"n2pulse/report"
 )
 
 func init() {
@@ -62,7 +63,7 @@ type comparison struct {
 func runCompare(args []string, stdout, stderr io.Writer) error {
 	fs := newFlags("compare", "A.toml B.toml [C.toml …] [--set key=value …] [--out DIR] [--json]", stderr)
 	sets := fs.StringArray("set", nil, `override a design key in every design, e.g. --set gas.pressure="40 Torr" (repeatable)`)
-	out := fs.String("out", "compare", `directory for compare.csv and the figure compare.png/.svg ("" writes none)`)
+	out := fs.String("out", "compare", `directory for compare.csv, the figure compare.png/.svg and report.html ("" writes none)`)
 	asJSON := fs.Bool("json", false, "print the comparison as JSON on stdout (SI units)")
 	if help, err := parseFlags(fs, args); help || err != nil {
 		return err
@@ -321,5 +322,8 @@ func writeCompareFiles(dir string, c *comparison) ([]string, error) {
 		}
 		files = append(files, f)
 	}
-	return files, nil
+	if err := writeCompareReport(dir, c); err != nil {
+		return files, err
+	}
+	return append(files, filepath.Join(dir, report.FileName)), nil
 }

@@ -68,8 +68,12 @@ func TestCompare(t *testing.T) {
 			t.Errorf("%s: ratio %v, want %g", m.Metric, m.Ratios[1], m.Values[1]/m.Values[0])
 		}
 	}
-	if len(c.Files) != 3 {
-		t.Errorf("files %v, want compare.csv, .png, .svg", c.Files)
+	if len(c.Files) != 4 {
+		t.Errorf("files %v, want compare.csv, .png, .svg, report.html", c.Files)
+	}
+	if html, err := os.ReadFile(filepath.Join(dir, "report.html")); err != nil || !strings.Contains(string(html), `<figure id="compare">`) ||
+		!strings.Contains(string(html), "<h2>Keys that differ</h2>") || !strings.Contains(string(html), "channel gap (channel.gap)") {
+		t.Errorf("compare report.html: %v, or it lacks the figure or the differing keys", err)
 	}
 	for _, f := range c.Files {
 		if st, err := os.Stat(f); err != nil || st.Size() == 0 {

@@ -81,7 +81,7 @@ func designText(arg string) ([]byte, string, error) {
 
 func runRun(args []string, stdout, stderr io.Writer) error {
 	fs := newFlags("run", "[DESIGN] [--out DIR] [--json] [--set key=value …]", stderr)
-	out := fs.String("out", "", "write waveforms.csv, summary.json and the figures to this directory")
+	out := fs.String("out", "", "write waveforms.csv, summary.json, the figures and report.html (one self-contained page to send) to this directory")
 	asJSON := fs.Bool("json", false, "print the summary as JSON on stdout")
 	sets := fs.StringArray("set", nil, "override a design key, e.g. --set gas.pressure=\"40 Torr\" (repeatable)")
 	stats := fs.Bool("stats", false, "print solver statistics")
@@ -161,7 +161,10 @@ func printSummary(w io.Writer, d *design.Design, r *kinetics.Result) {
 	row("peak E/N", fmt.Sprintf("%.0f Td", s.PeakReducedField))
 	row("peak current", fmt.Sprintf("%s (%.3g kA/cm²)", units.Format(s.PeakCurrent, "A"), s.PeakCurrentDensity*1e-7))
 	row("peak electron density", fmt.Sprintf("%.3g cm⁻³", s.PeakElectronDensity*1e-6))
-	row("peak gain", fmt.Sprintf("%.3g cm⁻¹ (gain × length %.3g)", s.PeakGain/100, s.GainLength))
+	// Two different gains: the highest of the mid-channel cell, and the highest channel-mean
+	// gain, whose gain-length ∫g dz is the one the verdict uses.
+	row("peak gain (mid-channel cell)", fmt.Sprintf("%.3g cm⁻¹ (× channel length: %.3g)", s.PeakGain/100, s.PeakGain*d.Channel.Length))
+	row("channel-mean gain, peak", fmt.Sprintf("%.3g cm⁻¹ (gain-length gL = ∫g dz: %.3g)", s.GainLength/d.Channel.Length/100, s.GainLength))
 	row("inversion duration", units.Format(s.InversionDuration, "s"))
 	row("self-termination", fmt.Sprintf("%s at %s", s.TerminationCause, units.Format(s.TerminationTime, "s")))
 	row("discharge regime", regimeLine(s))
@@ -274,5 +277,8 @@ func writeRunOutputs(dir string, d *design.Design, r *kinetics.Result) error {
 	if err := atomicfile.WriteFile(filepath.Join(dir, "summary.json"), append(js, '\n')); err != nil {
 		return err
 	}
-	return writeRunFigures(dir, d, r)
+	if err := writeRunFigures(dir, d, r); err != nil {
+		return err
+	}
+	return writeRunReport(dir, d, r)
 }

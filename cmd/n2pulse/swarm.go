@@ -21,7 +21,7 @@ func init() {
 }
 
 func runSwarm(args []string, stdout, stderr io.Writer) error {
-	fs := newFlags("swarm", "[--gas n2|air | --nitrogen X --oxygen Y --helium Z] [--out FILE] [--plot FILE.png|.svg]", stderr)
+	fs := newFlags("swarm", "[--gas n2|air | --nitrogen X --oxygen Y --helium Z] [--cross-sections SET] [--out FILE] [--plot FILE.png|.svg]", stderr)
 	gas := fs.String("gas", "n2", "gas: n2 (pure N₂) or air (N₂ 0.79, O₂ 0.21)")
 	out := fs.String("out", "", "write the CSV table to FILE (default: standard output)")
 	plotFile := fs.String("plot", "", "draw v_d, α/N, η/N, k_B and k_C against E/N into FILE (.png or .svg)")
@@ -29,6 +29,7 @@ func runSwarm(args []string, stdout, stderr io.Writer) error {
 	oxygen := fs.Float64("oxygen", -1, "O₂ mole fraction 0–1")
 	helium := fs.Float64("helium", -1, "He mole fraction 0–1")
 	cells := fs.Int("cells", swarm.DefaultCells, "number of energy cells (20–5000)")
+	xsec := fs.String("cross-sections", "default", "N₂ cross-section set: default ("+swarm.DefaultSet+"), "+strings.Join(swarm.Sets(), ", "))
 	if help, err := parseFlags(fs, args); help || err != nil {
 		return err
 	}
@@ -63,7 +64,11 @@ func runSwarm(args []string, stdout, stderr io.Writer) error {
 			return usagef("swarm: --plot %q: the file must end in .png or .svg", *plotFile)
 		}
 	}
-	mix, err := swarm.Mixture(xn, xo, xh)
+	xset, err := swarm.ResolveSet(*xsec)
+	if err != nil {
+		return usagef("swarm: --cross-sections %q: want default, %s", *xsec, strings.Join(swarm.Sets(), ", "))
+	}
+	mix, err := swarm.SetMixture(xset, xn, xo, xh)
 	if err != nil {
 		return err
 	}

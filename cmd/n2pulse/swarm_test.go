@@ -45,12 +45,21 @@ func TestSwarmCommand(t *testing.T) {
 		strings.Contains(so.String(), "k_N2_15_m3_s") {
 		t.Errorf("rate columns not named by state: %.2000s", so.String())
 	}
+	// another cross-section set: its file named in the header
+	so.Reset()
+	if code := run([]string{"swarm", "--cross-sections", "itikawa2006", "--cells", "60"}, &so, &se); code != 0 {
+		t.Fatalf("--cross-sections itikawa2006: exit %d: %s", code, se.String())
+	}
+	if !strings.Contains(so.String(), "data/xsec-n2-itikawa.txt") {
+		t.Errorf("header does not name the Itikawa set's file: %.600s", so.String())
+	}
 	for _, args := range [][]string{
 		{"swarm", "--gas", "xenon"},
 		{"swarm", "--nitrogen", "0.5"},
 		{"swarm", "--plot", "x.jpg"},
 		{"swarm", "--cells", "3"},
 		{"swarm", "extra"},
+		{"swarm", "--cross-sections", "mine"},
 	} {
 		if code := run(args, &so, &se); code != 2 {
 			t.Errorf("%v: exit %d, want 2", args, code)

@@ -18,6 +18,7 @@ import (
 	"n2pulse/internal/atomicfile"
 	"n2pulse/kinetics/study"
 	"n2pulse/plots"
+	"n2pulse/report"
 )
 
 func init() {
@@ -32,7 +33,7 @@ func runSweep(args []string, stdout, stderr io.Writer) error {
 	fs := newFlags("sweep", "[DESIGN] --vary KEY=FROM:TO:N[:log] [--vary …] [--metric NAME …] [--out DIR] [--resume] [--shard K/N]", stderr)
 	vary := fs.StringArray("vary", nil, `a varied key and its grid, e.g. --vary gas.pressure=20Torr:760Torr:20:log (repeatable; the last varies fastest)`)
 	metrics := fs.StringSlice("metric", nil, "figures of merit to draw (default "+strings.Join(plots.DefaultMapMetrics, ",")+")")
-	out := fs.String("out", "sweep", "directory for results.csv, the journal and the figures")
+	out := fs.String("out", "sweep", "directory for results.csv, the journal, the figures and report.html")
 	sets := fs.StringArray("set", nil, `override a design key before sweeping, e.g. --set channel.length="40 cm" (repeatable)`)
 	workers := fs.Int("workers", runtime.NumCPU(), "points computed at once")
 	resume := fs.Bool("resume", false, "finish the sweep already started in --out, computing only the missing points")
@@ -93,7 +94,7 @@ func runSweep(args []string, stdout, stderr io.Writer) error {
 		fmt.Fprintf(stdout, "shard %s: wrote %s; join the shards with `n2pulse merge`\n", s.Shard, filepath.Join(*out, study.ResultsFile))
 		return nil
 	}
-	return reportSweep(stdout, tab, s.Axes, *metrics, *out, *asJSON)
+	return reportSweep(stdout, tab, s.Axes, *metrics, *out, *asJSON, d.Name, d.String())
 }
 
 // sweepReport is what `sweep --json` prints: the grid, the counts, the optimum of each metric
@@ -108,7 +109,7 @@ type sweepReport struct {
 
 // reportSweep prints the optimum of each metric (a table, or JSON), draws the figures, writes
 // the plotting-program copy of a two-key table and lists the files.
-func reportSweep(stdout io.Writer, tab *study.Table, axes []study.Axis, metrics []string, dir string, asJSON bool) error {
+func reportSweep(stdout io.Writer, tab *study.Table, axes []study.Axis, metrics []string, dir string, asJSON bool, name, listing string) error {
 	if len(metrics) == 0 {
 		metrics = plots.DefaultMapMetrics
 	}
@@ -128,6 +129,10 @@ func reportSweep(stdout io.Writer, tab *study.Table, axes []study.Axis, metrics 
 		return err
 	}
 	files = append(files, figs...)
+	if err := writeSweepReport(dir, name, listing, tab, axes, metrics, figs); err != nil {
+		return err
+	}
+	files = append(files, filepath.Join(dir, report.FileName))
 	if asJSON {
 		rep := sweepReport{Axes: axes, Points: len(tab.Rows), Files: files}
 		for r := range tab.Rows {

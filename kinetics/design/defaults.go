@@ -32,6 +32,8 @@ func Defaults() *Design {
 			Cells:     200,
 			EndTime:   40e-9,
 			Tolerance: 1e-5,
+
+			CrossSections: "default",
 		},
 	}
 }

@@ -158,6 +158,9 @@ type Numerics struct {
 	EndTime    float64 // end of the simulation after switch closure [s]
 	Tolerance  float64 // relative tolerance of the circuit integrator
 	SwarmTable string  // path of a user swarm table (CSV); empty means built in or solved
+	// CrossSections names the N₂ cross-section set of the built-in or solved swarm table:
+	// "default" (or empty) or a name of swarm.Sets; ignored when SwarmTable is set.
+	CrossSections string
 }
 
 // infinite is the excitation velocity of a simultaneous discharge.

@@ -10,6 +10,7 @@ import (
 	"strings"
 
 	"n2pulse/kinetics/build"
+	"n2pulse/kinetics/swarm"
 	"n2pulse/units"
 )
 
@@ -28,6 +29,9 @@ type field struct {
 	integer  bool
 	help     string
 }
+
+// crossSectionChoices are the values of numerics.cross_sections: "default" and the shipped sets.
+func crossSectionChoices() []string { return append([]string{"default"}, swarm.Sets()...) }
 
 // list returns the fixed choices of a string field.
 func list(c ...string) func() []string { return func() []string { return c } }
@@ -100,6 +104,7 @@ var fieldList = []field{
 	{key: "numerics.end_time", dim: units.Time, unit: "s", num: func(d *Design) *float64 { return &d.Numerics.EndTime }, min: 1e-10, max: 1e-5, help: "end of the simulation after switch closure"},
 	{key: "numerics.tolerance", dim: units.Dimensionless, num: func(d *Design) *float64 { return &d.Numerics.Tolerance }, min: 1e-12, max: 1e-2, help: "relative tolerance of the circuit integrator"},
 	{key: "numerics.swarm_table", str: func(d *Design) *string { return &d.Numerics.SwarmTable }, help: "path of a swarm table CSV (empty: built in, or solved for the mixture)"},
+	{key: "numerics.cross_sections", str: func(d *Design) *string { return &d.Numerics.CrossSections }, choices: crossSectionChoices, help: "N₂ electron cross-section set of the swarm table (default: " + swarm.DefaultSet + "; phelps1985 and itikawa2006 are the swarm-checked sets)"},
 
 	// The [build] section: the laser as built (see package build).
 	{key: "build.switch_plate_length", dim: units.Length, unit: "m", num: func(d *Design) *float64 { return &d.Build.SwitchPlateLength }, min: 1e-3, max: 10, help: "switch-side capacitor plate, along the current away from the switch edge"},
@@ -145,6 +150,16 @@ func KeyUnit(key string) (unit string, ok bool) {
 		return "", false
 	}
 	return f.unit, true
+}
+
+// KeyRange returns the allowed closed range [lo, hi] of a numeric design key in SI, whether 0
+// is allowed besides it (meaning "none" or "computed"), and whether the key is numeric.
+func KeyRange(key string) (lo, hi float64, zeroOK, ok bool) {
+	f, found := fieldIndex[key]
+	if !found || (f.num == nil && !f.integer) {
+		return 0, 0, false, false
+	}
+	return f.min, f.max, f.zeroOK, true
 }
 
 // KeyInteger reports whether a design key takes whole numbers only (numerics.cells).

@@ -43,44 +43,15 @@ func logSpace(lo, hi float64, n int) []float64 {
 	return out
 }
 
-var (
-	speciesOnce sync.Once
-	speciesSet  map[string]*Species
-	speciesErr  error
-)
-
-// BuiltinSpecies returns the shipped cross-section set of "N2", "O2" or "He" (parsed once;
-// the caller must not modify it).
-func BuiltinSpecies(name string) (*Species, error) {
-	speciesOnce.Do(func() {
-		speciesSet = map[string]*Species{}
-		for _, f := range []string{"xsec-n2.txt", "xsec-o2.txt", "xsec-he.txt"} {
-			b, err := fs.ReadFile(data.CrossSections, f)
-			if err != nil {
-				speciesErr = fmt.Errorf("swarm: %w", err)
-				return
-			}
-			sp, err := ParseCrossSections(bytes.NewReader(b), "data/"+f)
-			if err != nil {
-				speciesErr = err
-				return
-			}
-			speciesSet[sp.Name] = sp
-		}
-	})
-	if speciesErr != nil {
-		return nil, speciesErr
-	}
-	sp, ok := speciesSet[name]
-	if !ok {
-		return nil, fmt.Errorf("swarm: species %q: no built-in cross sections (have N2, O2, He)", name)
-	}
-	return sp, nil
+// Mixture returns the built-in components of DefaultSet for the given mole fractions (zero
+// fractions are left out).
+func Mixture(nitrogen, oxygen, helium float64) ([]Component, error) {
+	return SetMixture(DefaultSet, nitrogen, oxygen, helium)
 }
 
-// Mixture returns the built-in components for the given mole fractions (zero fractions are
-// left out).
-func Mixture(nitrogen, oxygen, helium float64) ([]Component, error) {
+// SetMixture returns the built-in components of the named cross-section set for the given mole
+// fractions (zero fractions are left out).
+func SetMixture(set string, nitrogen, oxygen, helium float64) ([]Component, error) {
 	for _, f := range []struct {
 		name string
 		x    float64
@@ -100,7 +71,7 @@ func Mixture(nitrogen, oxygen, helium float64) ([]Component, error) {
 		if c.x == 0 {
 			continue
 		}
-		sp, err := BuiltinSpecies(c.name)
+		sp, err := SetSpecies(set, c.name)
 		if err != nil {
 			return nil, err
 		}
@@ -249,35 +220,43 @@ func TableComments(mix []Component, s *Settings) []string {
 	return []string{
 		"n2pulse swarm table: electron transport and rate coefficients against E/N, from n2pulse's own steady solution of the electron Boltzmann equation with the distribution expanded to first order in the direction of motion; electron number grows in time, an ionising collision splits the remaining energy evenly between the two electrons (method: package swarm)",
 		"mixture (mole fractions): " + Composition(mix),
-		fmt.Sprintf("solver %s, %d energy cells, gas temperature %g K; cross sections: %s", SolverVersion, set.Cells, set.GasTemperature, crossSectionNote()),
+		fmt.Sprintf("solver %s, %d energy cells, gas temperature %g K; cross sections: %s (each process with its source)", SolverVersion, set.Cells, set.GasTemperature, crossSectionNote(mix)),
 		fmt.Sprintf("k_ion, k_att per molecule of the whole gas; k_A, k_B, k_C and the k_<species>_<state> columns per target molecule; k_att includes three-body attachment to O2 at %.4g m^-3 (its part in %s)", ReferenceDensity, ThreeBodyColumn),
 	}
 }
 
-// crossSectionNote names the cross-section files behind the built-in species.
-func crossSectionNote() string {
-	return "data/xsec-*.txt (each process with its source)"
+// crossSectionNote names the cross-section files of the mixture's species.
+func crossSectionNote(mix []Component) string {
+	var f []string
+	for _, c := range mix {
+		name := c.Species.File
+		if name == "" {
+			name = c.Species.Name + " (not a shipped file)"
+		}
+		f = append(f, name)
+	}
+	return strings.Join(f, ", ")
 }
 
 var (
 	builtinMu     sync.Mutex
-	builtinTables = map[string]*Table{}
+	builtinTables = map[string]*Table{} // by file name
 )
 
-// Builtin returns the shipped table of "n2" (pure N₂) or "air" (Air), parsed once and shared.
-func Builtin(gas string) (*Table, error) {
-	var file string
-	switch gas {
-	case "n2":
-		file = "swarm-n2.csv"
-	case "air":
-		file = "swarm-air.csv"
-	default:
-		return nil, fmt.Errorf("swarm: gas %q: want n2 or air", gas)
+// Builtin returns the shipped table of "n2" (pure N₂) or "air" (Air) for DefaultSet, parsed
+// once and shared.
+func Builtin(gas string) (*Table, error) { return BuiltinSet(gas, DefaultSet) }
+
+// BuiltinSet returns the shipped table of "n2" or "air" for the named cross-section set:
+// data/swarm-<gas>.csv for SetOriginal, data/swarm-<gas>-<set>.csv for the others.
+func BuiltinSet(gas, set string) (*Table, error) {
+	file, err := tableFile(gas, set)
+	if err != nil {
+		return nil, err
 	}
 	builtinMu.Lock()
 	defer builtinMu.Unlock()
-	if t, ok := builtinTables[gas]; ok {
+	if t, ok := builtinTables[file]; ok {
 		return t, nil
 	}
 	b, err := fs.ReadFile(data.SwarmTables, file)
@@ -288,8 +267,23 @@ func Builtin(gas string) (*Table, error) {
 	if err != nil {
 		return nil, err
 	}
-	builtinTables[gas] = t
+	builtinTables[file] = t
 	return t, nil
+}
+
+// tableFile is the shipped table file of a gas and set.
+func tableFile(gas, set string) (string, error) {
+	if gas != "n2" && gas != "air" {
+		return "", fmt.Errorf("swarm: gas %q: want n2 or air", gas)
+	}
+	set, err := ResolveSet(set)
+	if err != nil {
+		return "", err
+	}
+	if set == SetOriginal {
+		return "swarm-" + gas + ".csv", nil
+	}
+	return "swarm-" + gas + "-" + set + ".csv", nil
 }
 
 // memTables holds the tables ForMixture made in this process, keyed like the cache files: a
@@ -310,22 +304,31 @@ type tableEntry struct {
 // at full precision), so a fresh solve, a cached file and another worker give the same
 // numbers bit for bit. When the cache cannot be written the table is kept in memory only.
 func ForMixture(nitrogen, oxygen, helium float64, cacheDir string) (*Table, error) {
-	mix, err := Mixture(nitrogen, oxygen, helium)
+	return ForMixtureSet(DefaultSet, nitrogen, oxygen, helium, cacheDir)
+}
+
+// ForMixtureSet is ForMixture with the named cross-section set (see ResolveSet).
+func ForMixtureSet(set string, nitrogen, oxygen, helium float64, cacheDir string) (*Table, error) {
+	set, err := ResolveSet(set)
+	if err != nil {
+		return nil, err
+	}
+	mix, err := SetMixture(set, nitrogen, oxygen, helium)
 	if err != nil {
 		return nil, err
 	}
 	near := func(a, b float64) bool { return math.Abs(a-b) <= 1e-3 }
 	if near(nitrogen, 1) && near(oxygen, 0) && near(helium, 0) {
-		return Builtin("n2")
+		return BuiltinSet("n2", set)
 	}
 	if near(nitrogen, AirNitrogen) && near(oxygen, AirOxygen) && near(helium, 0) {
-		return Builtin("air")
+		return BuiltinSet("air", set)
 	}
-	xs, err := crossSectionHash()
+	xs, err := crossSectionHash(set)
 	if err != nil {
 		return nil, err
 	}
-	key := fmt.Sprintf("%s xsec=%s N2=%.6f O2=%.6f He=%.6f", SolverVersion, xs, nitrogen, oxygen, helium)
+	key := fmt.Sprintf("%s set=%s xsec=%s N2=%.6f O2=%.6f He=%.6f", SolverVersion, set, xs, nitrogen, oxygen, helium)
 	sum := sha256.Sum256([]byte(key))
 	name := "swarm-" + hex.EncodeToString(sum[:8]) + ".csv"
 	if cacheDir == "" {
@@ -378,32 +381,21 @@ func solveOrLoad(mix []Component, key, cacheDir, name string) (*Table, error) {
 	return t, nil
 }
 
-var (
-	xsecHashOnce sync.Once
-	xsecHash     string
-	xsecHashErr  error
-)
-
-// crossSectionHash is a short hash of the shipped cross-section files, part of the cache key:
-// a table cached before a data change is not read back after it.
-func crossSectionHash() (string, error) {
-	xsecHashOnce.Do(func() {
-		h := sha256.New()
-		names, err := fs.Glob(data.CrossSections, "xsec-*.txt")
+// crossSectionHash is a short hash of the set's cross-section files (N₂ of the set, O₂, He),
+// part of the cache key: a table cached before a data change is not read back after it.
+func crossSectionHash(set string) (string, error) {
+	h := sha256.New()
+	for _, sp := range []string{"N2", "O2", "He"} {
+		f, err := speciesFile(set, sp)
 		if err != nil {
-			xsecHashErr = fmt.Errorf("swarm: %w", err)
-			return
+			return "", err
 		}
-		for _, n := range names {
-			b, err := fs.ReadFile(data.CrossSections, n)
-			if err != nil {
-				xsecHashErr = fmt.Errorf("swarm: %w", err)
-				return
-			}
-			fmt.Fprintf(h, "%s %d\n", n, len(b))
-			h.Write(b)
+		b, err := fs.ReadFile(data.CrossSections, f)
+		if err != nil {
+			return "", fmt.Errorf("swarm: %w", err)
 		}
-		xsecHash = hex.EncodeToString(h.Sum(nil)[:8])
-	})
-	return xsecHash, xsecHashErr
+		fmt.Fprintf(h, "%s %d\n", f, len(b))
+		h.Write(b)
+	}
+	return hex.EncodeToString(h.Sum(nil)[:8]), nil
 }

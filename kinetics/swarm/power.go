@@ -11,7 +11,7 @@ type Channel int
 // every species (singlets, E, dissociation, the O₂ states) share one.
 const (
 	ChannelElastic         Channel = iota // elastic recoil (momentum transfer)
-	ChannelVibrational                    // vibrational excitation of N₂ and O₂
+	ChannelVibrational                    // vibrational excitation of N₂ and O₂ (and rotational, where a set has it)
 	ChannelA                              // N₂ A³Σu⁺
 	ChannelB                              // N₂ B³Πg (all v)
 	ChannelW                              // N₂ W³Δu
@@ -43,7 +43,7 @@ func channelOf(species string, k Kind, label string) Channel {
 	case Attachment:
 		return ChannelAttachment
 	}
-	if strings.HasPrefix(label, "vib") {
+	if strings.HasPrefix(label, "vib") || label == "rot" { // rotation counted with vibration
 		return ChannelVibrational
 	}
 	if species == "N2" {

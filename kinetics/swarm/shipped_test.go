@@ -11,18 +11,29 @@ import (
 	"n2pulse/units"
 )
 
-var update = flag.Bool("update", false, "rewrite data/swarm-n2.csv and data/swarm-air.csv from a fresh solve")
+var update = flag.Bool("update", false, "rewrite the shipped tables data/swarm-*.csv (every gas and cross-section set) from a fresh solve")
 
-// TestShippedTables solves N₂ and air afresh and compares with the shipped tables: they are this
-// solver's own output, so they must agree within 1e-4 relative (the CSV keeps 8 digits; the
+// TestShippedTables solves N₂ and air afresh for every cross-section set and compares with the
+// shipped tables: they are this
+// solver's own output, so they must agree within 1e-4 relative (the CSV keeps full precision; the
 // adaptive grid moves results by about 1e-3 only if its path changes). With -update the files
 // are rewritten.
 func TestShippedTables(t *testing.T) {
-	for _, c := range []struct {
-		gas    string
-		xn, xo float64
-	}{{"n2", 1, 0}, {"air", AirNitrogen, AirOxygen}} {
-		mix, err := Mixture(c.xn, c.xo, 0)
+	var cases []struct {
+		gas, set string
+		xn, xo   float64
+	}
+	for _, set := range Sets() {
+		cases = append(cases, struct {
+			gas, set string
+			xn, xo   float64
+		}{"n2", set, 1, 0}, struct {
+			gas, set string
+			xn, xo   float64
+		}{"air", set, AirNitrogen, AirOxygen})
+	}
+	for _, c := range cases {
+		mix, err := SetMixture(c.set, c.xn, c.xo, 0)
 		if err != nil {
 			t.Fatal(err)
 		}
@@ -30,7 +41,11 @@ func TestShippedTables(t *testing.T) {
 		if err != nil {
 			t.Fatal(err)
 		}
-		file := "../../data/swarm-" + c.gas + ".csv"
+		name, err := tableFile(c.gas, c.set)
+		if err != nil {
+			t.Fatal(err)
+		}
+		file := "../../data/" + name
 		if *update {
 			var buf bytes.Buffer
 			if err := WriteResultsCSV(&buf, TableComments(mix, nil), res); err != nil {
@@ -41,7 +56,7 @@ func TestShippedTables(t *testing.T) {
 			}
 			continue
 		}
-		shipped, err := Builtin(c.gas)
+		shipped, err := BuiltinSet(c.gas, c.set)
 		if err != nil {
 			t.Fatal(err)
 		}

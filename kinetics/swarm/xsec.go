@@ -54,6 +54,7 @@ type Process struct {
 // Species is a target gas with its cross-section set.
 type Species struct {
 	Name      string
+	File      string  // the shipped file it was read from ("data/xsec-n2.txt"), or empty
 	Mass      float64 // molecular mass [kg]
 	Processes []Process
 }

@@ -1,0 +1,42 @@
+package main
+
+import (
+	"bytes"
+	"fmt"
+	"strings"
+	"testing"
+
+	"n2pulse/kinetics"
+	"n2pulse/kinetics/design"
+)
+
+// TestRunSummaryGainLabels (issue 16 case 5): the summary names both gains. Before, "peak
+// gain 1.24 cm⁻¹ (gain × length 21.4)" on a 25 cm channel mixed the cell's peak with the
+// channel mean's gain-length. Now the mid-channel cell's peak gain is printed with its own
+// product with the length and the channel-mean gain with the gain-length gL; on the example
+// (20 cm) the two products differ by more than a factor 2 (cell 2.56 cm⁻¹ × 20 cm = 51.2
+// against gL 21.3 when the test was written), so a mix-up cannot pass.
+func TestRunSummaryGainLabels(t *testing.T) {
+	t.Parallel()
+	d := design.ExampleDesign()
+	r, err := kinetics.Run(d, &kinetics.RunSettings{Light: true})
+	if err != nil {
+		t.Fatal(err)
+	}
+	s, l := r.Summary, d.Channel.Length
+	if s.PeakGain*l < 2*s.GainLength {
+		t.Fatalf("cell peak × length %.3g not above 2 × gL %.3g: the test cannot tell them apart", s.PeakGain*l, s.GainLength)
+	}
+	var out, errb bytes.Buffer
+	if code := run([]string{"run"}, &out, &errb); code != 0 {
+		t.Fatalf("run: exit %d: %s", code, errb.String())
+	}
+	for _, want := range []string{
+		fmt.Sprintf("peak gain (mid-channel cell) %.3g cm⁻¹ (× channel length: %.3g)", s.PeakGain/100, s.PeakGain*l),
+		fmt.Sprintf("channel-mean gain, peak      %.3g cm⁻¹ (gain-length gL = ∫g dz: %.3g)", s.GainLength/l/100, s.GainLength),
+	} {
+		if !strings.Contains(out.String(), want) {
+			t.Errorf("summary lacks %q:\n%s", want, out.String())
+		}
+	}
+}

@@ -1,0 +1,122 @@
+package kinetics
+
+import (
+	"errors"
+	"fmt"
+	"math"
+
+	"n2pulse/kinetics/design"
+	"n2pulse/kinetics/ode"
+	"n2pulse/kinetics/swarm"
+)
+
+// waveforms are the circuit and discharge quantities sampled at the middle of every optical
+// step, (k+½)·Δt.
+type waveforms struct {
+	voltage, current, field, density []float64                  // V_ch [V], channel current [A], E/N [V m²], n_e [m⁻³]
+	pumpC, pumpB                     []float64                  // excitation rates into C(0) and B(0) [m⁻³ s⁻¹]
+	lossC                            []float64                  // loss rate of C(0) by electron collisions (Born–Bethe and Lotz estimate) [s⁻¹]
+	stored, deposited                float64                    // [J]
+	switchLoss, shuntLoss, left      float64                    // dissipated in the switch and the shunt, left in the circuit [J]
+	plasmaSplit                      [swarm.NumChannels]float64 // Σ plasma power × channel share × Δt over the samples [J]
+	plasmaSampled                    float64                    // Σ plasma power × Δt over the samples [J]
+	plasmaPower                      []float64                  // plasma power at each sample [W]
+	manifold, upperV1                *reservoir                 // the B(v>0)/W/B′ and C(v=1) reservoirs over the run
+	split                            bool                       // the swarm table has a power split
+	energyResidual                   float64
+	peakField, peakCurrent           float64
+	peakDensity                      float64
+	fieldAbove                       bool
+}
+
+// solveCircuit integrates the circuit and discharge from closure to steps·dt and samples them.
+func solveCircuit(c *circuit, d *design.Design, par *Parameters, steps int) (*waveforms, Stats, error) {
+	dt := par.TimeStep
+	y0, stored := c.initial(d.Circuit.ChargeVoltage, d.Discharge.SeedDensity)
+	v0 := d.Circuit.ChargeVoltage
+	iScale := v0 / math.Sqrt(math.Max(d.Circuit.SwitchInductance, d.Circuit.ChannelInductance)/
+		math.Min(d.Circuit.SwitchCapacitance, d.Circuit.ChannelCapacitance))
+	atol := make([]float64, nState)
+	for _, i := range []int{iV1, iV2, iVg} {
+		atol[i] = 1e-7 * v0
+	}
+	for _, i := range []int{iIs, iIc, iIsh} {
+		atol[i] = 1e-7 * iScale
+	}
+	atol[iLnNe] = 1e-7
+	atol[iQ] = 1e-7 * iScale * iScale * 1e-9
+	for _, i := range []int{iESwitch, iEPlasma, iEShunt} {
+		atol[i] = 1e-9 * stored
+	}
+	integ := ode.NewRosenbrock(nil)
+	end := float64(steps) * dt
+	set := &ode.Settings{RelTol: d.Numerics.Tolerance, AbsTol: atol, MaxStep: end / 50, MaxSteps: 200000, Stops: []float64{end}}
+	if err := integ.Init(c, 0, y0, set); err != nil {
+		return nil, Stats{}, fmt.Errorf("kinetics: circuit: %w", err)
+	}
+	w := &waveforms{
+		voltage: make([]float64, steps), current: make([]float64, steps),
+		field: make([]float64, steps), density: make([]float64, steps),
+		pumpC: make([]float64, steps), pumpB: make([]float64, steps),
+		plasmaPower: make([]float64, steps), lossC: make([]float64, steps),
+		stored: stored,
+	}
+	_, hi := c.table.Range()
+	nX := c.density * d.Gas.Nitrogen
+	shareC, shareB := par.UpperShare*nX, par.LowerShare*nX
+	man := newManifold(d.Levels, d.Gas, c.density, dt)
+	v1 := newUpperV1(d.Levels, d.Gas, c.density, par.UpperLifetime, dt)
+	shareC1 := par.UpperShare1 * nX
+	eScale := d.Levels.UpperElectronScale
+	y := make([]float64, nState)
+	k := 0
+	for k < steps {
+		t, err := integ.Step()
+		if err != nil {
+			var se *ode.StepError
+			if errors.As(err, &se) {
+				return nil, Stats{}, fmt.Errorf("kinetics: circuit did not converge (tighten or loosen numerics.tolerance, check the circuit values): %w", err)
+			}
+			return nil, Stats{}, fmt.Errorf("kinetics: circuit: %w", err)
+		}
+		for ; k < steps && (float64(k)+0.5)*dt <= t; k++ {
+			tk := (float64(k) + 0.5) * dt
+			if err := integ.Interpolate(tk, y); err != nil {
+				return nil, Stats{}, fmt.Errorf("kinetics: circuit: %w", err)
+			}
+			ne := math.Exp(y[iLnNe])
+			kB, kC, kW, kBp, mean := c.pumpRates(y[iVg])
+			w.voltage[k] = y[iVg]
+			w.current[k] = y[iIc]
+			w.field[k] = c.reducedField(y[iVg])
+			w.density[k] = ne
+			if eScale > 0 {
+				w.lossC[k] = eScale * upperElectronLoss(mean, par.UpperLifetime, par.PhotonEnergy, par.UpperEnergy) * ne
+			}
+			w.pumpC[k] = kC*ne*shareC + v1.step(kC*ne*shareC1)
+			w.pumpB[k] = kB*ne*shareB + man.step(((1-par.LowerShare)*kB+kW+kBp)*ne*nX)
+			if share, ok := c.powerSplit(y[iVg]); ok {
+				pw := y[iVg] * c.plasmaCurrentQuiet(y[iVg], ne) * dt
+				w.plasmaPower[k] = pw / dt
+				w.split = true
+				w.plasmaSampled += pw
+				for j, f := range share {
+					w.plasmaSplit[j] += f * pw
+				}
+			}
+			w.peakField = math.Max(w.peakField, w.field[k])
+			w.peakCurrent = math.Max(w.peakCurrent, math.Abs(y[iIc]))
+			w.peakDensity = math.Max(w.peakDensity, ne)
+			if w.field[k] > hi {
+				w.fieldAbove = true
+			}
+		}
+	}
+	w.manifold, w.upperV1 = man, v1
+	_, yEnd := integ.State()
+	w.deposited = yEnd[iEPlasma]
+	left := c.storedEnergy(yEnd)
+	w.switchLoss, w.shuntLoss, w.left = yEnd[iESwitch], yEnd[iEShunt], left
+	w.energyResidual = math.Abs(stored-(left+yEnd[iESwitch]+yEnd[iEPlasma]+yEnd[iEShunt])) / stored
+	return w, Stats{Circuit: integ.Stats()}, nil
+}
