@@ -1,6 +1,7 @@
 package study
 
 import (
+	"strings"
 	"testing"
 
 	"n2pulse/kinetics/design"
@@ -71,5 +72,39 @@ func TestResumeMessageInUserUnits(t *testing.T) {
 	v.Display = ""
 	if got, want := v.String(), "circuit.charge_voltage=8kV:16kV:5"; got != want {
 		t.Errorf("String = %q, want %q", got, want)
+	}
+}
+
+// TestAxisEveryKeyAtItsEnds: a log axis and a linear axis from each numeric key's minimum to
+// its maximum keep every point (the first point of a log axis at the minimum once fell just
+// below it, in 14 keys).
+func TestAxisEveryKeyAtItsEnds(t *testing.T) {
+	t.Parallel()
+	base := design.ExampleDesign()
+	n := 0
+	for _, key := range design.Keys() {
+		lo, hi, _, ok := design.KeyRange(key)
+		if !ok || !(lo > 0) || hi > 1e300 || key == "numerics.cells" {
+			continue
+		}
+		for _, spacing := range []string{"log", "lin"} {
+			text := key + "=" + siText(key, lo) + ":" + siText(key, hi) + ":5:" + spacing
+			a, err := ParseAxis(text, base)
+			if err != nil {
+				t.Errorf("%s: %v", text, err)
+				continue
+			}
+			s := &Sweep{Design: base, Axes: []Axis{a}}
+			for i := range a.N {
+				// A build key alone leaves the example's [build] incomplete: Validate says so.
+				if _, err := s.PointDesign(i); err != nil && !strings.Contains(err.Error(), "[build]") {
+					t.Errorf("%s: point %d refused: %v", text, i, err)
+				}
+			}
+			n++
+		}
+	}
+	if n < 60 {
+		t.Errorf("only %d axes tried, want every numeric key with a positive minimum (≥ 60)", n)
 	}
 }
