@@ -38,6 +38,7 @@ func amplifySquare(m *medium, f, tau float64) float64 {
 // Phys. 34, 2346 (1963), eq. for the output energy of a square pulse):
 // J_out = J_s·ln(1 + G₀·(e^(J_in/J_s) − 1)), G₀ = e^(σΔN₀L), J_s = 1/((1+g)σ).
 func TestFrantzNodvik(t *testing.T) {
+	t.Parallel()
 	const (
 		length = 0.2
 		sigma  = 1.5e-19
@@ -67,6 +68,7 @@ func TestFrantzNodvik(t *testing.T) {
 // TestSmallSignalGain: a weak signal grows as e^(gL) (Beer–Lambert law with negative
 // absorption; textbook).
 func TestSmallSignalGain(t *testing.T) {
+	t.Parallel()
 	for _, gl := range []float64{-3, 1, 5, 12} {
 		sigma, length := 1e-19, 0.3
 		c0 := gl / (sigma * length)
@@ -86,6 +88,7 @@ func TestSmallSignalGain(t *testing.T) {
 
 // TestPopulationsNonNegative: populations stay non-negative however strong the flux.
 func TestPopulationsNonNegative(t *testing.T) {
+	t.Parallel()
 	m := testMedium(50, 0.1, 1e-19, 0.8, 1e20, 3e19)
 	amplifySquare(m, 1e35, 10*m.dt)
 	for i := range m.c {

@@ -8,6 +8,7 @@ import (
 // The short series of a Frantz–Nodvik pass agree with the library functions to rounding
 // inside their ranges and say so only there.
 func TestPassSeries(t *testing.T) {
+	t.Parallel()
 	for _, x := range []float64{0, 1e-300, 1e-12, 1e-6, 0x1p-14, 1e-4, 1e-3, 0.01, 1.0 / 64} {
 		r, ok := expNegSeries(x)
 		want := -math.Expm1(-x)
@@ -59,6 +60,7 @@ func passReference(x, g float64) float64 {
 // The expansion far below saturation matches the closed form inside its range and refuses
 // outside it.
 func TestPassTiny(t *testing.T) {
+	t.Parallel()
 	for _, g := range []float64{1e-3, 0.3, 0.9, 1 - 1e-9, 1, 1 + 1e-9, 1.001, 1.3, 2, 10, 1000} {
 		for _, x := range []float64{0, 1e-20, 1e-9, 1e-6, 1e-5, 3e-5, 6e-5} {
 			if x*g >= tinyFluence {
@@ -87,6 +89,7 @@ func TestPassTiny(t *testing.T) {
 // Frantz–Nodvik output, the gain factor left behind is G·e^(−ΔJ/J_s), and the transitions
 // taken from the populations are the photons gained.
 func TestPassCell(t *testing.T) {
+	t.Parallel()
 	const sigma, g, dz = 1.4e-19, 0.83, 1e-3
 	for _, gain := range []float64{0.2, 0.5, 0.97, 1, 1.0004, 1.1, 1.3, 1.5, 3, 40} {
 		for _, x := range []float64{0, 1e-12, 1e-7, 5e-5, 2e-4, 0.005, 0.015, 0.05, 0.1, 0.125, 0.13, 1, 30} {

@@ -9,6 +9,7 @@ import (
 // emission, matches the closed form of Frantz & Nodvik, J. Appl. Phys. 34, 2346 (1963)
 // (passReference) inside its range, agrees with passTiny there, and refuses outside it.
 func TestPassFaint(t *testing.T) {
+	t.Parallel()
 	for _, g := range []float64{1e-3, 0.3, 0.9, 1 - 1e-9, 1, 1 + 1e-9, 1.001, 1.3, 2, 10, 1000} {
 		for _, x := range []float64{0, 1e-300, 1e-20, 1e-12, 1e-9, 3e-9, 7e-9} {
 			if x*g >= faintFluence {

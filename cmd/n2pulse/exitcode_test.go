@@ -58,6 +58,8 @@ func TestExitCodeRule(t *testing.T) {
 		{[]string{"sweep", "--set", "gas.pressure=40", "--vary", "circuit.charge_voltage=8kV:9kV:2"}, "", 2, "has no unit"},
 		{[]string{"sweep", "--vary", "gas.pressure=1atm:2atm:2", "--vary", "gas.pressure=1atm:2atm:2"}, "", 2, "varied twice"},
 		{[]string{"sweep", "--out", taken, "--vary", "gas.pressure=1atm:2atm:2"}, "", 1, "sweep.json"},
+		{[]string{"sweep", "--shard", "4/3", "--vary", "gas.pressure=1atm:2atm:2"}, "", 2, "4/3"},
+		{[]string{"sweep", "--metric", "brightness", "--vary", "gas.pressure=1atm:2atm:2"}, "", 2, "brightness"},
 		{[]string{"length", "--from", "1m", "--to", "10cm"}, "", 2, "0 < from < to"},
 		{[]string{"length", "--from", "5"}, "", 2, "has no unit"},
 		{[]string{"length", "--points", "1"}, "", 2, "allowed 3 to 10000"},

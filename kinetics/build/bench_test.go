@@ -25,6 +25,7 @@ func board() (Spec, Conditions) {
 }
 
 func TestEvaluateDerivesCircuit(t *testing.T) {
+	t.Parallel()
 	s, c := board()
 	b, err := Evaluate(s, c)
 	if err != nil {
@@ -63,6 +64,7 @@ func hasWarning(b *Bench, part string) bool {
 }
 
 func TestEvaluateWarnings(t *testing.T) {
+	t.Parallel()
 	s, c := board()
 	b, _ := Evaluate(s, c)
 	if hasWarning(b, "over-stressed") || hasWarning(b, "self-fires") {
@@ -104,6 +106,7 @@ func TestEvaluateWarnings(t *testing.T) {
 }
 
 func TestEvaluateErrors(t *testing.T) {
+	t.Parallel()
 	s, c := board()
 	s.Dielectric = ""
 	if _, err := Evaluate(s, c); err == nil {

@@ -3,6 +3,7 @@ package build
 import "testing"
 
 func TestDielectricPresets(t *testing.T) {
+	t.Parallel()
 	keys := DielectricKeys()
 	if len(keys) < 6 {
 		t.Fatalf("only %d dielectric presets: %v", len(keys), keys)

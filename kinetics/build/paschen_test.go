@@ -10,6 +10,7 @@ import (
 const torrCM = units.Torr * 0.01 // 1 Torr·cm in Pa m
 
 func TestPaschenMinimumFormula(t *testing.T) {
+	t.Parallel()
 	g, err := Gas("nitrogen")
 	if err != nil {
 		t.Fatal(err)
@@ -34,6 +35,7 @@ func TestPaschenMinimumFormula(t *testing.T) {
 }
 
 func TestPaschenAtmosphere(t *testing.T) {
+	t.Parallel()
 	g, _ := Gas("nitrogen")
 	// Uniform-field breakdown of a 1 cm N₂ gap at 101.3 kPa is about 30.4 kV: sparking chapter
 	// of a Taylor & Francis high-voltage text, doi:10.1201/9780203025260-14 (abstract seen).

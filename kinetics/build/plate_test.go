@@ -17,6 +17,7 @@ func near(t *testing.T, what string, got, want, rel float64) {
 }
 
 func TestParallelPlateWorkedExamples(t *testing.T) {
+	t.Parallel()
 	// A = 2.00e-4 m², d = 1.00 mm, air: C = 1.77 pF. Serway & Jewett, Physics for Scientists
 	// and Engineers, worked example "Parallel-plate capacitor" in the capacitance chapter
 	// (from memory).
@@ -29,6 +30,7 @@ func TestParallelPlateWorkedExamples(t *testing.T) {
 }
 
 func TestPalmerFringe(t *testing.T) {
+	t.Parallel()
 	// Analytic limits of Palmer's factors: they exceed 1, grow with d/w and vanish as d → 0.
 	thin := Plates{Length: 0.3, Width: 0.2, Thickness: 1e-5, Permittivity: 3}
 	r := thin.Capacitance(Palmer) / thin.Capacitance(NoFringe)
@@ -46,6 +48,7 @@ func TestPalmerFringe(t *testing.T) {
 }
 
 func TestParallelPlateLine(t *testing.T) {
+	t.Parallel()
 	// Parallel-plate line formulas L' = μd/W, C' = εW/d, Z₀ = sqrt(μ/ε)·d/W, from the
 	// transmission-line parameter sheet https://davidwoolsey.com/physics/reference/transmissonline.html
 	// (seen). Worked case: strip w = 10 mm over d = 0.1 mm of air (the geometry of a microstrip
@@ -66,6 +69,7 @@ func TestParallelPlateLine(t *testing.T) {
 }
 
 func TestLoopInductanceEnergy(t *testing.T) {
+	t.Parallel()
 	// The edge-fed loop inductance L'·l/3 is the magnetic energy of a current falling linearly
 	// to zero: check it against a numerical integral of ½L'I(x)² (analytic).
 	p := Plates{Length: 0.3, Width: 0.25, Thickness: 0.5e-3, Permittivity: 3.3}

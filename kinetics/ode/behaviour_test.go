@@ -35,6 +35,7 @@ func (s *switched) Eval(t float64, _, dydt []float64) error {
 // TestStopsLandExactly checks that steps end exactly on Settings.Stops and that a right-hand
 // side that changes just after a stop is integrated exactly: y(2) = 2 − ts (analytic).
 func TestStopsLandExactly(t *testing.T) {
+	t.Parallel()
 	for _, ic := range integrators {
 		reached := false
 		sys := &switched{ts: 1.2345678, reached: &reached}
@@ -78,6 +79,7 @@ func TestStopsLandExactly(t *testing.T) {
 // TestAdvanceToGrid samples exponential decay on a uniform grid of 1000 points: every sample
 // lands on its time and matches exp(−t) (analytic) within 100·RelTol.
 func TestAdvanceToGrid(t *testing.T) {
+	t.Parallel()
 	p := odetest.Decay()
 	for _, ic := range integrators {
 		in := ic.new()
@@ -109,6 +111,7 @@ func TestAdvanceToGrid(t *testing.T) {
 // solution: the interpolation error of a cubic Hermite polynomial is at most h⁴/384·max|y⁗|
 // (analytic bound, here with max|y⁗| ≤ 1).
 func TestInterpolate(t *testing.T) {
+	t.Parallel()
 	in := ode.NewRosenbrock(nil)
 	p := odetest.Decay()
 	if err := in.Init(p.Sys, 0, p.Y0[:], &ode.Settings{InitialStep: 0.2, MaxStep: 0.2, RelTol: 1e-3}); err != nil {
@@ -149,6 +152,7 @@ func (d *domain) Eval(_ float64, y, dydt []float64) error {
 // TestRecoverableFailure starts with a step so large that the stages leave the domain; the
 // integrator must retry smaller and still reach exp(−5) (analytic).
 func TestRecoverableFailure(t *testing.T) {
+	t.Parallel()
 	for _, ic := range integrators {
 		sys := &domain{}
 		in := ic.new()
@@ -207,6 +211,7 @@ func (alwaysFails) Eval(t float64, y, dydt []float64) error {
 // TestPersistentFailure checks that a right-hand side failing everywhere after t0 = 0 ends in
 // a step size underflow that names the last failure, rather than looping.
 func TestPersistentFailure(t *testing.T) {
+	t.Parallel()
 	for _, ic := range integrators {
 		in := ic.new()
 		if err := in.Init(alwaysFails{}, 0, []float64{0}, nil); err != nil {
@@ -225,6 +230,7 @@ func TestPersistentFailure(t *testing.T) {
 // TestTypedErrors checks that a fatal failure aborts at once, that a singular solution ends
 // in a step size underflow near t = 1 with the documented message, and that MaxSteps is obeyed.
 func TestTypedErrors(t *testing.T) {
+	t.Parallel()
 	for _, ic := range integrators {
 		in := ic.new()
 		if err := in.Init(fatal{}, 0, []float64{0}, nil); err != nil {
@@ -271,6 +277,7 @@ func TestTypedErrors(t *testing.T) {
 
 // TestSettingsValidation checks that bad settings are rejected with the field's name.
 func TestSettingsValidation(t *testing.T) {
+	t.Parallel()
 	sys := odetest.DecaySystem{}
 	for _, c := range []struct {
 		s     ode.Settings
@@ -306,6 +313,7 @@ func TestSettingsValidation(t *testing.T) {
 // TestNoAllocationPerStep checks the hot path: after Init, AdvanceTo allocates nothing (the
 // iteration matrix is factorised in place through LAPACK).
 func TestNoAllocationPerStep(t *testing.T) {
+	// Not parallel: testing.AllocsPerRun refuses to run in a parallel test.
 	for _, ic := range integrators {
 		for _, sys := range []ode.System{odetest.RobertsonSystem{}, hiddenJac{odetest.RobertsonSystem{}}} {
 			if !ic.stiff {
@@ -349,6 +357,7 @@ func fill(n int, v float64) []float64 {
 // |y₁/y₀| ≈ |R(−1e12)| ≪ 1 (analytic: R(−∞) = 0), where an A-stable but not L-stable
 // method would keep |y₁/y₀| near 1.
 func TestStiffLimit(t *testing.T) {
+	t.Parallel()
 	for _, tab := range []*ode.RosenbrockTableau{ode.RODAS4, ode.ROS34PW2} {
 		in := ode.NewRosenbrock(tab)
 		sys := odetest.ProtheroRobinsonSystem{Lambda: -1e12}

@@ -57,6 +57,7 @@ func ones(n int) []float64 {
 // the method's order p within 0.45, and that of the embedded error estimate, a local error,
 // q+1 (analytic: the global error of an order-p method is O(h^p)).
 func TestObservedOrder(t *testing.T) {
+	t.Parallel()
 	cases := []struct {
 		name string
 		m    func() fixedStepper
@@ -103,6 +104,7 @@ func logSlope(x, y []float64) float64 {
 // the least-squares slope of log(error) against log(RelTol) must lie in [0.7, 1.3] and every
 // error below 1000·RelTol (a global error over a whole orbit, not a local one).
 func TestToleranceProportionality(t *testing.T) {
+	t.Parallel()
 	p := odetest.Kepler(0.3)
 	for _, in := range []Integrator{NewRosenbrock(RODAS4), NewRosenbrock(ROS34PW2), NewDormandPrince()} {
 		var tols, errs []float64
@@ -133,6 +135,7 @@ func TestToleranceProportionality(t *testing.T) {
 // TestKeplerInvariants checks conservation of energy and angular momentum along the orbit
 // (analytic invariants) at RelTol 1e-9: drift below 1e-7 over one period, sampled at 200 times.
 func TestKeplerInvariants(t *testing.T) {
+	t.Parallel()
 	p := odetest.Kepler(0.5)
 	e0, l0 := odetest.KeplerInvariants(p.Y0)
 	for _, in := range []Integrator{NewRosenbrock(nil), NewDormandPrince()} {

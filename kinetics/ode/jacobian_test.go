@@ -13,6 +13,7 @@ import (
 // differences (gonum/diff/fd) at points along its solution; agreement to 1e-6 of the largest
 // entry (common practice, no source: central differences are accurate to about ε^(2/3)).
 func TestAnalyticJacobians(t *testing.T) {
+	t.Parallel()
 	for _, p := range odetest.Problems() {
 		js, ok := p.Sys.(odetest.JacobianSystem)
 		if !ok {
@@ -42,6 +43,7 @@ type hidden struct{ odetest.System }
 // one on Robertson and Van der Pol states spanning many orders of magnitude (common practice,
 // no source: forward differences are accurate to about √ε of the column scale).
 func TestDifferenceJacobian(t *testing.T) {
+	t.Parallel()
 	for _, p := range []odetest.Problem{odetest.Robertson(), odetest.VanDerPol(), odetest.Kepler(0.5)} {
 		js := p.Sys.(odetest.JacobianSystem)
 		n := len(p.Y0)

@@ -47,6 +47,7 @@ func solve(t *testing.T, in ode.Integrator, p odetest.Problem, rtol float64) []f
 // source) against the exact or reference solution
 // named by the problem (odetest documents each source).
 func TestProblems(t *testing.T) {
+	t.Parallel()
 	for _, ic := range integrators {
 		for _, p := range odetest.Problems() {
 			if p.Stiff && !ic.stiff {
@@ -75,6 +76,7 @@ func TestProblems(t *testing.T) {
 // (marked "from memory" in odetest, sources named there) against tight-tolerance runs of both
 // Rosenbrock tables: agreement to 1e-8 between two methods and the recalled digits.
 func TestReferenceConfirmation(t *testing.T) {
+	t.Parallel()
 	for _, p := range []odetest.Problem{odetest.Robertson(), odetest.VanDerPol()} {
 		for _, c := range []struct {
 			tab  *ode.RosenbrockTableau
@@ -93,6 +95,7 @@ func TestReferenceConfirmation(t *testing.T) {
 // TestOscillatorEnergy checks conservation of the oscillator's energy over ten periods
 // (analytic invariant): the drift must be of the order of the tolerance.
 func TestOscillatorEnergy(t *testing.T) {
+	t.Parallel()
 	p := odetest.Oscillator()
 	e0 := odetest.Energy(p.Y0)
 	for _, ic := range integrators {

@@ -75,6 +75,7 @@ var rosenbrockTables = []*RosenbrockTableau{RODAS4, ROS34PW2}
 // the order conditions of Hairer & Wanner Table IV.7.1 up to their stated orders, and that
 // the stage times and γ_i of the implementation form agree with the standard form.
 func TestRosenbrockOrderConditions(t *testing.T) {
+	t.Parallel()
 	for _, tb := range rosenbrockTables {
 		alpha, gam, b, bh := tb.Standard()
 		for name, c := range map[string]struct {
@@ -135,6 +136,7 @@ func stability(tb *RosenbrockTableau, w []float64, z complex128) complex128 {
 // TestLStability checks that both tables are A-stable (|R| ≤ 1 on the imaginary axis and in
 // the left half plane) and L-stable (R(z) → 0 as z → −∞), as their sources state.
 func TestLStability(t *testing.T) {
+	t.Parallel()
 	for _, tb := range rosenbrockTables {
 		_, _, b, _ := tb.Standard()
 		for _, x := range []float64{-1e6, -1e10, -1e14} {
@@ -156,6 +158,7 @@ func TestLStability(t *testing.T) {
 // TestStabilityMatchesExponential checks R(z) − e^z = O(z^(p+1)) near 0 (consistency of the
 // stability function with the order; analytic).
 func TestStabilityMatchesExponential(t *testing.T) {
+	t.Parallel()
 	for _, tb := range rosenbrockTables {
 		_, _, b, _ := tb.Standard()
 		d1 := cmplx.Abs(stability(tb, b, -0.02) - cmplx.Exp(-0.02))
@@ -231,6 +234,7 @@ func elementaryWeight(t rkTree, a [7][6]float64) [7]float64 {
 // for all rooted trees up to order 5 (fifth-order weights) and 4 (embedded weights), and the
 // row sums c_i = Σ_j a_ij (Hairer, Nørsett & Wanner, Solving ODEs I, Theorem II.2.13).
 func TestDormandPrinceOrderConditions(t *testing.T) {
+	t.Parallel()
 	for i := range dpC {
 		var s float64
 		for j := 0; j < i && j < 6; j++ {
@@ -266,6 +270,7 @@ func TestDormandPrinceOrderConditions(t *testing.T) {
 // TestOrderConditionsDetectErrors makes sure the two checkers above can fail: a coefficient
 // changed in its seventh digit must break some condition.
 func TestOrderConditionsDetectErrors(t *testing.T) {
+	t.Parallel()
 	bad := *RODAS4
 	bad.A = append([][]float64(nil), RODAS4.A...)
 	bad.A[2] = []float64{RODAS4.A[2][0], RODAS4.A[2][1] * (1 + 1e-6)}

@@ -13,6 +13,7 @@ import (
 // 3–10 GHz collision widths) and the line must be a P-branch line of the (0,0) band within the
 // band's first 0.1 nm from the head at 337.13 nm (Pearse & Gaydon 1976, from memory).
 func TestLaserOneAtmosphere(t *testing.T) {
+	t.Parallel()
 	lp, err := Laser(units.Atmosphere, 300)
 	if err != nil {
 		t.Fatal(err)
@@ -56,6 +57,7 @@ func TestLaserOneAtmosphere(t *testing.T) {
 // Pressure dependence: at low pressure the width tends to the Doppler width and σ rises; the
 // effective ratio does not depend on pressure (analytic properties of the model).
 func TestLaserPressure(t *testing.T) {
+	t.Parallel()
 	lo, err := Laser(10, 300)
 	if err != nil {
 		t.Fatal(err)
@@ -74,6 +76,7 @@ func TestLaserPressure(t *testing.T) {
 }
 
 func TestLaserErrors(t *testing.T) {
+	t.Parallel()
 	for _, c := range []struct {
 		p, T  float64
 		field string
@@ -113,6 +116,7 @@ func BenchmarkModel(b *testing.B) {
 // The fast search in Laser picks the same line as the fully sorted table (consistency of the two
 // code paths) over the accepted range of pressure and temperature.
 func TestLaserMatchesTable(t *testing.T) {
+	t.Parallel()
 	m := testModel(t)
 	for _, p := range []float64{1, 100, 1e4, units.Atmosphere, 1e6} {
 		for _, T := range []float64{77, 300, 600, 1500} {
@@ -137,6 +141,7 @@ func TestLaserMatchesTable(t *testing.T) {
 // resolved by the 2.1 GHz Doppler width, it equals the single line within 1 %; at 1 atm the
 // neighbours add (analytic consequence of the line spacing and the width).
 func TestGainPeak(t *testing.T) {
+	t.Parallel()
 	m := testModel(t)
 	for _, p := range []float64{100, 1e4, units.Atmosphere, 3e5} {
 		g, err := m.GainPeak(0, 0, p, 300)

@@ -17,6 +17,7 @@ func testConstants(t testing.TB) *Constants {
 // Morse levels on the grid against the analytic Morse result ωe(v+½) − ωexe(v+½)²
 // (P.M. Morse, Phys. Rev. 34, 57, 1929; analytic).
 func TestMorseLevels(t *testing.T) {
+	t.Parallel()
 	c := testConstants(t)
 	mu := c.ReducedMass()
 	for _, name := range []string{"X", "B", "C"} {
@@ -37,6 +38,7 @@ func TestMorseLevels(t *testing.T) {
 
 // Harmonic limit: levels ωe(v+½) exactly (analytic).
 func TestHarmonicLevels(t *testing.T) {
+	t.Parallel()
 	c := testConstants(t)
 	mu := c.ReducedMass()
 	s := c.States["X"]
@@ -56,6 +58,7 @@ func TestHarmonicLevels(t *testing.T) {
 // sinc-DVR levels at the default spacing (0.0077 Å) agree with a grid twice as fine to 1e−6 cm⁻¹
 // (analytic orders of the two discretisations).
 func TestGridConvergence(t *testing.T) {
+	t.Parallel()
 	c := testConstants(t)
 	mu := c.ReducedMass()
 	s := c.States["C"]
@@ -92,6 +95,7 @@ func TestGridConvergence(t *testing.T) {
 
 // Eigenvectors are orthonormal (analytic property of a symmetric eigen-decomposition).
 func TestOrthonormal(t *testing.T) {
+	t.Parallel()
 	c := testConstants(t)
 	mu := c.ReducedMass()
 	lv, err := SolveRadial(Morse(c.States["B"], mu), mu, DefaultGrid, SincDVR, 8)
@@ -113,6 +117,7 @@ func TestOrthonormal(t *testing.T) {
 }
 
 func TestSolveRadialErrors(t *testing.T) {
+	t.Parallel()
 	V := func(r float64) float64 { return r * r }
 	cases := []struct {
 		g  Grid

@@ -11,6 +11,7 @@ import (
 // for the Morse oscillator; analytic): compare with the Morse turning points
 // r± = re − ln(1 ∓ √(U/De))/a.
 func TestRKRWidthMorse(t *testing.T) {
+	t.Parallel()
 	c := testConstants(t)
 	mu := c.ReducedMass()
 	s := c.States["B"]
@@ -37,6 +38,7 @@ func TestRKRWidthMorse(t *testing.T) {
 // the WKB limit: its levels v = 1…4 fall 4–19 cm⁻¹ below G(v); we bound that at 25 cm⁻¹
 // (a regression bound of this code, no outside source).
 func TestRKRLevels(t *testing.T) {
+	t.Parallel()
 	c := testConstants(t)
 	mu := c.ReducedMass()
 	for _, tc := range []struct {
@@ -67,6 +69,7 @@ func TestRKRLevels(t *testing.T) {
 }
 
 func TestRKRErrors(t *testing.T) {
+	t.Parallel()
 	c := testConstants(t)
 	// the C-state Dunham series turns over near v ≈ 9
 	if _, err := RKR(c.States["C"], c.ReducedMass(), 12); err == nil {
@@ -77,6 +80,7 @@ func TestRKRErrors(t *testing.T) {
 // Quadrature convergence of the RKR integrals: the turning points with 64 Gauss–Legendre nodes
 // agree with 256 nodes to 1e−7 Å (numerical convergence).
 func TestRKRQuadratureConvergence(t *testing.T) {
+	t.Parallel()
 	c := testConstants(t)
 	mu := c.ReducedMass()
 	s := c.States["C"]
@@ -102,6 +106,7 @@ func TestRKRQuadratureConvergence(t *testing.T) {
 // Grid convergence of the Franck–Condon factors: the default grid and one 1.25 times finer agree
 // to 1e−6 (numerical convergence of the sinc-DVR wave functions).
 func TestFranckCondonGridConvergence(t *testing.T) {
+	t.Parallel()
 	c := testConstants(t)
 	mu := c.ReducedMass()
 	fine := Grid{DefaultGrid.RMin, DefaultGrid.RMax, 5*(DefaultGrid.N-1)/4 + 1}

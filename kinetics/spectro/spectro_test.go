@@ -20,6 +20,7 @@ func testModel(t testing.TB) *Model {
 }
 
 func TestParseConstantsErrors(t *testing.T) {
+	t.Parallel()
 	good := string(testDataText(t))
 	cases := map[string]string{
 		"unknown key": strings.Replace(good, "[molecule]", "[molecule]\nbogus = 1", 1),
@@ -38,6 +39,7 @@ func TestParseConstantsErrors(t *testing.T) {
 // Band heads in standard air: Pearse & Gaydon, The Identification of Molecular Spectra (4th ed.,
 // 1976), as listed in physics-data.md §1d (marked there "from memory"); tolerances from the brief.
 func TestBandHeads(t *testing.T) {
+	t.Parallel()
 	m := testModel(t)
 	cases := []struct {
 		vu, vl    int
@@ -65,6 +67,7 @@ func TestBandHeads(t *testing.T) {
 // ν₀₀ of C–B from the Laher–Gilmore constants: 29671.08 cm⁻¹ (physics-data.md §1d, derived
 // there from the same constants; a Fortran fit file gives 29671.03, seen there).
 func TestBandOrigin00(t *testing.T) {
+	t.Parallel()
 	c := testConstants(t)
 	nu := BandOrigin(c.States["C"], 0, c.States["B"], 0)
 	if math.Abs(nu-29671.08) > 0.1 {
@@ -78,6 +81,7 @@ func TestBandOrigin00(t *testing.T) {
 // J. Phys. Chem. Ref. Data 21, 1005, 1992, from memory per physics-data.md §2a). Tolerance 0.02
 // (brief) for both curves; the RKR curves (default) are held to 0.005.
 func TestFranckCondon(t *testing.T) {
+	t.Parallel()
 	c := testConstants(t)
 	morse, err := NewModel(c, DefaultGrid, MorseCurve)
 	if err != nil {
@@ -113,6 +117,7 @@ func TestFranckCondon(t *testing.T) {
 // Completeness: Σ_v″ q(v′,v″) = 1 when the v″ levels span the space the v′ function lives in
 // (analytic property of an orthonormal basis); 30 levels of B hold C(0) and C(1) to 1e−6.
 func TestFranckCondonSum(t *testing.T) {
+	t.Parallel()
 	m := testModel(t)
 	for _, pair := range [][2]string{{"C", "B"}, {"C", "X"}, {"X", "C"}, {"X", "B"}} {
 		sum := 0.0
@@ -134,6 +139,7 @@ func TestFranckCondonSum(t *testing.T) {
 // et al. 2000 recommended), physics-data.md §2c (values from memory there except 40.8 ns, seen
 // secondary): spread 36–42 ns, allowed ±10 %.
 func TestLifetimeC0(t *testing.T) {
+	t.Parallel()
 	m := testModel(t)
 	tau, err := m.Lifetime(0)
 	if err != nil {
@@ -160,6 +166,7 @@ func TestLifetimeC0(t *testing.T) {
 
 // Hönl–London sum rule Σ_J″ S(J′,J″) = 2J′+1 for ΔΛ = 0, Λ = 1 (analytic; Herzberg 1950).
 func TestHonlLondonSum(t *testing.T) {
+	t.Parallel()
 	for ju := 1; ju <= 40; ju++ {
 		sum := HonlLondon(R, ju-1, 1) + HonlLondon(Q, ju, 1) + HonlLondon(P, ju+1, 1)
 		if math.Abs(sum-float64(2*ju+1)) > 1e-12 {
@@ -171,6 +178,7 @@ func TestHonlLondonSum(t *testing.T) {
 // Vacuum ↔ air: Ciddor (1996) and Birch & Downs (1994) agree to 2e−8 in n above 300 nm, and
 // n − 1 = 2.8726e−4 at 337.13 nm (physics-data.md §7, derived there from both formulas).
 func TestAirIndex(t *testing.T) {
+	t.Parallel()
 	for _, l := range []float64{300e-9, 337.227e-9, 400e-9, 600e-9} {
 		c, b := AirIndexCiddor(l), AirIndexBirchDowns(l)
 		if math.Abs(c-b) > 2e-8 {
@@ -199,6 +207,7 @@ func TestAirIndex(t *testing.T) {
 // Doppler FWHM of the 337 nm line at 300 K: 2.084 GHz (physics-data.md §6, derived there from the
 // textbook formula with M = 28.0134 u).
 func TestDopplerFWHM(t *testing.T) {
+	t.Parallel()
 	nu := units.SpeedOfLight / 337.03e-9
 	if d := DopplerFWHM(nu, 300, units.NitrogenMass); math.Abs(d-2.084e9) > 0.001e9 {
 		t.Errorf("Doppler FWHM %.4g Hz, want 2.084e9", d)
@@ -210,6 +219,7 @@ func TestDopplerFWHM(t *testing.T) {
 // F(x) = Σ (−1)ⁿ 2ⁿ x^(2n+1)/(2n+1)!!, Abramowitz & Stegun 7.1.29 form); and w(1+i) =
 // 0.30474420525691259 + 0.20821893820283162i (from memory; agrees with the quadrature test).
 func TestFaddeevaIdentities(t *testing.T) {
+	t.Parallel()
 	for _, y := range []float64{0.01, 0.1, 0.5, 1, 2, 5, 10} {
 		want := math.Exp(y*y) * math.Erfc(y)
 		got := Faddeeva(complex(0, y))
@@ -247,6 +257,7 @@ func dawsonSeries(x float64) float64 {
 // (gonum integrate/quad) within 1e−4 relative, and its area against 1 within 1e−6 (analytic
 // normalisation).
 func TestVoigt(t *testing.T) {
+	t.Parallel()
 	for _, c := range []struct{ fG, fL float64 }{{2.1e9, 0.3e9}, {2.1e9, 3e9}, {2.1e9, 30e9}} {
 		s := c.fG / (2 * math.Sqrt(2*math.Ln2))
 		g := c.fL / 2
@@ -278,6 +289,7 @@ func TestVoigt(t *testing.T) {
 // Voigt FWHM against the approximation of J.J. Olivero & R.L. Longbothum, JQSRT 17, 233 (1977),
 // f_V ≈ 0.5346 f_L + √(0.2166 f_L² + f_G²), stated accurate to 0.02 %.
 func TestVoigtFWHM(t *testing.T) {
+	t.Parallel()
 	for _, fL := range []float64{0, 0.1e9, 1e9, 3e9, 10e9, 100e9} {
 		fG := 2.1e9
 		want := 0.5346*fL + math.Sqrt(0.2166*fL*fL+fG*fG)
@@ -290,6 +302,7 @@ func TestVoigtFWHM(t *testing.T) {
 // Rotational shares sum to 1 (conservation) and peak near J = √(kT/2hcB) − ½ (analytic
 // high-temperature limit).
 func TestRotationalShares(t *testing.T) {
+	t.Parallel()
 	c := testConstants(t)
 	s := c.States["C"]
 	sh := RotationalShares(s, 0, 300, 150)

@@ -27,9 +27,8 @@ type journalEntry struct {
 }
 
 type journalLine struct {
-	Point int      `json:"point"`
-	Row   []string `json:"row"`
-	CRC   string   `json:"crc"`
+	journalEntry
+	CRC string `json:"crc"`
 }
 
 // checksum returns the CRC-32 of the JSON of e, in eight hex digits.
@@ -105,8 +104,7 @@ func parseJournal(b []byte, path string, m *Manifest) (map[int][]string, int64, 
 		if jl.CRC == "" {
 			return nil, 0, fmt.Errorf("study: %s:%d: no checksum: the journal was written by an older n2pulse; run the sweep afresh in a new directory", path, line)
 		}
-		e := journalEntry{Point: jl.Point, Row: jl.Row}
-		if sum, err := e.checksum(); err != nil || sum != jl.CRC {
+		if sum, err := jl.checksum(); err != nil || sum != jl.CRC {
 			return nil, 0, fmt.Errorf("study: %s:%d: checksum %s does not match the line (%s): it was changed after it was written; remove the line to recompute the point", path, line, jl.CRC, sum)
 		}
 		switch {
@@ -134,7 +132,7 @@ func (j *journal) append(i int, row []string) error {
 	if err != nil {
 		return fmt.Errorf("study: %w", err)
 	}
-	b, err := json.Marshal(journalLine{Point: i, Row: row, CRC: sum})
+	b, err := json.Marshal(journalLine{e, sum})
 	if err != nil {
 		return fmt.Errorf("study: %w", err)
 	}

@@ -444,7 +444,7 @@ func signedLine(t *testing.T, point int, row []string) string {
 	if err != nil {
 		t.Fatal(err)
 	}
-	b, err := json.Marshal(journalLine{Point: point, Row: row, CRC: sum})
+	b, err := json.Marshal(journalLine{e, sum})
 	if err != nil {
 		t.Fatal(err)
 	}
