@@ -5,6 +5,7 @@ import (
 	"io"
 	"n2pulse/internal/atomicfile"
 	"os"
+	"strings"
 
 	"n2pulse/data"
 	"n2pulse/kinetics/design"
@@ -13,15 +14,20 @@ import (
 func init() {
 	register(command{
 		name:    "init",
-		summary: "write a commented example design file (a bench-top atmospheric laser, or --built: one described as built)",
+		summary: "write a commented example design file: --example blumlein (default), board, tube or tea-transfer",
 		run:     runInit,
 	})
 }
 
 func runInit(args []string, stdout, stderr io.Writer) error {
-	fs := newFlags("init", "[FILE] [--built] [--all] [--force]", stderr)
+	fs := newFlags("init", "[FILE] [--example NAME] [--all] [--force]", stderr)
 	all := fs.Bool("all", false, "print every design key with its default value (SI), instead of the example")
-	built := fs.Bool("built", false, "write the example described as built (plates, dielectric, rails) instead")
+	var names []string
+	for _, e := range data.Examples() {
+		names = append(names, "  "+e.Name+": "+e.Summary)
+	}
+	example := fs.String("example", "blumlein", "which example design to write (invented scenarios):\n"+strings.Join(names, "\n"))
+	built := fs.Bool("built", false, "the same as --example board")
 	force := fs.Bool("force", false, "overwrite FILE if it exists")
 	if help, err := parseFlags(fs, args); help || err != nil {
 		return err
@@ -29,9 +35,12 @@ func runInit(args []string, stdout, stderr io.Writer) error {
 	if fs.NArg() > 1 {
 		return usagef("init: takes at most one file name")
 	}
-	text := data.ExampleDesign()
 	if *built {
-		text = data.BoardDesign()
+		*example = "board"
+	}
+	text, err := data.ExampleText(*example)
+	if err != nil {
+		return usagef("init: --example: %v", err)
 	}
 	if *all {
 		text = []byte("# n2pulse design: every key with its default, in SI units with the unit written out.\n" +

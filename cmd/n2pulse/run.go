@@ -6,9 +6,11 @@ import (
 	"encoding/json"
 	"fmt"
 	"io"
+	"math"
 	"n2pulse/internal/atomicfile"
 	"os"
 	"path/filepath"
+	"strconv"
 	"strings"
 
 	"n2pulse/kinetics"
@@ -82,7 +84,7 @@ func designText(arg string) ([]byte, string, error) {
 func runRun(args []string, stdout, stderr io.Writer) error {
 	fs := newFlags("run", "[DESIGN] [--out DIR] [--json] [--set key=value …]", stderr)
 	out := fs.String("out", "", "write waveforms.csv, summary.json, the figures and report.html (one self-contained page to send) to this directory")
-	asJSON := fs.Bool("json", false, "print the summary as JSON on stdout")
+	asJSON := fs.Bool("json", false, "print the summary (verdict, advice, warnings, energy account) and the design as JSON on stdout")
 	sets := fs.StringArray("set", nil, "override a design key, e.g. --set gas.pressure=\"40 Torr\" (repeatable)")
 	stats := fs.Bool("stats", false, "print solver statistics")
 	sensitivity := fs.Bool("sensitivity", false, "rank the design keys by d ln E / d ln x (re-runs the design twice per key)")
@@ -98,7 +100,7 @@ func runRun(args []string, stdout, stderr io.Writer) error {
 		return err
 	}
 	if *asJSON {
-		b, err := json.MarshalIndent(res.Summary, "", "  ")
+		b, err := runJSON(d, res)
 		if err != nil {
 			return err
 		}
@@ -270,7 +272,7 @@ func writeRunOutputs(dir string, d *design.Design, r *kinetics.Result) error {
 	if err := atomicfile.WriteFile(filepath.Join(dir, "waveforms.csv"), csv.Bytes()); err != nil {
 		return err
 	}
-	js, err := json.MarshalIndent(r.Summary, "", "  ")
+	js, err := runJSON(d, r)
 	if err != nil {
 		return err
 	}
@@ -281,4 +283,37 @@ func writeRunOutputs(dir string, d *design.Design, r *kinetics.Result) error {
 		return err
 	}
 	return writeRunReport(dir, d, r)
+}
+
+// runOutput is what `run --json` prints and summary.json holds: every field of the summary
+// (figures of merit, verdict, advice, warnings, energy account) and the design that was run,
+// each key with its value in SI (strings for choices, "infinite" for an infinite value).
+type runOutput struct {
+	kinetics.Summary
+	Design map[string]any `json:"design"`
+}
+
+// runJSON writes the run's summary and design as indented JSON.
+func runJSON(d *design.Design, r *kinetics.Result) ([]byte, error) {
+	out := runOutput{Summary: r.Summary, Design: map[string]any{}}
+	for _, line := range strings.Split(d.String(), "\n") {
+		k, v, ok := strings.Cut(line, " = ")
+		if !ok {
+			continue
+		}
+		if strings.HasPrefix(v, `"`) {
+			out.Design[k] = strings.Trim(v, `"`)
+		} else if x, err := strconv.ParseFloat(v, 64); err == nil && !math.IsInf(x, 0) && !math.IsNaN(x) {
+			out.Design[k] = x
+		} else if math.IsInf(x, 1) {
+			out.Design[k] = "infinite"
+		} else {
+			out.Design[k] = v
+		}
+	}
+	b, err := json.MarshalIndent(out, "", "  ")
+	if err != nil {
+		return nil, fmt.Errorf("run: %w", err)
+	}
+	return b, nil
 }
