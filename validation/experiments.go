@@ -416,29 +416,43 @@ func readNote(how string, unc float64) string {
 // direction of the change between them. It returns the model's optimum (SI) or NaN.
 func variationChecks(p *scanPlan) ([]Check, Variation, float64) {
 	c, v := p.c, p.v
-	id := c.Name + "/" + v.ID
 	src := c.Measured.Source + "; " + v.Where
-	out := Variation{ID: id, Title: v.Title, Key: v.Key, Source: src}
+	out := Variation{ID: c.Name + "/" + v.ID, Title: v.Title, Key: v.Key, Source: src}
+	xs, runErr, err := variationCurves(p, &out)
+	if err != nil {
+		return []Check{{ID: "exp." + c.Name + "." + v.ID, Quantity: v.Title, Kind: Experiment,
+			Mode: True, Source: src, Err: err}}, out, math.NaN()
+	}
+	var checks []Check
+	opt := math.NaN()
+	if v.Optimum != "" {
+		var chk Check
+		chk, opt = optimumCheck(p, src, xs, runErr)
+		checks = append(checks, chk)
+	}
+	return append(checks, trendChecks(p, &out, src, runErr)...), out, opt
+}
+
+// variationCurves fills the axis labels, the model curve and the measured points of out, in
+// the display units of the variation, and returns the x scale (SI per display unit) and the
+// error of the last failed run; an error means the variation cannot be compared at all.
+func variationCurves(p *scanPlan, out *Variation) (xs float64, runErr, err error) {
+	c, v := p.c, p.v
 	xdim := dimensionOfKey(v.Key)
 	ydim := quantityDimension(v.Quantity)
 	xs, errx := displayScale(v.XUnit, xdim)
 	ys, erry := displayScale(v.YUnit, ydim)
 	out.XLabel = axisLabel(v.Key, v.XUnit)
 	out.YLabel = axisLabel(v.Quantity, v.YUnit)
-	fail := func(err error) ([]Check, Variation, float64) {
-		return []Check{{ID: "exp." + c.Name + "." + v.ID, Quantity: v.Title, Kind: Experiment,
-			Mode: True, Source: src, Err: err}}, out, math.NaN()
-	}
 	if err := errors.Join(p.setErr, errx, erry); err != nil {
-		return fail(err)
+		return xs, nil, err
 	}
-	var runErr error
 	for i, j := range p.jobs {
 		y := math.NaN()
 		if j.err != nil {
 			runErr = j.err
 		} else if q, err := quantity(j.sum, v.Quantity); err != nil {
-			return fail(err)
+			return xs, runErr, err
 		} else {
 			y = q
 		}
@@ -449,65 +463,77 @@ func variationChecks(p *scanPlan) ([]Check, Variation, float64) {
 		x, err1 := units.Parse(pt.X, xdim)
 		y, err2 := units.Parse(pt.Y, ydim)
 		if err := errors.Join(err1, err2); err != nil {
-			return fail(fmt.Errorf("validation: experiments: %s: point: %w", id, err))
+			return xs, runErr, fmt.Errorf("validation: experiments: %s: point: %w", c.Name+"/"+v.ID, err)
 		}
 		out.MeasuredX = append(out.MeasuredX, x/xs)
 		out.MeasuredY = append(out.MeasuredY, y/ys)
 		out.Notes = append(out.Notes, readNote(pt.How, pt.Uncertainty)+"; "+pt.Note)
 	}
+	return xs, runErr, nil
+}
 
-	var checks []Check
+// optimumCheck compares the position of the model's optimum with the measured one, and
+// returns it [SI] (NaN when a run failed).
+func optimumCheck(p *scanPlan, src string, xs float64, runErr error) (Check, float64) {
+	c, v := p.c, p.v
 	opt := math.NaN()
-	if v.Optimum != "" {
-		ref, err := units.Parse(v.Optimum, xdim)
-		chk := Check{
-			ID:       "exp." + c.Name + "." + v.ID + ".optimum",
-			Quantity: fmt.Sprintf("position of the optimum of %s", v.Title),
-			Unit:     v.XUnit, Reference: ref / xs, Mode: Relative, Tolerance: v.OptimumTolerance,
-			Kind: Experiment, Source: src,
-		}
-		if err != nil {
-			chk.Err = err
-		} else if runErr != nil {
-			chk.Err, chk.Computed = runErr, math.NaN()
-		} else {
-			opt = optimum(p.xs, yValues(p))
-			chk.Computed = opt / xs
-		}
-		checks = append(checks, chk)
+	ref, err := units.Parse(v.Optimum, dimensionOfKey(v.Key))
+	chk := Check{
+		ID:       "exp." + c.Name + "." + v.ID + ".optimum",
+		Quantity: fmt.Sprintf("position of the optimum of %s", v.Title),
+		Unit:     v.XUnit, Reference: ref / xs, Mode: Relative, Tolerance: v.OptimumTolerance,
+		Kind: Experiment, Source: src,
 	}
-	if len(out.MeasuredX) >= 2 {
-		first, last := 0, len(out.MeasuredX)-1
-		mFirst := interpolate(out.ModelX, out.ModelY, out.MeasuredX[first])
-		mLast := interpolate(out.ModelX, out.ModelY, out.MeasuredX[last])
-		dirMeasured := math.Copysign(1, out.MeasuredY[last]-out.MeasuredY[first])
-		dir := Check{
-			ID:       "exp." + c.Name + "." + v.ID + ".direction",
-			Quantity: fmt.Sprintf("direction of the change, %s, from %s = %g to %g", v.Title, v.Key, out.MeasuredX[first], out.MeasuredX[last]),
-			Mode:     True, Reference: dirMeasured, Kind: Experiment, Source: src,
+	if err != nil {
+		chk.Err = err
+	} else if runErr != nil {
+		chk.Err, chk.Computed = runErr, math.NaN()
+	} else {
+		opt = optimum(p.xs, yValues(p))
+		chk.Computed = opt / xs
+	}
+	return chk, opt
+}
+
+// trendChecks compare the direction of the change between the first and the last measured
+// point with the model's, and, when the case gives one, the ratio of the two against its
+// measured range.
+func trendChecks(p *scanPlan, out *Variation, src string, runErr error) []Check {
+	c, v := p.c, p.v
+	if len(out.MeasuredX) < 2 {
+		return nil
+	}
+	var checks []Check
+	first, last := 0, len(out.MeasuredX)-1
+	mFirst := interpolate(out.ModelX, out.ModelY, out.MeasuredX[first])
+	mLast := interpolate(out.ModelX, out.ModelY, out.MeasuredX[last])
+	dirMeasured := math.Copysign(1, out.MeasuredY[last]-out.MeasuredY[first])
+	dir := Check{
+		ID:       "exp." + c.Name + "." + v.ID + ".direction",
+		Quantity: fmt.Sprintf("direction of the change, %s, from %s = %g to %g", v.Title, v.Key, out.MeasuredX[first], out.MeasuredX[last]),
+		Mode:     True, Reference: dirMeasured, Kind: Experiment, Source: src,
+	}
+	if runErr != nil {
+		dir.Err = runErr
+	} else if (mLast-mFirst)*dirMeasured > 0 {
+		dir.Computed = 1
+	}
+	checks = append(checks, dir)
+	if v.RatioHigh > 0 {
+		r := Check{
+			ID:       "exp." + c.Name + "." + v.ID + ".ratio",
+			Quantity: fmt.Sprintf("ratio y(%g)/y(%g), %s", out.MeasuredX[last], out.MeasuredX[first], v.Title),
+			Mode:     Range, Low: v.RatioLow, High: v.RatioHigh,
+			Reference: (v.RatioLow + v.RatioHigh) / 2, Kind: Experiment, Source: src,
 		}
 		if runErr != nil {
-			dir.Err = runErr
-		} else if (mLast-mFirst)*dirMeasured > 0 {
-			dir.Computed = 1
+			r.Err, r.Computed = runErr, math.NaN()
+		} else {
+			r.Computed = mLast / mFirst
 		}
-		checks = append(checks, dir)
-		if v.RatioHigh > 0 {
-			r := Check{
-				ID:       "exp." + c.Name + "." + v.ID + ".ratio",
-				Quantity: fmt.Sprintf("ratio y(%g)/y(%g), %s", out.MeasuredX[last], out.MeasuredX[first], v.Title),
-				Mode:     Range, Low: v.RatioLow, High: v.RatioHigh,
-				Reference: (v.RatioLow + v.RatioHigh) / 2, Kind: Experiment, Source: src,
-			}
-			if runErr != nil {
-				r.Err, r.Computed = runErr, math.NaN()
-			} else {
-				r.Computed = mLast / mFirst
-			}
-			checks = append(checks, r)
-		}
+		checks = append(checks, r)
 	}
-	return checks, out, opt
+	return checks
 }
 
 func yValues(p *scanPlan) []float64 {

@@ -85,6 +85,10 @@ func run(args []string, stdout, stderr io.Writer) int {
 		}
 		return 0
 	}
+	if args[0] == "--version" || args[0] == "-version" {
+		fmt.Fprintln(stdout, versionText())
+		return 0
+	}
 	c, ok := commands[args[0]]
 	if !ok {
 		fmt.Fprintf(stderr, "n2pulse: unknown command %q; run `n2pulse help`\n", args[0])

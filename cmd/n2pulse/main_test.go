@@ -2,6 +2,7 @@ package main
 
 import (
 	"bytes"
+	"runtime"
 	"strings"
 	"testing"
 )
@@ -25,5 +26,22 @@ func TestExitCodes(t *testing.T) {
 	out.Reset()
 	if code := run([]string{"help"}, &out, &errb); code != 0 || !strings.Contains(out.String(), "check") {
 		t.Errorf("help: exit %d, output %q", code, out.String())
+	}
+}
+
+// TestVersion checks that --version and the version command print the same one line naming
+// the program and the Go release it was built with.
+func TestVersion(t *testing.T) {
+	t.Parallel()
+	var a, b, errb bytes.Buffer
+	if code := run([]string{"--version"}, &a, &errb); code != 0 {
+		t.Fatalf("--version: exit %d: %s", code, errb.String())
+	}
+	if code := run([]string{"version"}, &b, &errb); code != 0 {
+		t.Fatalf("version: exit %d: %s", code, errb.String())
+	}
+	if a.String() != b.String() || !strings.HasPrefix(a.String(), "n2pulse ") || !strings.Contains(a.String(), runtime.Version()) ||
+		strings.Count(a.String(), "\n") != 1 {
+		t.Errorf("--version %q, version %q: want one equal line naming n2pulse and %s", a.String(), b.String(), runtime.Version())
 	}
 }
