@@ -8,6 +8,7 @@ import (
 	"testing"
 
 	"n2pulse/data"
+	"n2pulse/internal/usermsg"
 )
 
 // TestExitCodeRule checks the one rule of every command (README, "Exit codes"): 2 for a
@@ -82,7 +83,7 @@ func TestExitCodeRule(t *testing.T) {
 		if code != c.code || !strings.Contains(msg, c.want) {
 			t.Errorf("n2pulse %q: exit %d, stderr %q; want exit %d and %q", c.args, code, msg, c.code, c.want)
 		}
-		for _, p := range internalPrefixes {
+		for _, p := range usermsg.Prefixes {
 			if strings.Contains(msg, " "+p) || strings.HasPrefix(msg, p) {
 				t.Errorf("n2pulse %q: stderr carries the internal prefix %q: %q", c.args, p, msg)
 			}

@@ -10,9 +10,10 @@ import (
 	"io"
 	"os"
 	"sort"
-	"strings"
 
 	"github.com/spf13/pflag"
+
+	"n2pulse/internal/usermsg"
 )
 
 // command is one subcommand. run returns a usageError for bad flags or arguments (exit 2) and
@@ -118,25 +119,8 @@ func exitCode(err error, stderr io.Writer) int {
 	return 1
 }
 
-// internalPrefixes are the package names the library puts before its errors; a user reading
-// the message needs the key, the file and the reason, not the package.
-var internalPrefixes = []string{"study: ", "units: ", "design: ", "kinetics: ", "swarm: ", "spectro: ", "validation: ", "plots: ", "ode: "}
-
-// userMessage is the error's text without the library's package prefixes, wherever they
-// stand in a chain of wrapped messages ("study: point 3: design: gas.pressure …" becomes
-// "point 3: gas.pressure …").
-func userMessage(err error) string {
-	msg := err.Error()
-	for changed := true; changed; {
-		changed = false
-		for _, p := range internalPrefixes {
-			if m := strings.ReplaceAll(strings.TrimPrefix(msg, p), ": "+p, ": "); m != msg {
-				msg, changed = m, true
-			}
-		}
-	}
-	return msg
-}
+// userMessage is the error's text without the library's package prefixes (usermsg.Strip).
+func userMessage(err error) string { return usermsg.Strip(err.Error()) }
 
 func printHelp(w io.Writer) {
 	fmt.Fprintln(w, "n2pulse — physical model of the pulsed nitrogen laser (337 nm)")

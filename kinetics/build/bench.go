@@ -221,6 +221,19 @@ func (b *Bench) stresses(s Spec, c Conditions) error {
 	b.CurrentRise = math.Pi / 2 * math.Sqrt(b.ChannelInductance*c2)
 	b.UpperLifetime = c.UpperLifetime
 
+	b.rateDielectric(s)
+	if err := b.rateChannel(s, c); err != nil {
+		return err
+	}
+	if err := b.rateSwitchGap(s, c); err != nil {
+		return err
+	}
+	b.rateTiming()
+	return nil
+}
+
+// rateDielectric rates the field in the dielectric against its strength.
+func (b *Bench) rateDielectric(s Spec) {
 	if b.Dielectric != nil {
 		b.DielectricField = b.DielectricVoltage / s.DielectricThickness
 		b.DielectricMargin = b.Dielectric.Strength / b.DielectricField
@@ -235,6 +248,12 @@ func (b *Bench) stresses(s Spec, c Conditions) error {
 		}
 	}
 
+}
+
+// rateChannel rates the channel gap: its Paschen breakdown against the peak voltage, the
+// voltage it sees while the capacitors charge, and the shunt it needs.
+func (b *Bench) rateChannel(s Spec, c Conditions) error {
+	v0, c2 := c.ChargeVoltage, b.ChannelCapacitance
 	gas, err := Gas("nitrogen")
 	if err != nil {
 		return err
@@ -280,6 +299,12 @@ func (b *Bench) stresses(s Spec, c Conditions) error {
 		}
 	}
 
+	return nil
+}
+
+// rateSwitchGap rates the spark gap: its static breakdown against the charge voltage.
+func (b *Bench) rateSwitchGap(s Spec, c Conditions) error {
+	v0 := c.ChargeVoltage
 	b.SwitchGap = s.SwitchGap
 	if b.SwitchGap == 0 {
 		b.SwitchGap = c.SwitchGap
@@ -302,6 +327,12 @@ func (b *Bench) stresses(s Spec, c Conditions) error {
 		}
 	}
 
+	return nil
+}
+
+// rateTiming rates the rise of the channel voltage and current against the effective
+// lifetime of C(0), and the switch loop against the transit time of its plates.
+func (b *Bench) rateTiming() {
 	if b.UpperLifetime > 0 && b.VoltageRise > b.UpperLifetime {
 		b.warnf("switch slower than the upper level: the channel voltage peaks %s after closure, %.2g × the effective C(0) lifetime %s",
 			units.Format(b.VoltageRise, "s"), b.VoltageRise/b.UpperLifetime, units.Format(b.UpperLifetime, "s"))
@@ -314,7 +345,6 @@ func (b *Bench) stresses(s Spec, c Conditions) error {
 		b.warnf("the switch loop rings in %s, under 4 transit times of its plates (%s each way): they act as a transmission line and the lumped values are rough",
 			units.Format(b.VoltageRise, "s"), units.Format(b.SwitchLine.TransitTime, "s"))
 	}
-	return nil
 }
 
 func (b *Bench) warnf(format string, a ...any) {

@@ -1,6 +1,7 @@
 package study
 
 import (
+	"context"
 	"strings"
 	"testing"
 
@@ -106,5 +107,25 @@ func TestAxisEveryKeyAtItsEnds(t *testing.T) {
 	}
 	if n < 60 {
 		t.Errorf("only %d axes tried, want every numeric key with a positive minimum (≥ 60)", n)
+	}
+}
+
+// TestFailedStatusWithoutPrefixes: the status of a point refused by the design rules reads as a
+// message for the user, without the library's package prefixes ("study: ", "design: ").
+func TestFailedStatusWithoutPrefixes(t *testing.T) {
+	t.Parallel()
+	base := design.ExampleDesign()
+	a, err := ParseAxis("gas.oxygen=0:1:2", base)
+	if err != nil {
+		t.Fatal(err)
+	}
+	s := &Sweep{Design: base, Axes: []Axis{a}, Runner: fakeRunner, Workers: 1, Dir: t.TempDir()}
+	tab, err := s.Run(context.Background())
+	if err != nil {
+		t.Fatal(err)
+	}
+	st := tab.Rows[1][len(tab.Columns)-1]
+	if want := "failed: point 1: gas.oxygen + gas.helium"; !strings.HasPrefix(st, want) {
+		t.Errorf("status %q, want it to start with %q", st, want)
 	}
 }

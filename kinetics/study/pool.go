@@ -7,6 +7,7 @@ import (
 	"strings"
 
 	"n2pulse/internal/pool"
+	"n2pulse/internal/usermsg"
 	"n2pulse/kinetics"
 	"n2pulse/kinetics/design"
 )
@@ -65,5 +66,5 @@ func statusOf(s kinetics.Summary, err error) string {
 		return StatusOK
 	}
 	msg := strings.Join(strings.Fields(err.Error()), " ")
-	return "failed: " + msg
+	return "failed: " + usermsg.Strip(msg)
 }
