@@ -23,7 +23,7 @@
 //
 // # Package map
 //
-// Each package imports only those to its right (internal/pool and internal/atomicfile serve all):
+// Each package imports only those to its right (internal/pool, internal/atomicfile and internal/usermsg serve all):
 //
 //	cmd/n2pulse  → validation, plots, kinetics/study   commands, flags, printing, report figures
 //	validation   → kinetics/study, kinetics            checks against published values and measured lasers

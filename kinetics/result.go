@@ -5,15 +5,24 @@ import "n2pulse/kinetics/ode"
 // Summary holds the figures of merit of one shot, in SI. The JSON names are part of the
 // program's interface (`run --json`, sweep tables): scripts rely on them.
 type Summary struct {
-	EnergyFront  float64 `json:"energy_front_J"`   // pulse energy leaving the output end z = L [J]
-	EnergyRear   float64 `json:"energy_rear_J"`    // pulse energy leaving the rear end z = 0 [J]
-	EnergyTotal  float64 `json:"energy_total_J"`   // both ends [J]
-	PeakPower    float64 `json:"peak_power_W"`     // peak power at the output end [W]
-	FWHM         float64 `json:"fwhm_s"`           // width of the output-end pulse: 2·sqrt(2 ln 2) × its rms duration, the FWHM of a Gaussian of the same rms width [s]
-	HalfMaxWidth float64 `json:"half_max_width_s"` // time between the first and last half-maximum crossings of the output-end pulse [s]
-	PulseCentre  float64 `json:"pulse_centre_s"`   // power-weighted mean time of the output-end pulse [s]
-	Rise         float64 `json:"rise_s"`           // 10–90 % rise time of the output-end pulse [s]
-	Delay        float64 `json:"delay_s"`          // switch closure to the half-maximum of the rising edge [s]
+	EnergyFront float64 `json:"energy_front_J"` // pulse energy leaving the output end z = L [J]
+	EnergyRear  float64 `json:"energy_rear_J"`  // pulse energy leaving the rear end z = 0 [J]
+	EnergyTotal float64 `json:"energy_total_J"` // both ends [J]
+	PeakPower   float64 `json:"peak_power_W"`   // peak power at the output end [W]
+	// FWHM is the full width at half maximum of the output-end power as a photodiode and
+	// oscilloscope show it: from where the trace first rises through half its highest value to
+	// where it last falls through it, so a train of spikes counts as one pulse of the width of
+	// its envelope. The trace is first passed through the detector's response when
+	// RunSettings.DetectorResponse is set (DetectorResponse below) [s].
+	FWHM float64 `json:"fwhm_s"`
+	// DetectorResponse is the time constant of the detector assumed for FWHM; 0 for an ideal
+	// detector [s].
+	DetectorResponse float64 `json:"detector_response_s"`
+	HalfMaxWidth     float64 `json:"half_max_width_s"` // first to last half-maximum crossing of the output-end power itself, with no detector [s]
+	RMSWidth         float64 `json:"rms_fwhm_s"`       // 2·sqrt(2 ln 2) × the rms duration of the output-end pulse: the FWHM of a Gaussian of the same rms width, smooth across spikes [s]
+	PulseCentre      float64 `json:"pulse_centre_s"`   // power-weighted mean time of the output-end pulse [s]
+	Rise             float64 `json:"rise_s"`           // 10–90 % rise time of the output-end pulse [s]
+	Delay            float64 `json:"delay_s"`          // switch closure to the half-maximum of the rising edge [s]
 	// EndTime is how long after closure the shot was followed: numerics.end_time, or up to
 	// 16 times that (at most 10 µs) when the pulse outlasted it [s].
 	EndTime float64 `json:"end_time_s"`
@@ -147,6 +156,10 @@ type RunSettings struct {
 	CacheDir string
 	// GainMapColumns is the number of time columns kept in the gain map (default 300).
 	GainMapColumns int
+	// DetectorResponse is the time constant [s] of a single-pole detector (photodiode and
+	// oscilloscope, impulse response e^(−t/τ)/τ, 10–90 % rise 2.2 τ) through which the output
+	// power is seen for Summary.FWHM; 0 means an ideal detector.
+	DetectorResponse float64
 	// Light drops the waveforms and gain map from the Result and keeps only the Summary,
 	// for sweeps.
 	Light bool

@@ -17,7 +17,9 @@ type shot struct {
 	steps int
 	med   *medium
 	light bool
-	cols  int
+	// detector is the time constant of the detector for the FWHM [s]; 0 for an ideal one.
+	detector float64
+	cols     int
 
 	// Per-cell excitation delay as a whole number of steps and a fraction.
 	delayWhole []int
@@ -41,7 +43,7 @@ func newShot(d *design.Design, p *Parameters, wf *waveforms, steps int, s *RunSe
 	omega := apertureSolidAngle(p.OpticalArea, d.Channel.Length)
 	spontPerC := p.EinsteinA00 * omega / (4 * math.Pi)
 	sh := &shot{
-		d: d, p: p, wf: wf, steps: steps, light: s.Light,
+		d: d, p: p, wf: wf, steps: steps, light: s.Light, detector: s.DetectorResponse,
 		med: newMedium(n, p.CellLength, p.TimeStep, p.CrossSection, p.DegeneracyRatio,
 			spontPerC, d.Optics.Loss, d.Optics.RearReflectivity, d.Optics.FrontReflectivity),
 		delayWhole: make([]int, n), delayFrac: make([]float64, n),
@@ -350,7 +352,14 @@ func (sh *shot) summarise(res *Result) {
 		a, b := crossings(sh.powerFront, kp, 0.5*pk)
 		s.HalfMaxWidth = (b - a) * dt
 		s.Delay = t(a)
-		s.PulseCentre, s.FWHM = pulseWidth(sh.powerFront, dt)
+		s.PulseCentre, s.RMSWidth = pulseWidth(sh.powerFront, dt)
+		s.FWHM, s.DetectorResponse = s.HalfMaxWidth, sh.detector
+		if sh.detector > 0 {
+			seen := detected(sh.powerFront, dt, sh.detector)
+			dk, dp := peak(seen)
+			a, b := crossings(seen, dp, 0.5*dk)
+			s.FWHM = (b - a) * dt
+		}
 		r10, _ := crossings(sh.powerFront, kp, 0.1*pk)
 		r90, _ := crossings(sh.powerFront, kp, 0.9*pk)
 		s.Rise = (r90 - r10) * dt
@@ -493,6 +502,20 @@ func crossings(x []float64, k int, level float64) (before, after float64) {
 		}
 	}
 	return before, after
+}
+
+// detected is the power p, sampled at steps of dt, as a detector of time constant tau shows
+// it: the response of a single pole, y_k = y_(k−1)·e^(−Δt/τ) + p_k·(1 − e^(−Δt/τ)), exact for
+// a power constant over each step.
+func detected(p []float64, dt, tau float64) []float64 {
+	e := math.Exp(-dt / tau)
+	y := make([]float64, len(p))
+	prev := 0.0
+	for k, v := range p {
+		prev = prev*e + v*(1-e)
+		y[k] = prev
+	}
+	return y
 }
 
 // pulseWidth returns the centroid of a pulse sampled at the ends of steps of length dt and its

@@ -57,10 +57,12 @@ func laserChecks() ([]Check, error) {
 		if err != nil {
 			return nil, err
 		}
-		widths = append(widths, s.FWHM)
+		// The trend is one of the pulse's duration: the rms-based width follows it smoothly,
+		// where the half-maximum width jumps from spike to spike of an ASE train.
+		widths = append(widths, s.RMSWidth)
 	}
 	checks = append(checks, Check{ID: "laser.trend.pressure_shortens", Unit: "",
-		Quantity: fmt.Sprintf("FWHM falls as pressure rises 500→760→1000 Torr (%.3g, %.3g, %.3g ns)", widths[0]*1e9, widths[1]*1e9, widths[2]*1e9),
+		Quantity: fmt.Sprintf("rms-based width falls as pressure rises 500→760→1000 Torr (%.3g, %.3g, %.3g ns)", widths[0]*1e9, widths[1]*1e9, widths[2]*1e9),
 		Computed: b2f(widths[0] > widths[1] && widths[1] > widths[2]), Mode: True, Kind: CommonPractice,
 		Source: "common practice, no source: higher pressure quenches C(0) faster and shortens the pulse"})
 

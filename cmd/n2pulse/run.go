@@ -87,6 +87,7 @@ func runRun(args []string, stdout, stderr io.Writer) error {
 	asJSON := fs.Bool("json", false, "print the summary (verdict, advice, warnings, energy account) and the design as JSON on stdout")
 	sets := fs.StringArray("set", nil, "override a design key, e.g. --set gas.pressure=\"40 Torr\" (repeatable)")
 	stats := fs.Bool("stats", false, "print solver statistics")
+	detector := fs.String("detector", "", `time constant of the detector for the FWHM, e.g. "300 ps" (default: an ideal detector)`)
 	sensitivity := fs.Bool("sensitivity", false, "rank the design keys by d ln E / d ln x (re-runs the design twice per key)")
 	if help, err := parseFlags(fs, args); help || err != nil {
 		return err
@@ -95,7 +96,15 @@ func runRun(args []string, stdout, stderr io.Writer) error {
 	if err != nil {
 		return err
 	}
-	res, err := kinetics.Run(d, nil)
+	rs := &kinetics.RunSettings{}
+	if *detector != "" {
+		tau, err := units.Parse(*detector, units.Time)
+		if err != nil || !(tau > 0 && tau <= 1e-6) {
+			return usagef("--detector %q: want a time between 0 and 1 µs, e.g. \"300 ps\"", *detector)
+		}
+		rs.DetectorResponse = tau
+	}
+	res, err := kinetics.Run(d, rs)
 	if err != nil {
 		return err
 	}
@@ -153,8 +162,13 @@ func printSummary(w io.Writer, d *design.Design, r *kinetics.Result) {
 	row("pulse energy, output end", units.Format(s.EnergyFront, "J"))
 	row("pulse energy, rear end", units.Format(s.EnergyRear, "J"))
 	row("peak power, output end", units.Format(s.PeakPower, "W"))
-	row("FWHM (from the rms width)", units.Format(s.FWHM, "s"))
-	row("first to last half maximum", units.Format(s.HalfMaxWidth, "s"))
+	if s.DetectorResponse > 0 {
+		row("FWHM (half maximum)", fmt.Sprintf("%s as a detector of time constant %s shows it (%s with an ideal one)",
+			units.Format(s.FWHM, "s"), units.Format(s.DetectorResponse, "s"), units.Format(s.HalfMaxWidth, "s")))
+	} else {
+		row("FWHM (half maximum)", units.Format(s.FWHM, "s"))
+	}
+	row("width from the rms duration", units.Format(s.RMSWidth, "s"))
 	row("rise 10–90 %", units.Format(s.Rise, "s"))
 	row("delay from switch closure", units.Format(s.Delay, "s"))
 	row("efficiency (fraction)", fmt.Sprintf("%.3g of %s stored (%.3g %%)", s.Efficiency, units.Format(s.StoredEnergy, "J"), 100*s.Efficiency))

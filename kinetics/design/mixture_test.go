@@ -13,20 +13,7 @@ import (
 // naming the keys. (Air as 0.79/0.21: common practice, no source.)
 func TestMixtureRuleDesignFile(t *testing.T) {
 	t.Parallel()
-	base := `[channel]
-length = "20 cm"
-gap = "1.5 mm"
-width = "3 mm"
-[circuit]
-topology = "blumlein"
-charge_voltage = "12 kV"
-switch_capacitance = "2 nF"
-channel_capacitance = "2 nF"
-switch_inductance = "10 nH"
-channel_inductance = "2 nH"
-[gas]
-pressure = "760 Torr"
-`
+	base := minimalDesign
 	d, err := ParseDesign([]byte(base+"oxygen = 0.21\n"), "air.toml")
 	if err != nil {
 		t.Fatal(err)

@@ -59,6 +59,13 @@
 //
 // # Cross sections
 //
+// Three N₂ sets ship (Sets, ResolveSet; O₂ and He are common to all): "original",
+// data/xsec-n2.txt, described below; "phelps1985", data/xsec-n2-phelps.txt, the set of A.V.
+// Phelps & L.C. Pitchford, Phys. Rev. A 31, 2932 (1985) as distributed (with single-level
+// rotation and v = 1…8); "itikawa2006", data/xsec-n2-itikawa.txt, that set with B³Πg and C³Πu
+// from Y. Itikawa, J. Phys. Chem. Ref. Data 35, 31 (2006), Tables 8 and 10. DefaultSet names
+// the one used when none is given. The last two are made by scripts/xsec/n2_sets.py.
+//
 // data/xsec-n2.txt, data/xsec-o2.txt and data/xsec-he.txt, in n2pulse's own text format
 // (documented at the top of each file), each process with its source. N₂: elastic momentum
 // transfer, vibrational excitation v = 1…7, A, B, W, B′, a′, a, w, C, E, a″, c′ and lumped
