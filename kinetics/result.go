@@ -136,6 +136,7 @@ type Parameters struct {
 	Wavelength      float64 // vacuum [m]
 	PhotonEnergy    float64 // [J]
 	UpperEnergy     float64 // energy of C(0) above X(0) [J]
+	UpperShare1     float64 // fraction of C excitation landing in v=1
 	GasDensity      float64 // N [m⁻³]
 	UpperDecayRate  float64 // 1/τ_C + Σk_q N [s⁻¹]
 	LowerDecayRate  float64 // [s⁻¹]

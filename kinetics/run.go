@@ -230,7 +230,7 @@ func laserParameters(d *design.Design) (Parameters, []string, error) {
 		CrossSection: lp.CrossSection, DegeneracyRatio: lp.DegeneracyRatio,
 		EinsteinA00: lp.EinsteinA00, UpperLifetime: lp.UpperLifetime,
 		UpperShare: lp.UpperShare, LowerShare: lp.LowerShare, Wavelength: lp.VacuumWavelength,
-		UpperEnergy: lp.UpperEnergy,
+		UpperEnergy: lp.UpperEnergy, UpperShare1: lp.UpperShare1,
 	}
 	var over []string
 	o := d.Spectroscopy
