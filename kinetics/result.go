@@ -59,7 +59,11 @@ type Summary struct {
 	StimulatedRatio         float64       `json:"stimulated_to_spontaneous"` // photons from stimulated emission per spontaneous seed photon
 	Derived                 []string      `json:"derived,omitempty"`         // circuit keys computed from the [build] section
 	Overridden              []string      `json:"overridden,omitempty"`      // spectroscopic values taken from the design, not computed
-	Warnings                []string      `json:"warnings,omitempty"`        // what the run could not do as asked (Result.Warnings)
+	// Validity names the parts of the design the model covers only in part: today helium,
+	// modelled only through the electron energy balance and dilution (see HeliumNote); empty
+	// when the model covers the whole design.
+	Validity string   `json:"validity,omitempty"`
+	Warnings []string `json:"warnings,omitempty"` // what the run could not do as asked (Result.Warnings)
 }
 
 // EnergyAccount says where the stored energy of a shot went [J]: the switch, the shunt, the
@@ -132,6 +136,7 @@ type Parameters struct {
 	Wavelength      float64 // vacuum [m]
 	PhotonEnergy    float64 // [J]
 	UpperEnergy     float64 // energy of C(0) above X(0) [J]
+	UpperShare1     float64 // fraction of C excitation landing in v=1
 	GasDensity      float64 // N [m⁻³]
 	UpperDecayRate  float64 // 1/τ_C + Σk_q N [s⁻¹]
 	LowerDecayRate  float64 // [s⁻¹]

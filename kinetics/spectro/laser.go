@@ -21,6 +21,7 @@ type LaserParameters struct {
 	UpperLifetime    float64 // radiative lifetime of C(v=0) [s]
 	UpperShare       float64 // f_C: fraction of C excitation landing in v=0
 	LowerShare       float64 // f_B: fraction of B excitation landing in v=0
+	UpperShare1      float64 // fraction of C excitation landing in v=1
 	UpperEnergy      float64 // energy of C(v=0, J=0) above X(v=0, J=0) [J]
 	LineWidth        float64 // FWHM of the line profile at p, T [Hz]
 }
@@ -64,6 +65,7 @@ var (
 		lines    []Line // (0,0) lines
 		a00, tau float64
 		fC, fB   float64
+		fC1      float64
 	}
 )
 
@@ -91,6 +93,9 @@ func defaultModel() (*Model, error) {
 			return
 		}
 		if cache.fC, cacheErr = m.ExcitationShare("C", 0); cacheErr != nil {
+			return
+		}
+		if cache.fC1, cacheErr = m.ExcitationShare("C", 1); cacheErr != nil {
 			return
 		}
 		cache.fB, cacheErr = m.ExcitationShare("B", 0)
@@ -199,6 +204,7 @@ func Laser(pressure, temperature float64) (LaserParameters, error) {
 		EinsteinA00:      cache.a00,
 		UpperLifetime:    cache.tau,
 		UpperShare:       cache.fC,
+		UpperShare1:      cache.fC1,
 		LowerShare:       cache.fB,
 		UpperEnergy:      (m.Constants.States["C"].Term(0, 0) - m.Constants.States["X"].Term(0, 0)) * units.Wavenumber,
 		LineWidth:        best.FWHM,
