@@ -36,10 +36,11 @@ func TestEnergyAccount(t *testing.T) {
 		if sum := a.PlasmaSplit.sum(); !scalar.EqualWithinAbsOrRel(sum, a.Plasma, 0, 1e-12) {
 			t.Errorf("air %v: plasma split sums to %.9g J, plasma %.9g J", air, sum, a.Plasma)
 		}
-		// C(0) gets f_C of the C excitations, each worth E_C(0) instead of the C threshold of
-		// the cross-section set (11.03 eV, within 1 % of E_C(0)): within 2 % of f_C.
-		if ratio := a.UpperLevel / a.PlasmaSplit.StateC; !scalar.EqualWithinAbsOrRel(ratio, p.UpperShare, 0, 0.02) {
-			t.Errorf("air %v: C(0) energy / C channel = %.4g, want f_C = %.4g within 2 %%", air, ratio, p.UpperShare)
+		// C(0) gets f_C of the C excitations directly and part of the f_C1 that land in
+		// C(v=1), each worth E_C(0) instead of the C threshold of the cross-section set
+		// (11.03 eV, within 1 % of E_C(0)): between f_C and f_C + f_C1, within 2 %.
+		if ratio := a.UpperLevel / a.PlasmaSplit.StateC; ratio < 0.98*p.UpperShare || ratio > 1.02*(p.UpperShare+p.UpperShare1) {
+			t.Errorf("air %v: C(0) energy / C channel = %.4g, want between f_C = %.4g and f_C + f_C1 = %.4g", air, ratio, p.UpperShare, p.UpperShare+p.UpperShare1)
 		}
 		if bound := a.UpperLevel * p.PhotonEnergy / p.UpperEnergy; !(a.Laser <= bound) {
 			t.Errorf("air %v: laser %.4g J above the C(0) bound %.4g J", air, a.Laser, bound)

@@ -104,8 +104,10 @@ func TestFWHMIssue16(t *testing.T) {
 	if s.FWHM != s.HalfMaxWidth || s.DetectorResponse != 0 {
 		t.Errorf("fwhm %g s, half-max width %g s, detector %g s: want equal widths, ideal detector", s.FWHM, s.HalfMaxWidth, s.DetectorResponse)
 	}
-	if math.Abs(s.RMSWidth/s.FWHM-1) < 0.1 {
-		t.Errorf("rms-based width %g s within 10 %% of the FWHM %g s: the example no longer tells them apart", s.RMSWidth, s.FWHM)
+	// The two widths are different measures: on the example they differed by 30 % at the time
+	// of the change, by 1.6 % since issue 15's C(v=1) and electron collisions reshaped the pulse.
+	if !(s.RMSWidth > 0) || math.Abs(s.RMSWidth/s.FWHM-1) < 0.005 {
+		t.Errorf("rms-based width %g s within 0.5 %% of the FWHM %g s: the example no longer tells them apart", s.RMSWidth, s.FWHM)
 	}
 	rd, err := Run(design.ExampleDesign(), &RunSettings{Light: true, DetectorResponse: 1e-9})
 	if err != nil {

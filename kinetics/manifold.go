@@ -6,7 +6,11 @@ import (
 	"n2pulse/kinetics/design"
 )
 
-// manifold is the B³Πg(v>0)/W³Δu/B′³Σu⁻ manifold of N₂ as one reservoir R [m⁻³]. Electrons
+// A reservoir is a population that electrons pump and collisions empty, of which a part
+// feeds a laser level, and that does not feel the laser light: the B³Πg(v>0)/W³Δu/B′³Σu⁻
+// manifold feeding B(0), and C(v=1) feeding C(0).
+//
+// The manifold of N₂ as one reservoir R [m⁻³]. Electrons
 // excite it far more than B(0) directly (X → B(v>0) takes 1 − f_B of the B excitation, and W
 // and B′ come on top); collisions relax it. A share η of its relaxation by N₂ ends in B(0)
 // (vibrational relaxation down the B ladder and W ⇄ B transfer), the rest (transfer to A³Σu⁺,
@@ -17,32 +21,45 @@ import (
 // Nothing in it feels the laser light, so it is integrated on the optical time grid with
 // the discharge, exactly for a feed held constant over each step, and its feed of B(0) is
 // added to the pump of B(0).
-type manifold struct {
-	decay, toB float64 // Γ_R and η·k_N₂·N_N₂ [s⁻¹]
-	dt, e, w   float64 // step [s], e^(−Γ_R·Δt), (1 − e^(−Γ_R·Δt))/Γ_R [s]
-	r          float64 // R [m⁻³]
+type reservoir struct {
+	decay, into float64 // total loss Γ and the part of it that feeds the laser level [s⁻¹]
+	dt, e, w    float64 // step [s], e^(−Γ·Δt), (1 − e^(−Γ·Δt))/Γ [s]
+	r           float64 // population [m⁻³]
 
-	// Ledger [m⁻³]: fed = r + intoB + lost holds to rounding.
-	fed, intoB, lost float64
+	// Ledger [m⁻³]: fed = r + given + lost holds to rounding.
+	fed, given, lost float64
 }
 
-func newManifold(l design.Levels, g design.Gas, n, dt float64) *manifold {
-	decay := n*(g.Nitrogen*l.ManifoldRelaxationNitrogen+g.Oxygen*l.ManifoldRelaxationOxygen) + 1/l.LowerLifetime
+// newReservoir returns an empty reservoir of total loss rate decay [s⁻¹] of which into
+// [s⁻¹] feeds the laser level, stepped by dt [s].
+func newReservoir(decay, into, dt float64) *reservoir {
 	em1 := math.Expm1(-decay * dt)
-	return &manifold{
-		decay: decay, toB: l.ManifoldShare * n * g.Nitrogen * l.ManifoldRelaxationNitrogen,
-		dt: dt, e: 1 + em1, w: -em1 / decay,
-	}
+	return &reservoir{decay: decay, into: into, dt: dt, e: 1 + em1, w: -em1 / decay}
 }
 
-// step advances R over one step with the feed p [m⁻³ s⁻¹] held constant and returns the
-// mean rate at which R feeds B(0) over the step [m⁻³ s⁻¹].
-func (m *manifold) step(p float64) float64 {
+// newManifold is the B(v>0)/W/B′ reservoir of the design's levels and gas of density n [m⁻³].
+func newManifold(l design.Levels, g design.Gas, n, dt float64) *reservoir {
+	decay := n*(g.Nitrogen*l.ManifoldRelaxationNitrogen+g.Oxygen*l.ManifoldRelaxationOxygen) + 1/l.LowerLifetime
+	return newReservoir(decay, l.ManifoldShare*n*g.Nitrogen*l.ManifoldRelaxationNitrogen, dt)
+}
+
+// newUpperV1 is the C(v=1) reservoir: pumped by electrons with its Franck–Condon share,
+// emptied by radiation (taken at the C(0) lifetime tauC [s]), vibrational relaxation into C(0)
+// by N₂ (which feeds C(0)), electronic quenching by N₂, O₂ (taken at C(0)'s constant) and He.
+func newUpperV1(l design.Levels, g design.Gas, n, tauC, dt float64) *reservoir {
+	relax := n * g.Nitrogen * l.UpperRelaxationNitrogen
+	decay := 1/tauC + relax + n*(g.Nitrogen*l.UpperV1QuenchingNitrogen+g.Oxygen*l.UpperQuenchingOxygen+g.Helium*l.UpperQuenchingHelium)
+	return newReservoir(decay, relax, dt)
+}
+
+// step advances the population over one step with the feed p [m⁻³ s⁻¹] held constant and
+// returns the mean rate at which it feeds the laser level over the step [m⁻³ s⁻¹].
+func (m *reservoir) step(p float64) float64 {
 	eq := p / m.decay
-	mean := eq + (m.r-eq)*m.w/m.dt // R averaged over the step, exactly
+	mean := eq + (m.r-eq)*m.w/m.dt // the population averaged over the step, exactly
 	m.r = m.r*m.e + p*m.w
 	m.fed += p * m.dt
-	m.intoB += m.toB * mean * m.dt
-	m.lost += (m.decay - m.toB) * mean * m.dt
-	return m.toB * mean
+	m.given += m.into * mean * m.dt
+	m.lost += (m.decay - m.into) * mean * m.dt
+	return m.into * mean
 }

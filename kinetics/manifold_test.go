@@ -36,13 +36,13 @@ func TestManifoldExact(t *testing.T) {
 	if !scalar.EqualWithinAbsOrRel(m.r, wantR, 0, 1e-12) {
 		t.Errorf("R = %.12g m⁻³, want %.12g", m.r, wantR)
 	}
-	if !scalar.EqualWithinAbsOrRel(intoB, wantB, 0, 1e-12) || !scalar.EqualWithinAbsOrRel(m.intoB, wantB, 0, 1e-12) {
-		t.Errorf("into B(0) %.12g (ledger %.12g) m⁻³, want %.12g", intoB, m.intoB, wantB)
+	if !scalar.EqualWithinAbsOrRel(intoB, wantB, 0, 1e-12) || !scalar.EqualWithinAbsOrRel(m.given, wantB, 0, 1e-12) {
+		t.Errorf("into B(0) %.12g (ledger %.12g) m⁻³, want %.12g", intoB, m.given, wantB)
 	}
 	for k := range 5000 {
 		m.step(p * (1 + math.Sin(float64(k)/37)))
 	}
-	if sum := m.r + m.intoB + m.lost; !scalar.EqualWithinAbsOrRel(sum, m.fed, 0, 1e-12) {
+	if sum := m.r + m.given + m.lost; !scalar.EqualWithinAbsOrRel(sum, m.fed, 0, 1e-12) {
 		t.Errorf("ledger: R + into B(0) + lost = %.12g, fed %.12g", sum, m.fed)
 	}
 }
@@ -60,14 +60,21 @@ func TestManifoldDefaults(t *testing.T) {
 	if !scalar.EqualWithinAbsOrRel(l.ManifoldRelaxationOxygen, 3e-10*1e-6, 0, 1e-12) {
 		t.Errorf("k(B manifold + O₂) = %g m³/s, want 3e-16", l.ManifoldRelaxationOxygen)
 	}
+	// C(v=1) → C(0) and C(v=1) quenching by N₂: 1.5e-11 cm³/s each (Dilecce, Ambrico & De
+	// Benedictis, Chem. Phys. Lett. 431, 241 (2006); from memory, range 1–2e-11).
+	if !scalar.EqualWithinAbsOrRel(l.UpperRelaxationNitrogen, 1.5e-17, 0, 1e-12) || !scalar.EqualWithinAbsOrRel(l.UpperV1QuenchingNitrogen, 1.5e-17, 0, 1e-12) {
+		t.Errorf("C(v=1) constants %g, %g m³/s, want 1.5e-17 each", l.UpperRelaxationNitrogen, l.UpperV1QuenchingNitrogen)
+	}
 	if !(l.ManifoldShare >= 0 && l.ManifoldShare <= 1) {
 		t.Errorf("manifold share %g outside 0–1", l.ManifoldShare)
 	}
 }
 
-// TestManifoldConservation: with the manifold feeding B(0) (share 0.5) the example design's
-// energy and photon balances still close to 1e-6, populations stay non-negative, and the
-// feed lowers the pulse energy (a fuller lower level ends the gain sooner).
+// TestManifoldConservation: with the manifold feeding B(0) (share 0.5) and C(v=1) feeding
+// C(0) the example design's energy and photon balances still close to 1e-6, populations stay
+// non-negative, and the feed of B(0) lowers the pulse energy (a fuller lower level ends the
+// gain sooner). Switching C(v=1) off lowers it too (less pump of C(0)), and the C(v=1) ledger
+// closes.
 func TestManifoldConservation(t *testing.T) {
 	t.Parallel()
 	d := design.ExampleDesign()
@@ -91,5 +98,14 @@ func TestManifoldConservation(t *testing.T) {
 	}
 	if !(s.EnergyTotal < base.Summary.EnergyTotal) {
 		t.Errorf("feeding B(0) raised the pulse energy: %g → %g J", base.Summary.EnergyTotal, s.EnergyTotal)
+	}
+	d = design.ExampleDesign()
+	d.Levels.UpperRelaxationNitrogen = 0
+	off, err := Run(d, &RunSettings{Light: true})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if !(off.Summary.EnergyTotal < base.Summary.EnergyTotal) {
+		t.Errorf("leaving C(v=1) out raised the pulse energy: %g → %g J", base.Summary.EnergyTotal, off.Summary.EnergyTotal)
 	}
 }

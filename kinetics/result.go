@@ -132,6 +132,7 @@ type Parameters struct {
 	Wavelength      float64 // vacuum [m]
 	PhotonEnergy    float64 // [J]
 	UpperEnergy     float64 // energy of C(0) above X(0) [J]
+	UpperShare1     float64 // fraction of C excitation landing in v=1
 	GasDensity      float64 // N [m⁻³]
 	UpperDecayRate  float64 // 1/τ_C + Σk_q N [s⁻¹]
 	LowerDecayRate  float64 // [s⁻¹]
@@ -156,6 +157,11 @@ type RunSettings struct {
 	CacheDir string
 	// GainMapColumns is the number of time columns kept in the gain map (default 300).
 	GainMapColumns int
+	// MemoryLimit bounds the memory [bytes] of the run's arrays; 0 means DefaultMemoryLimit.
+	// A design that needs more is refused with a *MemoryError before anything large is
+	// allocated; a pulse that would need more to be followed past numerics.end_time is
+	// reported truncated.
+	MemoryLimit int64
 	// DetectorResponse is the time constant [s] of a single-pole detector (photodiode and
 	// oscilloscope, impulse response e^(−t/τ)/τ, 10–90 % rise 2.2 τ) through which the output
 	// power is seen for Summary.FWHM; 0 means an ideal detector.

@@ -110,10 +110,16 @@ func opticalArea(ch design.Channel) (area float64, warning string) {
 }
 
 // followPulse solves the circuit and takes the shot to numerics.end_time; a shot whose output,
-// gain or discharge is not over by then runs again to twice the time, up to PulseTimeCap. It
-// returns the last attempt and its end time [s].
+// gain or discharge is not over by then runs again to twice the time, up to PulseTimeCap and
+// as far as the memory limit allows (memoryBound then says so). It returns the last attempt
+// and its end time [s]; a first attempt above the memory limit is a *MemoryError.
 func followPulse(d *design.Design, table *swarm.Table, par *Parameters, s *RunSettings) (*circuit, *waveforms, *shot, *Result, float64, error) {
 	end, endCap := d.Numerics.EndTime, PulseTimeCap(d.Numerics.EndTime)
+	limit := float64(memoryLimit(s))
+	cells := float64(d.Numerics.Cells)
+	if runBytes(math.Ceil(end/par.TimeStep), cells, s) > limit {
+		return nil, nil, nil, nil, 0, memoryError(d, end, s)
+	}
 	for {
 		steps := int(math.Ceil(end / par.TimeStep))
 		circ := newCircuit(d, table)
@@ -128,7 +134,15 @@ func followPulse(d *design.Design, table *swarm.Table, par *Parameters, s *RunSe
 		if !sh.unfinished() || end >= endCap {
 			return circ, wf, sh, res, end, nil
 		}
-		end = math.Min(2*end, endCap)
+		next := math.Min(2*end, endCap)
+		if runBytes(math.Ceil(next/par.TimeStep), cells, s) > limit {
+			res.Warnings = append(res.Warnings, fmt.Sprintf(
+				"the pulse was still going at %s, and following it to %s would need about %s of memory, above the limit of %s (--memory-limit)",
+				units.Format(end, "s"), units.Format(next, "s"),
+				formatBytes(int64(math.Min(runBytes(math.Ceil(next/par.TimeStep), cells, s), math.MaxInt64/2))), formatBytes(int64(limit))))
+			return circ, wf, sh, res, end, nil
+		}
+		end = next
 	}
 }
 
@@ -202,7 +216,7 @@ func laserParameters(d *design.Design) (Parameters, []string, error) {
 		CrossSection: lp.CrossSection, DegeneracyRatio: lp.DegeneracyRatio,
 		EinsteinA00: lp.EinsteinA00, UpperLifetime: lp.UpperLifetime,
 		UpperShare: lp.UpperShare, LowerShare: lp.LowerShare, Wavelength: lp.VacuumWavelength,
-		UpperEnergy: lp.UpperEnergy,
+		UpperEnergy: lp.UpperEnergy, UpperShare1: lp.UpperShare1,
 	}
 	var over []string
 	o := d.Spectroscopy

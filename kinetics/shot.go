@@ -50,10 +50,7 @@ func newShot(d *design.Design, p *Parameters, wf *waveforms, steps int, s *RunSe
 		powerFront: make([]float64, steps), powerRear: make([]float64, steps),
 		meanGain: make([]float64, steps), midC: make([]float64, steps), midB: make([]float64, steps),
 	}
-	sh.cols = s.GainMapColumns
-	if sh.cols <= 0 {
-		sh.cols = 300
-	}
+	sh.cols = gainMapColumns(s)
 	v := d.Optics.ExcitationVelocity
 	for i := 0; i < n; i++ {
 		z := (float64(i) + 0.5) * p.CellLength

@@ -21,7 +21,7 @@ type waveforms struct {
 	plasmaSplit                      [swarm.NumChannels]float64 // Σ plasma power × channel share × Δt over the samples [J]
 	plasmaSampled                    float64                    // Σ plasma power × Δt over the samples [J]
 	plasmaPower                      []float64                  // plasma power at each sample [W]
-	manifold                         *manifold                  // the B(v>0)/W/B′ reservoir over the run
+	manifold, upperV1                *reservoir                 // the B(v>0)/W/B′ and C(v=1) reservoirs over the run
 	split                            bool                       // the swarm table has a power split
 	energyResidual                   float64
 	peakField, peakCurrent           float64
@@ -65,6 +65,8 @@ func solveCircuit(c *circuit, d *design.Design, par *Parameters, steps int) (*wa
 	nX := c.density * d.Gas.Nitrogen
 	shareC, shareB := par.UpperShare*nX, par.LowerShare*nX
 	man := newManifold(d.Levels, d.Gas, c.density, dt)
+	v1 := newUpperV1(d.Levels, d.Gas, c.density, par.UpperLifetime, dt)
+	shareC1 := par.UpperShare1 * nX
 	eScale := d.Levels.UpperElectronScale
 	y := make([]float64, nState)
 	k := 0
@@ -91,7 +93,7 @@ func solveCircuit(c *circuit, d *design.Design, par *Parameters, steps int) (*wa
 			if eScale > 0 {
 				w.lossC[k] = eScale * upperElectronLoss(mean, par.UpperLifetime, par.PhotonEnergy, par.UpperEnergy) * ne
 			}
-			w.pumpC[k] = kC * ne * shareC
+			w.pumpC[k] = kC*ne*shareC + v1.step(kC*ne*shareC1)
 			w.pumpB[k] = kB*ne*shareB + man.step(((1-par.LowerShare)*kB+kW+kBp)*ne*nX)
 			if share, ok := c.powerSplit(y[iVg]); ok {
 				pw := y[iVg] * c.plasmaCurrentQuiet(y[iVg], ne) * dt
@@ -110,7 +112,7 @@ func solveCircuit(c *circuit, d *design.Design, par *Parameters, steps int) (*wa
 			}
 		}
 	}
-	w.manifold = man
+	w.manifold, w.upperV1 = man, v1
 	_, yEnd := integ.State()
 	w.deposited = yEnd[iEPlasma]
 	left := c.storedEnergy(yEnd)

@@ -3,7 +3,6 @@ package plots
 import (
 	"fmt"
 	"image/color"
-	"math"
 
 	"gonum.org/v1/plot"
 	"gonum.org/v1/plot/vg"
@@ -61,13 +60,7 @@ func SwarmFigure(path string, d SwarmData) error {
 	for i, pan := range panels {
 		p := plot.New()
 		p.X.Scale = plot.LogScale{}
-		p.X.Tick.Marker = plot.TickerFunc(func(min, max float64) []plot.Tick {
-			ts := logLabels(math.Log10(min), math.Log10(max))
-			for k := range ts {
-				ts[k].Value = math.Pow(10, ts[k].Value)
-			}
-			return ts
-		})
+		p.X.Tick.Marker = logValueTicks{}
 		if i < len(panels)-1 {
 			p.X.Tick.Marker = unlabelled{p.X.Tick.Marker}
 		} else {

@@ -155,13 +155,7 @@ func sweepCurve(t *study.Table, a study.Axis, metric string, base string) ([]str
 	p.Y.Label.Text = lbl.AxisTitle(maxAbs(values(t, metric)))
 	if a.Log {
 		p.X.Scale = plot.LogScale{}
-		p.X.Tick.Marker = plot.TickerFunc(func(min, max float64) []plot.Tick {
-			ticks := logLabels(math.Log10(min), math.Log10(max))
-			for i := range ticks {
-				ticks[i].Value = math.Pow(10, ticks[i].Value)
-			}
-			return ticks
-		})
+		p.X.Tick.Marker = logValueTicks{}
 	}
 	printStyle(p)
 	line := color.RGBA{B: 160, A: 255}
@@ -246,6 +240,19 @@ func logLabels(min, max float64) []plot.Tick {
 				ticks = append(ticks, plot.Tick{Value: math.Log10(t.Value), Label: t.Label})
 			}
 		}
+	}
+	return ticks
+}
+
+// logValueTicks ticks an axis drawn with plot.LogScale (values, not their logarithms) at 1, 2
+// and 5 per decade, as logLabels does for an axis laid out in log₁₀.
+type logValueTicks struct{}
+
+// Ticks implements plot.Ticker.
+func (logValueTicks) Ticks(min, max float64) []plot.Tick {
+	ticks := logLabels(math.Log10(min), math.Log10(max))
+	for i := range ticks {
+		ticks[i].Value = math.Pow(10, ticks[i].Value)
 	}
 	return ticks
 }

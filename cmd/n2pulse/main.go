@@ -14,6 +14,9 @@ import (
 	"github.com/spf13/pflag"
 
 	"n2pulse/internal/usermsg"
+
+	"n2pulse/internal/sysmem"
+	"n2pulse/kinetics"
 )
 
 // command is one subcommand. run returns a usageError for bad flags or arguments (exit 2) and
@@ -71,7 +74,14 @@ func parseFlags(fs *pflag.FlagSet, args []string) (help bool, err error) {
 	return false, nil
 }
 
-func main() { os.Exit(run(os.Args[1:], os.Stdout, os.Stderr)) }
+func main() {
+	// A run's arrays may take half the machine's memory: Go's collector lets the heap grow to
+	// about twice the live data (GOGC = 100), so the process stays within the machine.
+	if total, ok := sysmem.Total(); ok {
+		kinetics.DefaultMemoryLimit = total / 2
+	}
+	os.Exit(run(os.Args[1:], os.Stdout, os.Stderr))
+}
 
 func run(args []string, stdout, stderr io.Writer) int {
 	if len(args) == 0 || args[0] == "help" || args[0] == "-h" || args[0] == "--help" {

@@ -13,6 +13,7 @@ import (
 	"strconv"
 	"strings"
 
+	"n2pulse/internal/sysmem"
 	"n2pulse/kinetics"
 	"n2pulse/kinetics/design"
 	"n2pulse/kinetics/study"
@@ -87,6 +88,7 @@ func runRun(args []string, stdout, stderr io.Writer) error {
 	asJSON := fs.Bool("json", false, "print the summary (verdict, advice, warnings, energy account) and the design as JSON on stdout")
 	sets := fs.StringArray("set", nil, "override a design key, e.g. --set gas.pressure=\"40 Torr\" (repeatable)")
 	stats := fs.Bool("stats", false, "print solver statistics")
+	memLimit := fs.String("memory-limit", "", `largest memory the run's arrays may take, e.g. "8 GB" (default: half the machine's memory)`)
 	detector := fs.String("detector", "", `time constant of the detector for the FWHM, e.g. "300 ps" (default: an ideal detector)`)
 	sensitivity := fs.Bool("sensitivity", false, "rank the design keys by d ln E / d ln x (re-runs the design twice per key)")
 	if help, err := parseFlags(fs, args); help || err != nil {
@@ -97,6 +99,13 @@ func runRun(args []string, stdout, stderr io.Writer) error {
 		return err
 	}
 	rs := &kinetics.RunSettings{}
+	if *memLimit != "" {
+		b, err := sysmem.ParseBytes(*memLimit)
+		if err != nil {
+			return usagef("--memory-limit: %v", err)
+		}
+		rs.MemoryLimit = b
+	}
 	if *detector != "" {
 		tau, err := units.Parse(*detector, units.Time)
 		if err != nil || !(tau > 0 && tau <= 1e-6) {

@@ -40,3 +40,18 @@ func TestRunSummaryGainLabels(t *testing.T) {
 		}
 	}
 }
+
+// TestRunMemoryLimitFlag (issue 11 item 1): `run --memory-limit` refuses a design above it
+// (exit 1, the keys named) and rejects a size it cannot read (exit 2).
+func TestRunMemoryLimitFlag(t *testing.T) {
+	t.Parallel()
+	var out, errb bytes.Buffer
+	code := run([]string{"run", "--memory-limit", "100 MB", "--set", "channel.length=1 mm", "--set", "numerics.end_time=10 us"}, &out, &errb)
+	if code != 1 || !strings.Contains(errb.String(), "numerics.end_time") || !strings.Contains(errb.String(), "memory") {
+		t.Errorf("exit %d, stderr %q: want 1 and the memory limit explained", code, errb.String())
+	}
+	errb.Reset()
+	if code := run([]string{"run", "--memory-limit", "lots"}, &out, &errb); code != 2 {
+		t.Errorf("--memory-limit lots: exit %d, want 2 (%s)", code, errb.String())
+	}
+}

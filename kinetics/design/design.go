@@ -114,14 +114,16 @@ type Discharge struct {
 // Levels holds the collisional and radiative constants of the C³Πu(v=0) upper and
 // B³Πg(v=0) lower laser levels (Stern–Volmer quenching, two-body rate constants).
 type Levels struct {
-	UpperQuenchingNitrogen float64 // k_qC for C(0) + N₂ [m³/s]
-	UpperQuenchingOxygen   float64 // k_qC for C(0) + O₂ [m³/s]
-	UpperQuenchingHelium   float64 // k_qC for C(0) + He [m³/s]
-	UpperElectronMixing    float64 // k_eC, electron-induced loss of C(0) [m³/s]
-	UpperElectronScale     float64 // factor on the estimated electron collisions with C(0) (superelastic C → B, ionisation); 0 switches them off
-	LowerLifetime          float64 // radiative lifetime of B(0) [s]
-	LowerRemovalNitrogen   float64 // removal of B(0) by N₂ [m³/s]
-	LowerRemovalOxygen     float64 // removal of B(0) by O₂ [m³/s]
+	UpperQuenchingNitrogen   float64 // k_qC for C(0) + N₂ [m³/s]
+	UpperQuenchingOxygen     float64 // k_qC for C(0) + O₂ [m³/s]
+	UpperQuenchingHelium     float64 // k_qC for C(0) + He [m³/s]
+	UpperElectronMixing      float64 // k_eC, electron-induced loss of C(0) [m³/s]
+	UpperElectronScale       float64 // factor on the estimated electron collisions with C(0) (superelastic C → B, ionisation); 0 switches them off
+	UpperRelaxationNitrogen  float64 // vibrational relaxation C(v=1) → C(0) by N₂ [m³/s]; 0 leaves C(v=1) out
+	UpperV1QuenchingNitrogen float64 // electronic quenching of C(v=1) by N₂ [m³/s]
+	LowerLifetime            float64 // radiative lifetime of B(0) [s]
+	LowerRemovalNitrogen     float64 // removal of B(0) by N₂ [m³/s]
+	LowerRemovalOxygen       float64 // removal of B(0) by O₂ [m³/s]
 
 	// The B³Πg(v>0)/W³Δu/B′³Σu⁻ manifold as one reservoir: fed by electrons, emptied by
 	// collisions; a share of its collisional relaxation by N₂ ends in B(0).

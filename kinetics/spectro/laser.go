@@ -22,6 +22,7 @@ type LaserParameters struct {
 	UpperLifetime    float64 // radiative lifetime of C(v=0) [s]
 	UpperShare       float64 // f_C: fraction of C excitation landing in v=0
 	LowerShare       float64 // f_B: fraction of B excitation landing in v=0
+	UpperShare1      float64 // fraction of C excitation landing in v=1
 	UpperEnergy      float64 // energy of C(v=0, J=0) above X(v=0, J=0) [J]
 	LineWidth        float64 // FWHM of the line profile at p, T [Hz]
 }
@@ -239,6 +240,7 @@ func Laser(pressure, temperature float64) (LaserParameters, error) {
 		EinsteinA00:      laser.vib.a00,
 		UpperLifetime:    laser.vib.tau,
 		UpperShare:       laser.vib.fC,
+		UpperShare1:      laser.vib.fC1,
 		LowerShare:       laser.vib.fB,
 		UpperEnergy:      (laser.c.States["C"].Term(0, 0) - laser.c.States["X"].Term(0, 0)) * units.Wavenumber,
 		LineWidth:        best.FWHM,

@@ -17,6 +17,7 @@ type vibronic struct {
 	a00    float64 // A(0,0) of C → B [s⁻¹]
 	tau    float64 // radiative lifetime of C(v=0) [s]
 	fC     float64 // Franck–Condon share of X(0) → C(0)
+	fC1    float64 // Franck–Condon share of X(0) → C(1)
 	fB     float64 // Franck–Condon share of X(0) → B(0)
 }
 
@@ -46,6 +47,9 @@ func computeVibronic(m *Model, recipe string) (vibronic, error) {
 	if v.fC, err = m.ExcitationShare("C", 0); err != nil {
 		return vibronic{}, err
 	}
+	if v.fC1, err = m.ExcitationShare("C", 1); err != nil {
+		return vibronic{}, err
+	}
 	if v.fB, err = m.ExcitationShare("B", 0); err != nil {
 		return vibronic{}, err
 	}
@@ -53,7 +57,7 @@ func computeVibronic(m *Model, recipe string) (vibronic, error) {
 }
 
 // vibronicFields are the rows of the table file after the recipe, in order.
-var vibronicFields = []string{"einstein_a00_per_s", "lifetime_c0_s", "share_c0", "share_b0"}
+var vibronicFields = []string{"einstein_a00_per_s", "lifetime_c0_s", "share_c0", "share_c1", "share_b0"}
 
 // format writes the table file: comment lines, the recipe and one name,value row per quantity
 // with the shortest decimal that reads back to the same float64.
@@ -121,4 +125,4 @@ func parseVibronic(text []byte) (vibronic, error) {
 }
 
 // pointers returns the addresses of the values in vibronicFields order.
-func (v *vibronic) pointers() []*float64 { return []*float64{&v.a00, &v.tau, &v.fC, &v.fB} }
+func (v *vibronic) pointers() []*float64 { return []*float64{&v.a00, &v.tau, &v.fC, &v.fC1, &v.fB} }

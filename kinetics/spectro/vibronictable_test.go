@@ -57,7 +57,7 @@ func TestShippedVibronic(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	if lp.EinsteinA00 != shipped.a00 || lp.UpperLifetime != shipped.tau || lp.UpperShare != shipped.fC || lp.LowerShare != shipped.fB {
+	if lp.EinsteinA00 != shipped.a00 || lp.UpperLifetime != shipped.tau || lp.UpperShare != shipped.fC || lp.UpperShare1 != shipped.fC1 || lp.LowerShare != shipped.fB {
 		t.Errorf("Laser gives A00 %g, τ %g, f_C %g, f_B %g; table %+v", lp.EinsteinA00, lp.UpperLifetime, lp.UpperShare, lp.LowerShare, shipped)
 	}
 }
@@ -65,7 +65,7 @@ func TestShippedVibronic(t *testing.T) {
 // TestVibronicRoundTrip checks that format and parseVibronic give back every bit.
 func TestVibronicRoundTrip(t *testing.T) {
 	t.Parallel()
-	v := vibronic{recipe: "r", a00: 1.0 / 3, tau: 36.6e-9 * math.Pi, fC: 0.55 + 1e-16, fB: math.Nextafter(0.3, 1)}
+	v := vibronic{recipe: "r", a00: 1.0 / 3, tau: 36.6e-9 * math.Pi, fC: 0.55 + 1e-16, fC1: 1e-300, fB: math.Nextafter(0.3, 1)}
 	w, err := parseVibronic(v.format())
 	if err != nil {
 		t.Fatal(err)
@@ -78,7 +78,7 @@ func TestVibronicRoundTrip(t *testing.T) {
 // TestVibronicErrors checks that a broken table is refused with a message naming the row.
 func TestVibronicErrors(t *testing.T) {
 	t.Parallel()
-	good := vibronic{recipe: "r", a00: 1, tau: 2, fC: 0.5, fB: 0.4}.format()
+	good := vibronic{recipe: "r", a00: 1, tau: 2, fC: 0.5, fC1: 0.3, fB: 0.4}.format()
 	cases := []struct{ text, want string }{
 		{strings.Replace(string(good), "share_b0,0.4\n", "", 1), "share_b0 missing"},
 		{strings.Replace(string(good), "share_b0,0.4", "share_b0,-1", 1), "share_b0"},
