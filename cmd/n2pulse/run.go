@@ -194,6 +194,9 @@ func printSummary(w io.Writer, d *design.Design, r *kinetics.Result) {
 	row("self-termination", fmt.Sprintf("%s at %s", s.TerminationCause, units.Format(s.TerminationTime, "s")))
 	row("discharge regime", regimeLine(s))
 	row("verdict", s.Verdict)
+	if s.Validity != "" {
+		row("validity", s.Validity)
+	}
 	if s.Advice != "" {
 		row("what to change", s.Advice)
 	}
