@@ -59,7 +59,11 @@ type Summary struct {
 	StimulatedRatio         float64       `json:"stimulated_to_spontaneous"` // photons from stimulated emission per spontaneous seed photon
 	Derived                 []string      `json:"derived,omitempty"`         // circuit keys computed from the [build] section
 	Overridden              []string      `json:"overridden,omitempty"`      // spectroscopic values taken from the design, not computed
-	Warnings                []string      `json:"warnings,omitempty"`        // what the run could not do as asked (Result.Warnings)
+	// Validity names the parts of the design the model covers only in part: today helium,
+	// modelled only through the electron energy balance and dilution (see HeliumNote); empty
+	// when the model covers the whole design.
+	Validity string   `json:"validity,omitempty"`
+	Warnings []string `json:"warnings,omitempty"` // what the run could not do as asked (Result.Warnings)
 }
 
 // EnergyAccount says where the stored energy of a shot went [J]: the switch, the shunt, the

@@ -76,6 +76,16 @@ func Run(d *design.Design, s *RunSettings) (*Result, error) {
 			"the pulse outlasted numerics.end_time = %s: the run continued to %s",
 			units.Format(d.Numerics.EndTime, "s"), units.Format(res.Summary.EndTime, "s")))
 	}
+	// The apparatus as `bench` rates it: a run repeats its stress warnings when the design has
+	// the data (a [build] section, a spark gap).
+	if b, err := Bench(d, d.Build); err == nil {
+		for _, w := range b.Stresses {
+			res.Warnings = append(res.Warnings, "apparatus: "+w)
+		}
+	}
+	if d.Gas.Helium > 0 {
+		res.Summary.Validity = HeliumNote
+	}
 	res.Summary.Derived = append([]string(nil), d.Derived...)
 	res.Summary.Warnings = append([]string(nil), res.Warnings...)
 	v := Verdict(d, res)
@@ -91,6 +101,10 @@ func Run(d *design.Design, s *RunSettings) (*Result, error) {
 	}
 	return res, nil
 }
+
+// HeliumNote is the validity note of a design with helium: the model has no helium kinetics,
+// and builders report the opposite trend to the model's.
+const HeliumNote = "helium is modelled only through the electron energy balance and dilution (no He metastables or Penning ionisation; C(0) quenching by He is levels.upper_quenching_helium, 0 by default for want of a published value): adding helium at fixed N₂ pressure raises this model's output, where builders report lower peak power and longer pulses; treat results with helium as unvalidated"
 
 // opticalArea returns the optical cross-section of the channel [m²]: channel.aperture when
 // given and not larger than the discharge cross-section gap × width, else that cross-section,

@@ -185,23 +185,26 @@ func printBench(w io.Writer, name string, b *design.Built, r *build.Bench) {
 	fmt.Fprintln(w, "\n"+safetyNotice)
 }
 
-// PrintSensitivity writes the five keys that move the output energy most, with the direction
-// to move each for more energy: the `run --sensitivity` table. Rows come ranked from
-// study.Sensitivity; keys that could not be varied are named after the table.
+// PrintSensitivity writes two tables: the five design keys that move the output energy most,
+// with the direction that gives more energy, and the uncertain physical constants the
+// prediction hangs on most (no direction: they are the gas's, not the builder's), each value
+// in the trade's units (rate constants in cm³/s).
 func PrintSensitivity(w io.Writer, rows []study.SensitivityRow) {
-	tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
-	fmt.Fprintln(tw, "key\tvalue\td ln E/d ln x\td ln P/d ln x\tfor more energy")
-	shown := 0
+	var design, constants []study.SensitivityRow
 	var skipped []string
 	for _, r := range rows {
-		if r.Problem != "" {
+		switch {
+		case r.Problem != "":
 			skipped = append(skipped, r.Key+" ("+r.Problem+")")
-			continue
+		case r.Constant:
+			constants = append(constants, r)
+		default:
+			design = append(design, r)
 		}
-		if shown == 5 {
-			continue
-		}
-		shown++
+	}
+	tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
+	fmt.Fprintln(tw, "design key\tvalue\td ln E/d ln x\td ln P/d ln x\tfor more energy")
+	for _, r := range design[:min(5, len(design))] {
 		dir := "raise it"
 		if r.Energy < 0 {
 			dir = "lower it"
@@ -209,15 +212,37 @@ func PrintSensitivity(w io.Writer, rows []study.SensitivityRow) {
 		if math.Abs(r.Energy) < 1e-3 {
 			dir = "no effect"
 		}
-		note := ""
 		if r.OneSided {
-			note = " (one-sided: at its range limit)"
+			dir += " (one-sided: at its range limit)"
 		}
-		fmt.Fprintf(tw, "%s\t%s\t%+.3g\t%+.3g\t%s%s\n", r.Key, units.Format(r.Value, r.Unit), r.Energy, r.PeakPower, dir, note)
+		fmt.Fprintf(tw, "%s\t%s\t%+.3g\t%+.3g\t%s\n", r.Key, tradeValue(r.Value, r.Unit), r.Energy, r.PeakPower, dir)
 	}
 	tw.Flush()
 	fmt.Fprintln(w, "(a sensitivity s means: 1 % more of the key gives about s % more energy)")
+	if len(constants) > 0 {
+		fmt.Fprintln(w, "\nuncertain physical constants the prediction depends on (properties of the gas, not things to change):")
+		tw = tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
+		fmt.Fprintln(tw, "constant\tvalue\td ln E/d ln x\td ln P/d ln x")
+		for _, r := range constants[:min(5, len(constants))] {
+			fmt.Fprintf(tw, "%s\t%s\t%+.3g\t%+.3g\n", r.Key, tradeValue(r.Value, r.Unit), r.Energy, r.PeakPower)
+		}
+		tw.Flush()
+	}
 	if len(skipped) > 0 {
 		fmt.Fprintln(w, "not varied: "+strings.Join(skipped, "; "))
 	}
+}
+
+// tradeValue writes a value in the trade's units: rate constants in cm³/s and densities in
+// cm⁻³ (units.Format would put its prefix on the metre), others with an SI prefix.
+func tradeValue(v float64, unit string) string {
+	switch unit {
+	case "m³/s":
+		return fmt.Sprintf("%.3g cm³/s", v*1e6)
+	case "m⁻³":
+		return fmt.Sprintf("%.3g cm⁻³", v*1e-6)
+	case "Pa m² V⁻² s⁻¹":
+		return fmt.Sprintf("%.3g atm cm² V⁻² s⁻¹", v/units.Atmosphere*1e4)
+	}
+	return units.Format(v, unit)
 }

@@ -6,8 +6,6 @@ import (
 	"os"
 	"path/filepath"
 	"testing"
-
-	"gonum.org/v1/gonum/floats/scalar"
 )
 
 // TestInitExamples writes each example design with `init --example NAME`, checks it is the
@@ -66,8 +64,8 @@ func TestInitExamples(t *testing.T) {
 			if !s.Lases {
 				t.Errorf("%s %v does not lase", c.name, c.set)
 			}
-			if !scalar.EqualWithinAbsOrRel(s.Front, c.energy, 0, 0.5) {
-				t.Errorf("%s %v: output-end energy %.3g J, recorded %.3g J (±50 %%)", c.name, c.set, s.Front, c.energy)
+			if r := s.Front / c.energy; !(r >= 0.5 && r <= 2) {
+				t.Errorf("%s %v: output-end energy %.3g J, recorded %.3g J (within a factor 2)", c.name, c.set, s.Front, c.energy)
 			}
 			if c.rearBelow > 0 && !(s.Rear < c.rearBelow*s.Front) {
 				t.Errorf("%s with a rear mirror: rear end %.3g J, output end %.3g J: want the rear below %g of it", c.name, s.Rear, s.Front, c.rearBelow)

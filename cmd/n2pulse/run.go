@@ -90,7 +90,7 @@ func runRun(args []string, stdout, stderr io.Writer) error {
 	stats := fs.Bool("stats", false, "print solver statistics")
 	memLimit := fs.String("memory-limit", "", `largest memory the run's arrays may take, e.g. "8 GB" (default: half the machine's memory)`)
 	detector := fs.String("detector", "", `time constant of the detector for the FWHM, e.g. "300 ps" (default: an ideal detector)`)
-	sensitivity := fs.Bool("sensitivity", false, "rank the design keys by d ln E / d ln x (re-runs the design twice per key)")
+	sensitivity := fs.Bool("sensitivity", false, "rank the design keys, and apart from them the uncertain physical constants, by d ln E / d ln x (re-runs the design twice per key)")
 	if help, err := parseFlags(fs, args); help || err != nil {
 		return err
 	}
@@ -194,6 +194,9 @@ func printSummary(w io.Writer, d *design.Design, r *kinetics.Result) {
 	row("self-termination", fmt.Sprintf("%s at %s", s.TerminationCause, units.Format(s.TerminationTime, "s")))
 	row("discharge regime", regimeLine(s))
 	row("verdict", s.Verdict)
+	if s.Validity != "" {
+		row("validity", s.Validity)
+	}
 	if s.Advice != "" {
 		row("what to change", s.Advice)
 	}

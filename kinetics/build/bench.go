@@ -111,6 +111,10 @@ type Bench struct {
 	StoredEnergy  float64 `json:"stored_energy_J"`  // ½(C₁+C₂)V₀² (Blumlein) or ½C_sV₀² (transfer) [J]
 
 	Warnings []string `json:"warnings"`
+	// Stresses are the warnings that a run of the design repeats: the apparatus itself at risk
+	// or misbehaving (a dielectric over-stressed or with little margin, a channel or spark gap
+	// that self-fires, plates that act as a transmission line). They are also in Warnings.
+	Stresses []string `json:"stresses,omitempty"`
 }
 
 // Evaluate derives the circuit from the build and rates the stresses; an error means the build
@@ -239,11 +243,11 @@ func (b *Bench) rateDielectric(s Spec) {
 		b.DielectricMargin = b.Dielectric.Strength / b.DielectricField
 		switch {
 		case b.DielectricMargin < 1:
-			b.warnf("dielectric over-stressed: %s across %s of %s is %s, above its strength %s; it will puncture",
+			b.stressf("dielectric over-stressed: %s across %s of %s is %s, above its strength %s; it will puncture",
 				units.Format(b.DielectricVoltage, "V"), units.Format(s.DielectricThickness, "m"), b.Dielectric.Name,
 				units.Format(b.DielectricField, "V/m"), units.Format(b.Dielectric.Strength, "V/m"))
 		case b.DielectricMargin < 2:
-			b.warnf("dielectric margin only %.2g: %s against a short-time strength of %s; pulsed duty wants a factor 2 or more (common practice)",
+			b.stressf("dielectric margin only %.2g: %s against a short-time strength of %s; pulsed duty wants a factor 2 or more (common practice)",
 				b.DielectricMargin, units.Format(b.DielectricField, "V/m"), units.Format(b.Dielectric.Strength, "V/m"))
 		}
 	}
@@ -282,7 +286,7 @@ func (b *Bench) rateChannel(s Spec, c Conditions) error {
 		if c.Transfer {
 			b.warnf("no shunt across the peaking capacitor: the storage capacitor has no charging path except through the channel")
 		} else if b.ChannelBreakdown > 0 && b.ChannelCharging >= b.ChannelBreakdown {
-			b.warnf("channel self-fires before the switch: without a shunt it sees %s while charging, above its static breakdown %s; add a shunt inductor or resistor across it",
+			b.stressf("channel self-fires before the switch: without a shunt it sees %s while charging, above its static breakdown %s; add a shunt inductor or resistor across it",
 				units.Format(b.ChannelCharging, "V"), units.Format(b.ChannelBreakdown, "V"))
 		} else {
 			b.warnf("no shunt across the channel: C₂ charges only through the channel gap (it sees %s while charging); add a shunt inductor or resistor",
@@ -321,7 +325,7 @@ func (b *Bench) rateSwitchGap(s Spec, c Conditions) error {
 		if vb, err := sg.Breakdown(ReducedPD(c.SwitchPressure, b.SwitchGap, 293.15)); err == nil {
 			b.SwitchBreakdown = vb
 			if vb < v0 {
-				b.warnf("the %s spark gap breaks down at %s (static, %s gas), below the charge voltage %s: self-breaking, the laser fires at about %s (a pressurised gap holds more)",
+				b.stressf("the %s spark gap breaks down at %s (static, %s gas), below the charge voltage %s: self-breaking, the laser fires at about %s (a pressurised gap holds more)",
 					units.Format(b.SwitchGap, "m"), units.Format(vb, "V"), sg.Name, units.Format(v0, "V"), units.Format(vb, "V"))
 			}
 		}
@@ -342,11 +346,17 @@ func (b *Bench) rateTiming() {
 			units.Format(b.CurrentRise, "s"), units.Format(b.UpperLifetime, "s"))
 	}
 	if b.SwitchLine != nil && b.VoltageRise < 4*b.SwitchLine.TransitTime {
-		b.warnf("the switch loop rings in %s, under 4 transit times of its plates (%s each way): they act as a transmission line and the lumped values are rough",
+		b.stressf("the switch loop rings in %s, under 4 transit times of its plates (%s each way): they act as a transmission line and the lumped values are rough",
 			units.Format(b.VoltageRise, "s"), units.Format(b.SwitchLine.TransitTime, "s"))
 	}
 }
 
 func (b *Bench) warnf(format string, a ...any) {
 	b.Warnings = append(b.Warnings, fmt.Sprintf(format, a...))
+}
+
+// stressf records a warning that is also a stress of the apparatus (see Stresses).
+func (b *Bench) stressf(format string, a ...any) {
+	b.warnf(format, a...)
+	b.Stresses = append(b.Stresses, b.Warnings[len(b.Warnings)-1])
 }

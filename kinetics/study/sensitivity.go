@@ -20,7 +20,18 @@ type SensitivityRow struct {
 	Energy    float64 `json:"d_ln_energy"`     // d ln E_total / d ln x
 	PeakPower float64 `json:"d_ln_peak_power"` // d ln P_peak / d ln x
 	OneSided  bool    `json:"one_sided"`       // a range limit forced a one-sided difference
-	Problem   string  `json:"problem,omitempty"`
+	// Constant marks an uncertain physical constant (see PhysicalConstant): its sensitivity
+	// says how much the prediction hangs on it, not what to build differently.
+	Constant bool   `json:"physical_constant"`
+	Problem  string `json:"problem,omitempty"`
+}
+
+// PhysicalConstant reports whether a design key is an uncertain constant of nature (the level
+// kinetics, spectroscopic overrides, electron–ion recombination, the spark law's constant)
+// rather than something a builder chooses: the gas's own properties are not advice.
+func PhysicalConstant(key string) bool {
+	return strings.HasPrefix(key, "levels.") || strings.HasPrefix(key, "spectroscopy.") ||
+		key == "discharge.recombination" || key == "switch.spark_constant"
 }
 
 // SensitivityKeys returns the numeric keys of d whose sensitivity can be taken: non-zero and
@@ -99,7 +110,7 @@ func Sensitivity(d *design.Design, keys []string, step float64) ([]SensitivityRo
 	for i, k := range keys {
 		x, _ := d.Get(k)
 		unit, _ := design.KeyUnit(k)
-		rows[i] = SensitivityRow{Key: k, Value: x, Unit: unit}
+		rows[i] = SensitivityRow{Key: k, Value: x, Unit: unit, Constant: PhysicalConstant(k)}
 		if x == 0 || math.IsInf(x, 0) {
 			rows[i].Problem = "value is 0 or infinite: ln x undefined"
 			continue
