@@ -32,6 +32,13 @@ const highFieldTd = 1000.0
 // mirrorless rule (common practice, no source).
 const buildUp = ASEThreshold
 
+// nearThreshold bounds the rule's figure (net gain-length or its mirror equivalent) within
+// which a shot is near the lasing threshold: from a quarter of ASEThreshold to 1.5 × it, below
+// where amplified spontaneous emission saturates (gL ≈ 15–20; common practice, no source).
+// There the output grows as e^(gL), so a small change of a design value moves it by orders of
+// magnitude.
+var nearThreshold = [2]float64{ASEThreshold / 4, 1.5 * ASEThreshold}
+
 // Judgement is the verdict on one shot: whether it lases and, when it does not, the limiting
 // cause and what to change.
 type Judgement struct {
@@ -97,6 +104,7 @@ func Verdict(d *design.Design, r *Result) Judgement {
 		} else {
 			j.Summary = fmt.Sprintf("lases (%s): %s ≥ %.0f", rule, text, ASEThreshold)
 		}
+		j.Summary += thresholdNote(s, fig)
 		return j
 	}
 	j.Cause, j.Advice = limitingCause(d, r, j)
@@ -104,7 +112,21 @@ func Verdict(d *design.Design, r *Result) Judgement {
 	if rule == "open channel" {
 		j.Summary = fmt.Sprintf("does not lase: net gain-length %.3g < %.0f; %s", j.GainLength, ASEThreshold, j.Cause)
 	}
+	j.Summary += thresholdNote(s, fig)
 	return j
+}
+
+// thresholdNote is the note of a shot near the lasing threshold (see nearThreshold), or "".
+// Such a shot sits on a cliff: past the best gap of a design, for one, the peak E/N falls
+// toward the breakdown region, where the ionisation rate that drives the avalanche rises
+// steeply with E/N (about as (E/N)⁵ near 220 Td in N₂, the project's swarm table), so the
+// electron density, the gain and, through e^(gL), the output all collapse within a small step.
+func thresholdNote(s Summary, figure float64) string {
+	if figure < nearThreshold[0] || figure >= nearThreshold[1] || s.PeakElectronDensity <= 0 {
+		return ""
+	}
+	return fmt.Sprintf("; near threshold: the output grows as e^(gL) here and the avalanche steeply with E/N (peak %.0f Td), so a small change of circuit.charge_voltage, channel.gap or gas.pressure moves the output by orders of magnitude",
+		s.PeakReducedField)
 }
 
 // fieldAdvice is the advice for too little E/N.

@@ -6,6 +6,7 @@ import (
 	"sort"
 	"sync"
 
+	"n2pulse/data"
 	"n2pulse/units"
 )
 
@@ -58,54 +59,88 @@ const (
 const gainJmax = 150
 
 var (
-	cacheOnce sync.Once
-	cacheErr  error
-	cache     struct {
-		model    *Model
-		lines    []Line // (0,0) lines
-		a00, tau float64
-		fC, fB   float64
-		fC1      float64
+	modelOnce sync.Once
+	modelErr  error
+	model     struct {
+		m     *Model
+		lines []Line // (0,0) lines to gainJmax
 	}
 )
 
-// defaultModel returns the model of the embedded constants on DefaultGrid, built once.
+// defaultModel returns the model of the embedded constants on DefaultGrid, built once. Solving
+// the three radial problems is the costly part of the package (tens of milliseconds), so the
+// laser path (Laser) does not call it unless the shipped vibronic table is stale.
 func defaultModel() (*Model, error) {
-	cacheOnce.Do(func() {
+	modelOnce.Do(func() {
 		c, err := Default()
 		if err != nil {
-			cacheErr = err
+			modelErr = err
 			return
 		}
 		m, err := NewModel(c, DefaultGrid, RKRCurve)
 		if err != nil {
-			cacheErr = err
+			modelErr = err
 			return
 		}
-		cache.model = m
-		if cache.lines, cacheErr = m.Lines(0, 0, gainJmax); cacheErr != nil {
+		if model.lines, modelErr = m.Lines(0, 0, gainJmax); modelErr != nil {
 			return
 		}
-		if cache.a00, cacheErr = m.EinsteinA(0, 0); cacheErr != nil {
-			return
-		}
-		if cache.tau, cacheErr = m.Lifetime(0); cacheErr != nil {
-			return
-		}
-		if cache.fC, cacheErr = m.ExcitationShare("C", 0); cacheErr != nil {
-			return
-		}
-		if cache.fC1, cacheErr = m.ExcitationShare("C", 1); cacheErr != nil {
-			return
-		}
-		cache.fB, cacheErr = m.ExcitationShare("B", 0)
+		model.m = m
 	})
-	return cache.model, cacheErr
+	return model.m, modelErr
 }
 
 // DefaultModel returns the model of the embedded constants on DefaultGrid (built once and
 // shared; do not modify it).
 func DefaultModel() (*Model, error) { return defaultModel() }
+
+// laserTables is what Laser needs besides p and T.
+type laserTables struct {
+	c     *Constants
+	vib   vibronic
+	lines []Line // (0,0) lines to gainJmax
+}
+
+var (
+	laserOnce sync.Once
+	laserErr  error
+	laser     laserTables
+)
+
+// laserData loads the laser tables once (loadLaser).
+func laserData() error {
+	laserOnce.Do(func() { laser, laserErr = loadLaser() })
+	return laserErr
+}
+
+// loadLaser reads the embedded constants, takes the wave-function quantities of the (0,0) band
+// from the shipped table data/n2-vibronic.csv (or, if that table was made from other constants
+// or another grid, from a fresh model) and lists the band's lines.
+func loadLaser() (laserTables, error) {
+	text := data.Spectroscopy()
+	c, err := ParseConstants(text)
+	if err != nil {
+		return laserTables{}, err
+	}
+	vib, err := parseVibronic(data.Vibronic())
+	if err != nil {
+		return laserTables{}, err
+	}
+	if want := vibronicRecipe(text, DefaultGrid, RKRCurve); vib.recipe != want {
+		m, err := defaultModel()
+		if err != nil {
+			return laserTables{}, err
+		}
+		if vib, err = computeVibronic(m, want); err != nil {
+			return laserTables{}, err
+		}
+	}
+	lines, err := bandLines(c, vib.a00, 0, 0, gainJmax)
+	if err != nil {
+		return laserTables{}, err
+	}
+	return laserTables{c: c, vib: vib, lines: lines}, nil
+}
 
 func checkConditions(p, T float64) error {
 	if !(p >= MinPressure && p <= MaxPressure) {
@@ -124,8 +159,8 @@ func (m *Model) GainLines(vu, vl int, p, T float64) ([]GainLine, error) {
 		return nil, err
 	}
 	var lines []Line
-	if m == cache.model && vu == 0 && vl == 0 {
-		lines = cache.lines
+	if m == model.m && m != nil && vu == 0 && vl == 0 {
+		lines = model.lines
 	} else {
 		var err error
 		if lines, err = m.Lines(vu, vl, gainJmax); err != nil {
@@ -136,7 +171,7 @@ func (m *Model) GainLines(vu, vl int, p, T float64) ([]GainLine, error) {
 }
 
 func (m *Model) gainLines(lines []Line, vu, vl int, p, T float64) []GainLine {
-	gc := m.newGainContext(vu, vl, p, T)
+	gc := newGainContext(m.Constants, vu, vl, p, T)
 	out := make([]GainLine, len(lines))
 	for i, l := range lines {
 		out[i] = gc.line(l)
@@ -152,13 +187,13 @@ type gainContext struct {
 	fL, T  float64
 }
 
-func (m *Model) newGainContext(vu, vl int, p, T float64) gainContext {
-	up, lo := m.Constants.States["C"], m.Constants.States["B"]
+func newGainContext(c *Constants, vu, vl int, p, T float64) gainContext {
+	up, lo := c.States["C"], c.States["B"]
 	return gainContext{
 		sC:   RotationalShares(up, vu, T, gainJmax+1),
 		sB:   RotationalShares(lo, vl, T, gainJmax+1),
 		spin: float64(up.Multiplicity),
-		fL:   m.Constants.CollisionFWHM(p, T),
+		fL:   c.CollisionFWHM(p, T),
 		T:    T,
 	}
 }
@@ -185,40 +220,41 @@ func (gc gainContext) line(l Line) GainLine {
 // Laser returns the spectroscopic parameters of the (0,0) band at pressure p [Pa] and
 // temperature T [K] for the laser model: the line with the largest effective cross section
 // (small-signal gain per C(0) molecule) is taken as the lasing line. Everything that does not
-// depend on p and T is computed once.
+// depend on p and T is computed once; the wave-function quantities (band A, lifetime, excitation
+// shares) come from the shipped table data/n2-vibronic.csv, which TestShippedVibronic keeps equal
+// bit for bit to a fresh solve.
 func Laser(pressure, temperature float64) (LaserParameters, error) {
 	if err := checkConditions(pressure, temperature); err != nil {
 		return LaserParameters{}, err
 	}
-	m, err := defaultModel()
-	if err != nil {
+	if err := laserData(); err != nil {
 		return LaserParameters{}, err
 	}
-	best := m.strongest(pressure, temperature)
+	best := strongest(laser.c, laser.lines, pressure, temperature)
 	return LaserParameters{
 		VacuumWavelength: best.VacuumWavelength,
 		AirWavelength:    best.AirWavelength,
 		PhotonEnergy:     units.Planck * units.SpeedOfLight / best.VacuumWavelength,
 		CrossSection:     best.Effective,
 		DegeneracyRatio:  best.EffectiveRatio,
-		EinsteinA00:      cache.a00,
-		UpperLifetime:    cache.tau,
-		UpperShare:       cache.fC,
-		UpperShare1:      cache.fC1,
-		LowerShare:       cache.fB,
-		UpperEnergy:      (m.Constants.States["C"].Term(0, 0) - m.Constants.States["X"].Term(0, 0)) * units.Wavenumber,
+		EinsteinA00:      laser.vib.a00,
+		UpperLifetime:    laser.vib.tau,
+		UpperShare:       laser.vib.fC,
+		UpperShare1:      laser.vib.fC1,
+		LowerShare:       laser.vib.fB,
+		UpperEnergy:      (laser.c.States["C"].Term(0, 0) - laser.c.States["X"].Term(0, 0)) * units.Wavenumber,
 		LineWidth:        best.FWHM,
 	}, nil
 }
 
-// strongest returns the (0,0) line of largest effective cross section without building and
-// sorting the whole table: the effective cross section is ranked on A·s_C(J′), which orders the
+// strongest returns the line of largest effective cross section among lines (the (0,0) band of
+// constants c) without building and sorting the whole table: the effective cross section is ranked on A·s_C(J′), which orders the
 // lines as σ_eff does up to the 1e−4 spread of λ² and the Doppler width across the band, and
 // the leading candidates are then compared exactly.
-func (m *Model) strongest(p, T float64) GainLine {
-	gc := m.newGainContext(0, 0, p, T)
+func strongest(c *Constants, lines []Line, p, T float64) GainLine {
+	gc := newGainContext(c, 0, 0, p, T)
 	var best GainLine
-	for _, l := range cache.lines {
+	for _, l := range lines {
 		if l.Branch == Q { // Q lines carry S ∝ 1/J and never lead
 			continue
 		}

@@ -68,11 +68,17 @@ func (m *Model) Lines(vu, vl, jmax int) ([]Line, error) {
 	if jmax < 1 || jmax > 400 {
 		return nil, fmt.Errorf("spectro: jmax = %d, want 1…400", jmax)
 	}
-	up, lo := m.Constants.States["C"], m.Constants.States["B"]
 	aBand, err := m.EinsteinA(vu, vl)
 	if err != nil {
 		return nil, err
 	}
+	return bandLines(m.Constants, aBand, vu, vl, jmax)
+}
+
+// bandLines returns the P, Q and R lines of the C(vu) → B(vl) band of constants c with J″ ≤ jmax
+// and band emission rate aBand [s⁻¹], in order of increasing wavenumber.
+func bandLines(c *Constants, aBand float64, vu, vl, jmax int) ([]Line, error) {
+	up, lo := c.States["C"], c.States["B"]
 	nu0 := BandOrigin(up, vu, lo, vl)
 	var out []Line
 	for _, b := range []Branch{P, Q, R} {
