@@ -133,12 +133,19 @@ func (s *LengthScan) Run(ctx context.Context) (*LengthResult, error) {
 // mark finds the useful length and the transit estimate of a curve from its output-end energy.
 func (c *LengthCurve) mark() {
 	var L, E, tau []float64
+	cut := 0
 	for _, p := range c.Points {
 		if p.Err == nil {
 			L, E, tau = append(L, p.Length), append(E, p.Summary.EnergyFront), append(tau, p.Summary.InversionDuration)
+			if p.Summary.Truncated {
+				cut++
+			}
 		}
 	}
 	c.Useful, c.Rule = UsefulLength(L, E)
+	if cut > 0 {
+		c.Rule += fmt.Sprintf("; %d of %d lengths truncated (their energies cut short), so the useful length is uncertain", cut, len(L))
+	}
 	c.Transit = math.NaN()
 	if len(L) == 0 {
 		return

@@ -2,6 +2,7 @@ package study
 
 import (
 	"context"
+	"strings"
 	"testing"
 
 	"n2pulse/kinetics"
@@ -54,5 +55,8 @@ func TestTruncatedPointsNeverOK(t *testing.T) {
 	}
 	if got := lt.Rows[0][lt.Column(StatusColumn)]; got != StatusOK {
 		t.Errorf("length table, 10 cm: status %q, want ok", got)
+	}
+	if rule := lr.Curves[0].Rule; !strings.Contains(rule, "1 of 3 lengths truncated") {
+		t.Errorf("useful-length rule %q: want it to say one length was truncated", rule)
 	}
 }
