@@ -3,6 +3,8 @@ package main
 import (
 	"bytes"
 	"fmt"
+	"os"
+	"path/filepath"
 	"strings"
 	"testing"
 
@@ -53,5 +55,28 @@ func TestRunMemoryLimitFlag(t *testing.T) {
 	errb.Reset()
 	if code := run([]string{"run", "--memory-limit", "lots"}, &out, &errb); code != 2 {
 		t.Errorf("--memory-limit lots: exit %d, want 2 (%s)", code, errb.String())
+	}
+}
+
+// TestSweepMemoryLimitFlag (issue 11 item 1): `sweep --memory-limit` shares the limit among the
+// workers; a point above its share is a failed row naming the memory, and the sweep finishes
+// (before, such a point killed the process on every --resume).
+func TestSweepMemoryLimitFlag(t *testing.T) {
+	t.Parallel()
+	dir := t.TempDir()
+	var out, errb bytes.Buffer
+	code := run([]string{"sweep", "--set", "channel.length=1 cm", "--vary", "numerics.end_time=30ns:10us:2",
+		"--memory-limit", "1 GB", "--workers", "2", "--out", dir, "--quiet"}, &out, &errb)
+	if code != 0 {
+		t.Fatalf("sweep: exit %d: %s", code, errb.String())
+	}
+	b, err := os.ReadFile(filepath.Join(dir, "results.csv"))
+	if err != nil {
+		t.Fatal(err)
+	}
+	lines := strings.Split(strings.TrimSpace(string(b)), "\n")
+	if len(lines) != 3 || !strings.HasSuffix(lines[1], ",ok") || !strings.Contains(lines[2], "failed: ") ||
+		!strings.Contains(lines[2], "memory") || !strings.Contains(lines[2], "477 MiB") {
+		t.Errorf("results.csv:\n%s\nwant the 30 ns point ok and the 10 µs point failed on its 477 MiB share (1 GB / 2)", b)
 	}
 }

@@ -16,6 +16,8 @@ import (
 	"text/tabwriter"
 
 	"n2pulse/internal/atomicfile"
+	"n2pulse/internal/sysmem"
+	"n2pulse/kinetics"
 	"n2pulse/kinetics/study"
 	"n2pulse/plots"
 	"n2pulse/report"
@@ -36,6 +38,7 @@ func runSweep(args []string, stdout, stderr io.Writer) error {
 	out := fs.String("out", "sweep", "directory for results.csv, the journal, the figures and report.html")
 	sets := fs.StringArray("set", nil, `override a design key before sweeping, e.g. --set channel.length="40 cm" (repeatable)`)
 	workers := fs.Int("workers", runtime.NumCPU(), "points computed at once")
+	memLimit := fs.String("memory-limit", "", `largest memory all points computed at once may take, e.g. "8 GB" (default: half the machine's memory); each point gets its share`)
 	resume := fs.Bool("resume", false, "finish the sweep already started in --out, computing only the missing points")
 	shardText := fs.String("shard", "", "compute only shard K of N (point i belongs to shard i mod N + 1); default from SLURM_ARRAY_TASK_ID when set")
 	quiet := fs.Bool("quiet", false, "no progress line")
@@ -54,6 +57,13 @@ func runSweep(args []string, stdout, stderr io.Writer) error {
 		return err
 	}
 	s := &study.Sweep{Design: d, Workers: *workers, Dir: *out, Resume: *resume}
+	limit := kinetics.DefaultMemoryLimit
+	if *memLimit != "" {
+		if limit, err = sysmem.ParseBytes(*memLimit); err != nil {
+			return usagef("sweep: --memory-limit: %v", err)
+		}
+	}
+	s.Runner = study.MemoryRunner(limit / int64(*workers))
 	for _, v := range *vary {
 		a, err := study.ParseAxis(v, d)
 		if err != nil {

@@ -2,7 +2,9 @@
 // circuit, switch, discharge, level constants, optics, spectroscopic overrides, numerics and
 // the optional [build] section of plates, dielectric and rails), its defaults with their
 // sources, the one registry of dotted keys ("gas.pressure", "build.rail_height") with their
-// units and allowed ranges, and the reader of design files (TOML).
+// units and allowed ranges, and the reader of design files (TOML). Spreads lists the
+// constants whose default has a published spread or an estimate's range, with that range, its
+// distribution (uniform or log-uniform) and its source: what an uncertainty study samples.
 //
 // Everything here is text and numbers: a key is parsed, converted to SI once, checked against
 // its range and stored. The physics that uses a design (the shot, the effective upper-level

@@ -66,6 +66,12 @@
 // The excitation shares of electron impact from X(v=0) are taken in the Franck–Condon
 // approximation: f_C = q(X0 → C0), f_B = q(X0 → B0).
 //
+// Solving the three radial problems costs about 0.1 s of CPU, so the quantities the laser model
+// needs from them (A(0,0), τ(C,v=0), f_C for v = 0 and 1, f_B) ship as this package's own output
+// in data/n2-vibronic.csv, with a recipe naming the constants file (SHA-256) and the grid they
+// came from; Laser reads that table and solves afresh only when the recipe does not match.
+// TestShippedVibronic keeps the table equal bit for bit to a fresh solve.
+//
 // # Line shapes and cross sections
 //
 //	Doppler FWHM   Δν_D = (ν₀/c)·√(8 k_B T ln2 / m)
