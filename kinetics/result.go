@@ -53,7 +53,7 @@ type Summary struct {
 	Regime                  []RegimeCheck `json:"regime_checks"`             // the shot against each limit of a uniform glow
 	EnergyBalanceResidual   float64       `json:"energy_balance_residual"`   // |stored − (left + dissipated)| / stored
 	PhotonBalanceResidual   float64       `json:"photon_balance_residual"`   // |created − (emitted + lost + left)| / created
-	Lases                   bool          `json:"lases"`                     // net gain-length at or above the threshold of amplified spontaneous emission (see Verdict)
+	Lases                   bool          `json:"lases"`                     // the lasing threshold of the channel's optics is reached: open channel gL ≥ 10, one mirror 2gL + ln R ≥ 10, two mirrors building up e^10 within the gain (see Verdict)
 	Verdict                 string        `json:"verdict"`                   // one line: lases, or the limiting cause
 	Advice                  string        `json:"advice,omitempty"`          // what to change when it does not lase, naming design keys
 	StimulatedRatio         float64       `json:"stimulated_to_spontaneous"` // photons from stimulated emission per spontaneous seed photon

@@ -1,0 +1,72 @@
+package study
+
+import (
+	"fmt"
+	"math/rand/v2"
+
+	"n2pulse/kinetics/design"
+)
+
+// MaxSamples is the largest number of samples LatinHypercube and UncertainDesigns accept.
+const MaxSamples = 100000
+
+// LatinHypercube returns n points of the unit cube [0, 1)^k in Latin-hypercube order: along
+// every coordinate the n strata [i/n, (i+1)/n) hold exactly one point each, placed uniformly
+// inside its stratum, and the strata are paired across coordinates by independent random
+// permutations (McKay, Beckman & Conover, Technometrics 21, 239 (1979), from memory). The points
+// depend only on n, k and seed (a PCG stream), never on how many workers later use them.
+func LatinHypercube(n, k int, seed uint64) ([][]float64, error) {
+	if n < 1 || n > MaxSamples {
+		return nil, fmt.Errorf("study: %d samples, want 1…%d", n, MaxSamples)
+	}
+	if k < 1 || k > 1000 {
+		return nil, fmt.Errorf("study: %d dimensions, want 1…1000", k)
+	}
+	rng := rand.New(rand.NewPCG(seed, 0x6c6873)) // second word fixed: one stream per seed
+	pts := make([][]float64, n)
+	flat := make([]float64, n*k)
+	for i := range pts {
+		pts[i] = flat[i*k : (i+1)*k]
+	}
+	for j := 0; j < k; j++ {
+		perm := rng.Perm(n)
+		for i := range pts {
+			pts[i][j] = (float64(perm[i]) + rng.Float64()) / float64(n)
+		}
+	}
+	return pts, nil
+}
+
+// UncertainDesigns returns n copies of base in which every constant of design.Spreads is drawn
+// from its range and distribution by a Latin hypercube of the given seed, set through
+// design.Design.Set as a user would set it. keys are the sampled keys (in design.Spreads order)
+// and values[i][j] is the value of keys[j] in designs[i] [SI]. base is not changed.
+func UncertainDesigns(base *design.Design, n int, seed uint64) (designs []*design.Design, keys []string, values [][]float64, err error) {
+	spreads := design.Spreads()
+	u, err := LatinHypercube(n, len(spreads), seed)
+	if err != nil {
+		return nil, nil, nil, err
+	}
+	keys = make([]string, len(spreads))
+	for j, s := range spreads {
+		keys[j] = s.Key
+	}
+	designs = make([]*design.Design, n)
+	values = make([][]float64, n)
+	for i := range designs {
+		d := base.Clone()
+		values[i] = make([]float64, len(spreads))
+		for j, s := range spreads {
+			x, err := s.Quantile(u[i][j])
+			if err != nil {
+				return nil, nil, nil, err
+			}
+			if err := d.Set(s.Key, siText(s.Key, x)); err != nil {
+				return nil, nil, nil, fmt.Errorf("study: sample %d: %w", i+1, err)
+			}
+			values[i][j] = x
+		}
+		designs[i] = d
+	}
+	return designs, keys, values, nil
+}

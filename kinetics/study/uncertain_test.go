@@ -1,0 +1,109 @@
+package study
+
+import (
+	"math"
+	"reflect"
+	"testing"
+
+	"n2pulse/kinetics/design"
+)
+
+// strataArePermutation reports whether the stratum indices ⌊x·n⌋ of xs are 0…n−1 once each.
+func strataArePermutation(xs []float64) bool {
+	n := len(xs)
+	seen := make([]bool, n)
+	for _, x := range xs {
+		i := int(math.Floor(x * float64(n)))
+		if i < 0 || i >= n || seen[i] {
+			return false
+		}
+		seen[i] = true
+	}
+	return true
+}
+
+// TestLatinHypercube checks the defining property (every coordinate hits each of its n strata
+// once), that the points stay in [0, 1), that a coordinate's mean lies within its exact bounds
+// [(n−1)/(2n), (n+1)/(2n)) and that the same seed gives the same points, another seed others.
+func TestLatinHypercube(t *testing.T) {
+	t.Parallel()
+	const n, k = 200, 5
+	pts, err := LatinHypercube(n, k, 7)
+	if err != nil {
+		t.Fatal(err)
+	}
+	for j := 0; j < k; j++ {
+		col := make([]float64, n)
+		mean := 0.0
+		for i := range pts {
+			col[i] = pts[i][j]
+			mean += col[i] / n
+		}
+		if !strataArePermutation(col) {
+			t.Errorf("coordinate %d: strata not hit once each", j)
+		}
+		if lo, hi := float64(n-1)/(2*n), float64(n+1)/(2*n); mean < lo || mean >= hi {
+			t.Errorf("coordinate %d: mean %g outside [%g, %g)", j, mean, lo, hi)
+		}
+	}
+	again, _ := LatinHypercube(n, k, 7)
+	if !reflect.DeepEqual(pts, again) {
+		t.Error("same seed, different points")
+	}
+	other, _ := LatinHypercube(n, k, 8)
+	if reflect.DeepEqual(pts, other) {
+		t.Error("seeds 7 and 8 give the same points")
+	}
+	for _, c := range [][2]int{{0, 3}, {MaxSamples + 1, 3}, {10, 0}} {
+		if _, err := LatinHypercube(c[0], c[1], 1); err == nil {
+			t.Errorf("LatinHypercube(%d, %d): no error", c[0], c[1])
+		}
+	}
+}
+
+// TestUncertainDesigns checks that every sampled constant lies in its spread, is stratified in
+// the spread's own scale (linear or logarithmic) as a Latin hypercube must be, reads back from the
+// design exactly, and that the base design is left alone.
+func TestUncertainDesigns(t *testing.T) {
+	t.Parallel()
+	base := design.ExampleDesign()
+	before := base.String()
+	const n = 40
+	ds, keys, vals, err := UncertainDesigns(base, n, 3)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if base.String() != before {
+		t.Error("base design changed")
+	}
+	spreads := design.Spreads()
+	if len(ds) != n || len(keys) != len(spreads) {
+		t.Fatalf("%d designs, %d keys; want %d, %d", len(ds), len(keys), n, len(spreads))
+	}
+	for j, s := range spreads {
+		if keys[j] != s.Key {
+			t.Errorf("key %d = %s, want %s", j, keys[j], s.Key)
+		}
+		u := make([]float64, n)
+		for i, d := range ds {
+			x := vals[i][j]
+			if got, err := d.Get(s.Key); err != nil || got != x {
+				t.Errorf("sample %d %s: design holds %g (%v), want %g", i, s.Key, got, err, x)
+			}
+			if x < s.Low || x > s.High {
+				t.Errorf("sample %d %s = %g outside %g…%g", i, s.Key, x, s.Low, s.High)
+			}
+			if s.Distribution == design.LogUniform {
+				u[i] = math.Log(x/s.Low) / math.Log(s.High/s.Low)
+			} else {
+				u[i] = (x - s.Low) / (s.High - s.Low)
+			}
+		}
+		if !strataArePermutation(u) {
+			t.Errorf("%s: samples not one per stratum", s.Key)
+		}
+	}
+	if _, _, _, err := UncertainDesigns(base, 0, 1); err == nil {
+		t.Error("0 samples: no error")
+	}
+}
