@@ -78,6 +78,7 @@ func TestManifoldDefaults(t *testing.T) {
 func TestManifoldConservation(t *testing.T) {
 	t.Parallel()
 	d := design.ExampleDesign()
+	d.Levels.ManifoldShare = 0
 	base, err := Run(d, &RunSettings{Light: true})
 	if err != nil {
 		t.Fatal(err)
@@ -100,6 +101,7 @@ func TestManifoldConservation(t *testing.T) {
 		t.Errorf("feeding B(0) raised the pulse energy: %g → %g J", base.Summary.EnergyTotal, s.EnergyTotal)
 	}
 	d = design.ExampleDesign()
+	d.Levels.ManifoldShare = 0
 	d.Levels.UpperRelaxationNitrogen = 0
 	off, err := Run(d, &RunSettings{Light: true})
 	if err != nil {

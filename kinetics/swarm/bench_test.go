@@ -10,7 +10,7 @@ import (
 // BenchmarkTableN2 solves the 64-point N₂ table (10–3000 Td, 200 cells) and reports the time
 // per E/N point.
 func BenchmarkTableN2(b *testing.B) {
-	mix, _ := Mixture(1, 0, 0)
+	mix, _ := SetMixture(SetOriginal, 1, 0, 0)
 	b.ReportAllocs()
 	start := time.Now()
 	for i := 0; i < b.N; i++ {
@@ -23,7 +23,7 @@ func BenchmarkTableN2(b *testing.B) {
 
 // BenchmarkAt is the lookup in the laser model's hot loop.
 func BenchmarkAt(b *testing.B) {
-	t, err := Builtin("n2")
+	t, err := BuiltinSet("n2", SetOriginal)
 	if err != nil {
 		b.Fatal(err)
 	}

@@ -10,22 +10,22 @@ import (
 
 func TestForMixture(t *testing.T) {
 	dir := t.TempDir()
-	n2, err := ForMixture(1, 0, 0, dir)
+	n2, err := ForMixtureSet(SetOriginal, 1, 0, 0, dir)
 	if err != nil {
 		t.Fatal(err)
 	}
-	if b, _ := Builtin("n2"); b != n2 {
+	if b, _ := BuiltinSet("n2", SetOriginal); b != n2 {
 		t.Error("pure N2 did not return the built-in table")
 	}
-	air, err := ForMixture(0.7905, 0.2095, 0, dir)
+	air, err := ForMixtureSet(SetOriginal, 0.7905, 0.2095, 0, dir)
 	if err != nil {
 		t.Fatal(err)
 	}
-	if b, _ := Builtin("air"); b != air {
+	if b, _ := BuiltinSet("air", SetOriginal); b != air {
 		t.Error("air within 1e-3 did not return the built-in table")
 	}
 	// a mixture with helium is solved and cached
-	m, err := ForMixture(0.5, 0, 0.5, dir)
+	m, err := ForMixtureSet(SetOriginal, 0.5, 0, 0.5, dir)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -33,7 +33,7 @@ func TestForMixture(t *testing.T) {
 	if len(files) != 1 {
 		t.Fatalf("cache files %v", files)
 	}
-	again, err := ForMixture(0.5, 0, 0.5, dir)
+	again, err := ForMixtureSet(SetOriginal, 0.5, 0, 0.5, dir)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -50,10 +50,10 @@ func TestForMixture(t *testing.T) {
 	if err := os.WriteFile(files[0], []byte("garbage"), 0o644); err != nil {
 		t.Fatal(err)
 	}
-	if _, err := ForMixture(0.5, 0, 0.5, dir); err != nil {
+	if _, err := ForMixtureSet(SetOriginal, 0.5, 0, 0.5, dir); err != nil {
 		t.Fatal(err)
 	}
-	if _, err := ForMixture(0.5, 0.2, 0.5, dir); err == nil {
+	if _, err := ForMixtureSet(SetOriginal, 0.5, 0.2, 0.5, dir); err == nil {
 		t.Error("fractions summing to 1.2 accepted")
 	}
 }

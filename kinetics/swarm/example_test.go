@@ -9,7 +9,7 @@ import (
 
 // One swarm point: electrons in pure N₂ at 100 Td.
 func Example() {
-	mix, err := swarm.Mixture(1, 0, 0)
+	mix, err := swarm.SetMixture(swarm.SetOriginal, 1, 0, 0)
 	if err != nil {
 		fmt.Println(err)
 		return
@@ -37,7 +37,7 @@ func Example() {
 
 // The shipped table for air, looked up at 120 Td.
 func ExampleBuiltin() {
-	t, err := swarm.Builtin("air")
+	t, err := swarm.BuiltinSet("air", swarm.SetOriginal)
 	if err != nil {
 		fmt.Println(err)
 		return

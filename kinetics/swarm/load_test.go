@@ -11,7 +11,7 @@ import (
 // names the file when it cannot be read.
 func TestLoad(t *testing.T) {
 	t.Parallel()
-	tb, err := Builtin("n2")
+	tb, err := BuiltinSet("n2", SetOriginal)
 	if err != nil {
 		t.Fatal(err)
 	}

@@ -16,7 +16,7 @@ import (
 func TestPowerSplitSumsToFieldPower(t *testing.T) {
 	t.Parallel()
 	for _, x := range []struct{ n, o float64 }{{1, 0}, {AirNitrogen, AirOxygen}} {
-		mix, _ := Mixture(x.n, x.o, 0)
+		mix, _ := SetMixture(SetOriginal, x.n, x.o, 0)
 		s, err := NewSolver(mix, nil)
 		if err != nil {
 			t.Fatal(err)

@@ -43,7 +43,7 @@ func TestAtClampedAtZero(t *testing.T) {
 // the rest of the table does not; at the reference density the table is returned as it is.
 func TestAtDensity(t *testing.T) {
 	t.Parallel()
-	air, err := Builtin("air")
+	air, err := BuiltinSet("air", SetOriginal)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -84,7 +84,7 @@ func TestAtDensity(t *testing.T) {
 		t.Error("density 0 accepted")
 	}
 	// pure N2 has no three-body attachment: the same table back
-	n2, _ := Builtin("n2")
+	n2, _ := BuiltinSet("n2", SetOriginal)
 	if same, _ := n2.AtDensity(n); same != n2 {
 		t.Error("N2 table was rebuilt although it has no three-body attachment")
 	}
@@ -119,7 +119,7 @@ func (zeroReader) Read(p []byte) (int, error) {
 // form), including the three-body column.
 func TestCSVRoundTripExact(t *testing.T) {
 	t.Parallel()
-	air, _ := Builtin("air")
+	air, _ := BuiltinSet("air", SetOriginal)
 	var buf bytes.Buffer
 	if err := air.WriteCSV(&buf); err != nil {
 		t.Fatal(err)
@@ -142,12 +142,12 @@ func TestCSVRoundTripExact(t *testing.T) {
 // precision, the cached file at 8 digits).
 func TestForMixtureBitIdentical(t *testing.T) {
 	cold := t.TempDir()
-	a, err := ForMixture(0.5, 0, 0.5, cold)
+	a, err := ForMixtureSet(SetOriginal, 0.5, 0, 0.5, cold)
 	if err != nil {
 		t.Fatal(err)
 	}
 	memTables.Clear() // as a new process: read the file back
-	b, err := ForMixture(0.5, 0, 0.5, cold)
+	b, err := ForMixtureSet(SetOriginal, 0.5, 0, 0.5, cold)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -162,7 +162,7 @@ func TestForMixtureBitIdentical(t *testing.T) {
 		wg.Add(1)
 		go func() {
 			defer wg.Done()
-			got[i], _ = ForMixture(0.5, 0, 0.5, par)
+			got[i], _ = ForMixtureSet(SetOriginal, 0.5, 0, 0.5, par)
 		}()
 	}
 	wg.Wait()
@@ -171,7 +171,7 @@ func TestForMixtureBitIdentical(t *testing.T) {
 	if err := os.WriteFile(ro, nil, 0o444); err != nil {
 		t.Fatal(err)
 	}
-	c, err := ForMixture(0.5, 0, 0.5, ro) // a path under it cannot be created
+	c, err := ForMixtureSet(SetOriginal, 0.5, 0, 0.5, ro) // a path under it cannot be created
 	if err != nil {
 		t.Fatalf("unwritable cache: %v (want the table kept in memory)", err)
 	}

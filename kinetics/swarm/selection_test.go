@@ -15,7 +15,7 @@ func TestSelection(t *testing.T) {
 	}
 	cols := []Column{ColExciteC, ColDrift, ColAttachment, ColPower + Column(ChannelIonisation), ColMeanEnergy}
 	for _, name := range []string{"n2", "air"} {
-		tb, err := Builtin(name)
+		tb, err := BuiltinSet(name, SetOriginal)
 		if err != nil {
 			t.Fatal(err)
 		}

@@ -133,10 +133,10 @@ func TestResolveSet(t *testing.T) {
 }
 
 // A mixture solved with another set is cached under another key: it is not the default set's
-// table (the cache key carries the set and a hash of its files).
+// table (the cache key carries the set and a hash of its files); original against itikawa2006.
 func TestForMixtureSet(t *testing.T) {
 	dir := t.TempDir()
-	a, err := ForMixtureSet(DefaultSet, 0.5, 0, 0.5, dir)
+	a, err := ForMixtureSet(SetOriginal, 0.5, 0, 0.5, dir)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -146,7 +146,7 @@ func TestForMixtureSet(t *testing.T) {
 	}
 	ca, cb := a.At(300*units.Townsend), b.At(300*units.Townsend)
 	if ca.ExciteC == cb.ExciteC {
-		t.Errorf("the Itikawa set gave the default set's k_C %g at 300 Td", ca.ExciteC)
+		t.Errorf("the Itikawa set gave the original set's k_C %g at 300 Td", ca.ExciteC)
 	}
 	if n2, _ := ForMixtureSet(SetPhelps1985, 1, 0, 0, dir); n2 == nil {
 		t.Error("pure N2 with the Phelps set: no table")

@@ -88,7 +88,7 @@ func TestMain(m *testing.M) {
 // solve at the geometric midpoints: drift velocity and mean energy within 0.5 %, α/N and the
 // excitation rates within 3 % where they exceed 1e-20 m³/s resp. 1e-25 m².
 func TestTableResolution(t *testing.T) {
-	tb, err := Builtin("n2")
+	tb, err := BuiltinSet("n2", SetOriginal)
 	if err != nil {
 		t.Fatal(err)
 	}

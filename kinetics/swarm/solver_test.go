@@ -82,7 +82,7 @@ func TestDruyvesteynLimit(t *testing.T) {
 }
 
 func n2Solver(t testing.TB, cells int) *Solver {
-	mix, err := Mixture(1, 0, 0)
+	mix, err := SetMixture(SetOriginal, 1, 0, 0)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -98,7 +98,7 @@ func n2Solver(t testing.TB, cells int) *Solver {
 // 3000 Td (conservation test of the discretisation).
 func TestBalances(t *testing.T) {
 	for _, x := range []struct{ n, o float64 }{{1, 0}, {AirNitrogen, AirOxygen}} {
-		mix, _ := Mixture(x.n, x.o, 0)
+		mix, _ := SetMixture(SetOriginal, x.n, x.o, 0)
 		s, err := NewSolver(mix, nil)
 		if err != nil {
 			t.Fatal(err)
@@ -125,7 +125,7 @@ func TestBalances(t *testing.T) {
 // TestNumberConservation: each column of the inelastic operator removes exactly the electrons
 // lost by attachment and adds one per ionisation (both sharing rules).
 func TestNumberConservation(t *testing.T) {
-	mix, _ := Mixture(AirNitrogen, AirOxygen, 0)
+	mix, _ := SetMixture(SetOriginal, AirNitrogen, AirOxygen, 0)
 	for _, sh := range []Sharing{EqualSharing, OneTakesAll} {
 		s, err := NewSolver(mix, &Settings{Sharing: sh})
 		if err != nil {
@@ -194,7 +194,7 @@ func TestGridConvergence(t *testing.T) {
 // TestSharingRules: both ionisation sharing rules conserve power; at 1000 Td one-takes-all
 // leaves the primary with more energy, so α/N is not lower than with equal sharing.
 func TestSharingRules(t *testing.T) {
-	mix, _ := Mixture(1, 0, 0)
+	mix, _ := SetMixture(SetOriginal, 1, 0, 0)
 	var an [2]float64
 	for k, sh := range []Sharing{EqualSharing, OneTakesAll} {
 		s, _ := NewSolver(mix, &Settings{Sharing: sh})
@@ -213,7 +213,7 @@ func TestSharingRules(t *testing.T) {
 }
 
 func TestSolverInputErrors(t *testing.T) {
-	mix, _ := Mixture(1, 0, 0)
+	mix, _ := SetMixture(SetOriginal, 1, 0, 0)
 	if _, err := NewSolver(mix, &Settings{Cells: 5}); err == nil {
 		t.Error("5 cells accepted")
 	}
@@ -224,7 +224,7 @@ func TestSolverInputErrors(t *testing.T) {
 	if _, err := s.Solve(0); err == nil {
 		t.Error("E/N = 0 accepted")
 	}
-	if _, err := Mixture(1, -0.1, 0.1); err == nil {
+	if _, err := SetMixture(SetOriginal, 1, -0.1, 0.1); err == nil {
 		t.Error("negative fraction accepted")
 	}
 }

@@ -159,19 +159,19 @@ func TestReadCSVErrors(t *testing.T) {
 
 func TestBuiltin(t *testing.T) {
 	for _, g := range []string{"n2", "air"} {
-		tb, err := Builtin(g)
+		tb, err := BuiltinSet(g, SetOriginal)
 		if err != nil {
 			t.Fatal(err)
 		}
 		if len(tb.Rows()) < 60 {
 			t.Errorf("%s: %d rows", g, len(tb.Rows()))
 		}
-		again, _ := Builtin(g)
+		again, _ := BuiltinSet(g, SetOriginal)
 		if again != tb {
 			t.Errorf("%s: Builtin parsed twice", g)
 		}
 	}
-	if _, err := Builtin("xenon"); err == nil {
+	if _, err := BuiltinSet("xenon", SetOriginal); err == nil {
 		t.Error("unknown gas accepted")
 	}
 }

@@ -78,7 +78,7 @@ func TestParseCrossSectionErrors(t *testing.T) {
 // with thresholds from the sources (physics-data.md sections 1c and 4: A 6.17, B 7.35,
 // C 11.03, ionisation 15.58 eV; seen in the cross-section files cited there).
 func TestShippedCrossSections(t *testing.T) {
-	n2, err := BuiltinSpecies("N2")
+	n2, err := SetSpecies(SetOriginal, "N2")
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -95,7 +95,7 @@ func TestShippedCrossSections(t *testing.T) {
 		t.Errorf("N2 set lacks %v", want)
 	}
 	for _, name := range []string{"O2", "He"} {
-		sp, err := BuiltinSpecies(name)
+		sp, err := SetSpecies(SetOriginal, name)
 		if err != nil {
 			t.Fatal(err)
 		}
@@ -110,7 +110,7 @@ func TestShippedCrossSections(t *testing.T) {
 			t.Error("O2 has no attachment")
 		}
 	}
-	if _, err := BuiltinSpecies("Ar"); err == nil {
+	if _, err := SetSpecies(SetOriginal, "Ar"); err == nil {
 		t.Error("Ar accepted")
 	}
 }
