@@ -11,7 +11,9 @@ import (
 // Band is the spread of one figure of merit over the samples of an uncertainty study: the
 // median and the 5 % and 95 % quantiles.
 type Band struct {
-	P05, P50, P95 float64
+	P05 float64 `json:"p05"`
+	P50 float64 `json:"p50"`
+	P95 float64 `json:"p95"`
 }
 
 // BandOf returns the 5, 50 and 95 % quantiles of xs, interpolated linearly between the order
