@@ -54,6 +54,7 @@ func SensitivityKeys(d *design.Design) []string {
 	}
 	if d.Gas.Oxygen == 0 {
 		unused["levels.upper_quenching_oxygen"], unused["levels.lower_removal_oxygen"] = true, true
+		unused["levels.manifold_relaxation_oxygen"] = true
 	}
 	if d.Gas.Helium == 0 {
 		unused["levels.upper_quenching_helium"] = true
