@@ -37,12 +37,27 @@ func LatinHypercube(n, k int, seed uint64) ([][]float64, error) {
 	return pts, nil
 }
 
-// UncertainDesigns returns n copies of base in which every constant of design.Spreads is drawn
-// from its range and distribution by a Latin hypercube of the given seed, set through
-// design.Design.Set as a user would set it. keys are the sampled keys (in design.Spreads order)
-// and values[i][j] is the value of keys[j] in designs[i] [SI]. base is not changed.
+// UncertainDesigns returns n copies of base in which every constant of design.Spreads that
+// base uses is drawn from its range and distribution by a Latin hypercube of the given seed,
+// set through design.Design.Set as a user would set it. A constant base does not use (an O₂
+// constant in a gas without O₂, a process switched off by a zero) is left alone: sampling it
+// would switch a process on or add noise to the ranking. keys are the sampled keys (in
+// design.Spreads order) and values[i][j] is the value of keys[j] in designs[i] [SI]. base is
+// not changed.
 func UncertainDesigns(base *design.Design, n int, seed uint64) (designs []*design.Design, keys []string, values [][]float64, err error) {
-	spreads := design.Spreads()
+	used := map[string]bool{}
+	for _, k := range SensitivityKeys(base) {
+		used[k] = true
+	}
+	var spreads []design.Spread
+	for _, s := range design.Spreads() {
+		if used[s.Key] {
+			spreads = append(spreads, s)
+		}
+	}
+	if len(spreads) == 0 {
+		return nil, nil, nil, fmt.Errorf("study: the design uses none of the uncertain constants")
+	}
 	u, err := LatinHypercube(n, len(spreads), seed)
 	if err != nil {
 		return nil, nil, nil, err

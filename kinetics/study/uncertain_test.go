@@ -76,14 +76,18 @@ func TestUncertainDesigns(t *testing.T) {
 	if base.String() != before {
 		t.Error("base design changed")
 	}
-	spreads := design.Spreads()
-	if len(ds) != n || len(keys) != len(spreads) {
-		t.Fatalf("%d designs, %d keys; want %d, %d", len(ds), len(keys), n, len(spreads))
-	}
-	for j, s := range spreads {
-		if keys[j] != s.Key {
-			t.Errorf("key %d = %s, want %s", j, keys[j], s.Key)
+	// the example is pure N₂: every spread but the O₂ constant applies
+	var want []string
+	for _, s := range design.Spreads() {
+		if s.Key != "levels.upper_quenching_oxygen" {
+			want = append(want, s.Key)
 		}
+	}
+	if len(ds) != n || !reflect.DeepEqual(keys, want) {
+		t.Fatalf("%d designs, keys %v; want %d, %v", len(ds), keys, n, want)
+	}
+	for j, key := range keys {
+		s, _ := design.KeySpread(key)
 		u := make([]float64, n)
 		for i, d := range ds {
 			x := vals[i][j]
@@ -105,5 +109,16 @@ func TestUncertainDesigns(t *testing.T) {
 	}
 	if _, _, _, err := UncertainDesigns(base, 0, 1); err == nil {
 		t.Error("0 samples: no error")
+	}
+	// with oxygen in the gas the O₂ constant is sampled too
+	air := base.Clone()
+	if err := air.Set("gas.oxygen", "0.2"); err != nil {
+		t.Fatal(err)
+	}
+	if err := air.Set("gas.nitrogen", "0.8"); err != nil {
+		t.Fatal(err)
+	}
+	if _, keys, _, err := UncertainDesigns(air, 10, 1); err != nil || len(keys) != len(design.Spreads()) {
+		t.Errorf("air: keys %v (%v), want all %d spreads", keys, err, len(design.Spreads()))
 	}
 }
