@@ -3,6 +3,7 @@ package main
 import (
 	"bufio"
 	"bytes"
+	"context"
 	"encoding/json"
 	"fmt"
 	"io"
@@ -91,8 +92,16 @@ func runRun(args []string, stdout, stderr io.Writer) error {
 	memLimit := fs.String("memory-limit", "", `largest memory the run's arrays may take, e.g. "8 GB" (default: half the machine's memory)`)
 	detector := fs.String("detector", "", `time constant of the detector for the FWHM, e.g. "300 ps" (default: an ideal detector)`)
 	sensitivity := fs.Bool("sensitivity", false, "rank the design keys, and apart from them the uncertain physical constants, by d ln E / d ln x (re-runs the design twice per key)")
+	samples := fs.Int("uncertainty", 0, "also run N samples of the uncertain constants (Latin hypercube) and print the 5–95 % band of the pulse energy, peak power and FWHM with the constants that drive them")
+	seed := fs.Uint64("seed", 1, "seed of the --uncertainty samples (the same seed gives the same samples on any machine and worker count)")
 	if help, err := parseFlags(fs, args); help || err != nil {
 		return err
+	}
+	if *samples != 0 && (*samples < 10 || *samples > study.MaxSamples) {
+		return usagef("--uncertainty %d: want 10…%d samples", *samples, study.MaxSamples)
+	}
+	if *samples != 0 && *asJSON {
+		return usagef("--uncertainty has no --json output yet: run it without --json")
 	}
 	d, err := loadDesign(fs.Args(), *sets)
 	if err != nil {
@@ -141,6 +150,13 @@ func runRun(args []string, stdout, stderr io.Writer) error {
 		}
 		fmt.Fprintln(stdout, "\nwhat to change (logarithmic sensitivity of the pulse energy and peak power):")
 		PrintSensitivity(stdout, rows)
+	}
+	if *samples > 0 {
+		u, err := study.Uncertainty(context.Background(), d, *samples, *seed, 0, nil)
+		if err != nil {
+			return err
+		}
+		printUncertainty(stdout, u)
 	}
 	if *out != "" {
 		if err := writeRunOutputs(*out, d, res); err != nil {
