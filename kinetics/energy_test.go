@@ -78,3 +78,33 @@ func TestUpperEnergy(t *testing.T) {
 		t.Errorf("E_C(0) = %.1f cm⁻¹, want 88977.8 within 0.2 %%", got)
 	}
 }
+
+// TestCircuitToleranceConvergence: tightening the circuit integrator's tolerance ten-fold
+// changes the example design's pulse energy, plasma energy and C(0) excitation by less than
+// 1 % (the criterion; a convergence test of the discharge that the reservoirs and the
+// energy account are sampled from).
+func TestCircuitToleranceConvergence(t *testing.T) {
+	t.Parallel()
+	d := design.ExampleDesign()
+	a, err := Run(d, &RunSettings{Light: true})
+	if err != nil {
+		t.Fatal(err)
+	}
+	d.Numerics.Tolerance /= 10
+	b, err := Run(d, &RunSettings{Light: true})
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, q := range []struct {
+		name string
+		x, y float64
+	}{
+		{"pulse energy", a.Summary.EnergyTotal, b.Summary.EnergyTotal},
+		{"plasma energy", a.Summary.Energy.Plasma, b.Summary.Energy.Plasma},
+		{"C(0) excitation", a.Summary.Energy.UpperLevel, b.Summary.Energy.UpperLevel},
+	} {
+		if !scalar.EqualWithinAbsOrRel(q.x, q.y, 0, 0.01) {
+			t.Errorf("%s: %.6g J at the default tolerance, %.6g J at a tenth of it", q.name, q.x, q.y)
+		}
+	}
+}
