@@ -100,9 +100,6 @@ func runRun(args []string, stdout, stderr io.Writer) error {
 	if *samples != 0 && (*samples < 10 || *samples > study.MaxSamples) {
 		return usagef("--uncertainty %d: want 10…%d samples", *samples, study.MaxSamples)
 	}
-	if *samples != 0 && *asJSON {
-		return usagef("--uncertainty has no --json output yet: run it without --json")
-	}
 	d, err := loadDesign(fs.Args(), *sets)
 	if err != nil {
 		return err
@@ -126,8 +123,14 @@ func runRun(args []string, stdout, stderr io.Writer) error {
 	if err != nil {
 		return err
 	}
+	var unc *study.UncertaintyResult
+	if *samples > 0 {
+		if unc, err = study.Uncertainty(context.Background(), d, *samples, *seed, 0, nil); err != nil {
+			return err
+		}
+	}
 	if *asJSON {
-		b, err := runJSON(d, res)
+		b, err := runJSON(d, res, unc)
 		if err != nil {
 			return err
 		}
@@ -151,12 +154,8 @@ func runRun(args []string, stdout, stderr io.Writer) error {
 		fmt.Fprintln(stdout, "\nwhat to change (logarithmic sensitivity of the pulse energy and peak power):")
 		PrintSensitivity(stdout, rows)
 	}
-	if *samples > 0 {
-		u, err := study.Uncertainty(context.Background(), d, *samples, *seed, 0, nil)
-		if err != nil {
-			return err
-		}
-		printUncertainty(stdout, u)
+	if unc != nil && !*asJSON {
+		printUncertainty(stdout, unc)
 	}
 	if *out != "" {
 		if err := writeRunOutputs(*out, d, res); err != nil {
@@ -314,7 +313,7 @@ func writeRunOutputs(dir string, d *design.Design, r *kinetics.Result) error {
 	if err := atomicfile.WriteFile(filepath.Join(dir, "waveforms.csv"), csv.Bytes()); err != nil {
 		return err
 	}
-	js, err := runJSON(d, r)
+	js, err := runJSON(d, r, nil)
 	if err != nil {
 		return err
 	}
@@ -333,11 +332,14 @@ func writeRunOutputs(dir string, d *design.Design, r *kinetics.Result) error {
 type runOutput struct {
 	kinetics.Summary
 	Design map[string]any `json:"design"`
+	// Uncertainty is present with --uncertainty: uncertaintyJSON.
+	Uncertainty map[string]any `json:"uncertainty,omitempty"`
 }
 
-// runJSON writes the run's summary and design as indented JSON.
-func runJSON(d *design.Design, r *kinetics.Result) ([]byte, error) {
-	out := runOutput{Summary: r.Summary, Design: map[string]any{}}
+// runJSON writes the run's summary and design, and the uncertainty study u when not nil, as
+// indented JSON.
+func runJSON(d *design.Design, r *kinetics.Result, u *study.UncertaintyResult) ([]byte, error) {
+	out := runOutput{Summary: r.Summary, Design: map[string]any{}, Uncertainty: uncertaintyJSON(u)}
 	for _, line := range strings.Split(d.String(), "\n") {
 		k, v, ok := strings.Cut(line, " = ")
 		if !ok {

@@ -47,3 +47,22 @@ func printUncertainty(w io.Writer, r *study.UncertaintyResult) {
 	tw.Flush()
 	fmt.Fprintln(w, "  the constants, their ranges and sources: package kinetics/design, Spreads (level constants with a published spread or an estimate's range)")
 }
+
+// uncertaintyJSON is the "uncertainty" block of run --json: samples, seed, the sampled
+// constants, failed and truncated counts, "<figure>_p05", "<figure>_p50" and "<figure>_p95" for
+// every numeric figure of merit with a band, and "drivers": per figure, the constants by
+// decreasing |rank correlation|. nil gives nil (no block).
+func uncertaintyJSON(r *study.UncertaintyResult) map[string]any {
+	if r == nil {
+		return nil
+	}
+	out := map[string]any{"samples": r.Samples, "seed": r.Seed, "constants": r.Keys,
+		"failed": r.Failed, "truncated": r.Truncated}
+	drivers := map[string][]study.Driver{}
+	for _, m := range r.Metrics {
+		out[m.Metric+"_p05"], out[m.Metric+"_p50"], out[m.Metric+"_p95"] = m.P05, m.P50, m.P95
+		drivers[m.Metric] = m.Drivers
+	}
+	out["drivers"] = drivers
+	return out
+}
