@@ -29,6 +29,15 @@ func printUncertainty(w io.Writer, r *study.UncertaintyResult) {
 		fmt.Fprintf(w, "; %d truncated (pulse outlasted the run)", r.Truncated)
 	}
 	fmt.Fprintln(w)
+	ok := r.Samples - r.Failed
+	switch {
+	case r.MayNotLase():
+		fmt.Fprintf(w, "  MAY NOT LASE: %d of %d samples reach the lasing threshold; the band straddles it\n", r.Lasing, ok)
+	case r.Lasing == 0:
+		fmt.Fprintf(w, "  none of the %d samples reaches the lasing threshold\n", ok)
+	default:
+		fmt.Fprintf(w, "  all %d samples reach the lasing threshold\n", ok)
+	}
 	tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
 	fmt.Fprintln(tw, "figure\t5 %\tmedian\t95 %\tdriven most by (rank correlation)")
 	for _, m := range uncertaintyMetrics {
@@ -49,7 +58,8 @@ func printUncertainty(w io.Writer, r *study.UncertaintyResult) {
 }
 
 // uncertaintyJSON is the "uncertainty" block of run --json: samples, seed, the sampled
-// constants, failed and truncated counts, "<figure>_p05", "<figure>_p50" and "<figure>_p95" for
+// constants, failed, truncated and lasing counts, may_not_lase (the samples straddle the
+// threshold), "<figure>_p05", "<figure>_p50" and "<figure>_p95" for
 // every numeric figure of merit with a band, and "drivers": per figure, the constants by
 // decreasing |rank correlation|. nil gives nil (no block).
 func uncertaintyJSON(r *study.UncertaintyResult) map[string]any {
@@ -57,7 +67,7 @@ func uncertaintyJSON(r *study.UncertaintyResult) map[string]any {
 		return nil
 	}
 	out := map[string]any{"samples": r.Samples, "seed": r.Seed, "constants": r.Keys,
-		"failed": r.Failed, "truncated": r.Truncated}
+		"failed": r.Failed, "truncated": r.Truncated, "lasing": r.Lasing, "may_not_lase": r.MayNotLase()}
 	drivers := map[string][]study.Driver{}
 	for _, m := range r.Metrics {
 		out[m.Metric+"_p05"], out[m.Metric+"_p50"], out[m.Metric+"_p95"] = m.P05, m.P50, m.P95

@@ -34,6 +34,7 @@ type UncertaintyResult struct {
 	Keys      []string     `json:"keys"`      // the sampled constants (design.Spreads)
 	Failed    int          `json:"failed"`    // samples whose run failed; left out of every band
 	Truncated int          `json:"truncated"` // samples whose pulse outlasted the run; kept, and counted here
+	Lasing    int          `json:"lasing"`    // samples that reach the lasing threshold (kinetics.Summary.Lases)
 	Metrics   []MetricBand `json:"metrics"`   // one per numeric figure of merit with ≥ 3 defined samples
 }
 
@@ -82,6 +83,9 @@ func Uncertainty(ctx context.Context, base *design.Design, n int, seed uint64, w
 			good = append(good, i)
 			if sums[i].Truncated {
 				res.Truncated++
+			}
+			if sums[i].Lases {
+				res.Lasing++
 			}
 		}
 	}
@@ -134,6 +138,13 @@ func Uncertainty(ctx context.Context, base *design.Design, n int, seed uint64, w
 		res.Metrics = append(res.Metrics, mb)
 	}
 	return res, nil
+}
+
+// MayNotLase reports whether the samples straddle the lasing threshold: some lase and some do
+// not.
+func (r *UncertaintyResult) MayNotLase() bool {
+	ok := r.Samples - r.Failed
+	return r.Lasing > 0 && r.Lasing < ok
 }
 
 // Metric returns the band of a named figure of merit and whether it has one.

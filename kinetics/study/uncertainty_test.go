@@ -74,6 +74,19 @@ func TestUncertainty(t *testing.T) {
 	if !reflect.DeepEqual(one, r) {
 		t.Error("1 and 2 workers give different results")
 	}
+	// lasing iff the quenching constant is in the lower half of its range: exactly 25 of 50
+	half, err := Uncertainty(context.Background(), base, n, 11, 2, func(d *design.Design) (kinetics.Summary, error) {
+		return kinetics.Summary{Lases: d.Levels.UpperQuenchingNitrogen < 1.25e-17}, nil
+	})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if half.Lasing != 25 || !half.MayNotLase() {
+		t.Errorf("%d of %d samples lase (may not lase: %v), want 25 and true", half.Lasing, n, half.MayNotLase())
+	}
+	if r.MayNotLase() || r.Lasing != 0 {
+		t.Errorf("knownRunner: %d lasing, may not lase %v; want 0, false (none lases)", r.Lasing, r.MayNotLase())
+	}
 	if _, err := Uncertainty(context.Background(), base, 5, 1, 1, func(*design.Design) (kinetics.Summary, error) {
 		return kinetics.Summary{}, errors.New("always")
 	}); err == nil {
