@@ -144,3 +144,51 @@ func TestSpectrumFigureContent(t *testing.T) {
 		t.Errorf("PNG %d × %d pixels, want 945 × 650", w, h)
 	}
 }
+
+// The pulse report names every panel's quantity in words with its display unit, zooms the
+// power panel on the pulse, names both ends and the half-maximum width, and draws the six
+// whole-run series of the demo shot through all of its 600 samples — except the electron
+// density, whose zero sample is left off the log axis — plus the zoomed output traces.
+func TestPulseReportContent(t *testing.T) {
+	t.Parallel()
+	path := filepath.Join(t.TempDir(), "pulse.svg")
+	if err := PulseReport(path, demoPulse()); err != nil {
+		t.Fatal(err)
+	}
+	b, err := os.ReadFile(path)
+	if err != nil {
+		t.Fatal(err)
+	}
+	text := svgText(string(b))
+	for _, want := range []string{"demo shot", "channel voltage [kV]", "current [kA]", "E/N [Td]",
+		"nₑ [1/cm³]", "upper level C", "lower level B", "time after switch closure [ns]",
+		"zoomed on the pulse", "output power [kW]", "half maximum, output end: 1 ns",
+		"output end (z = L)", "rear end (z = 0)"} {
+		if !strings.Contains(text, want) {
+			t.Errorf("pulse report text lacks %q", want)
+		}
+	}
+	for _, raw := range []string{"_s", "_J", "_W", "e+", "[V]", "[A]", "[W]", "[s]"} {
+		if strings.Contains(text, raw) {
+			t.Errorf("pulse report text holds %q (a raw key or SI notation)", raw)
+		}
+	}
+	whole, skipped, zoomed := 0, 0, 0
+	for _, m := range svgMarks(string(b)) {
+		switch {
+		case !m.line:
+		case m.vertices == 600:
+			whole++
+		case m.vertices == 599:
+			skipped++
+		case m.vertices > 50:
+			zoomed++
+		}
+	}
+	if whole != 5 || skipped != 1 {
+		t.Errorf("whole-run series: %d with 600 points and %d with 599, want 5 and 1 (n_e's zero left out)", whole, skipped)
+	}
+	if zoomed < 2 {
+		t.Errorf("zoomed power traces: %d, want both ends (≥ 2)", zoomed)
+	}
+}
