@@ -14,6 +14,8 @@ import (
 	"syscall"
 	"text/tabwriter"
 
+	"n2pulse/internal/sysmem"
+	"n2pulse/internal/usermsg"
 	"n2pulse/kinetics"
 	"n2pulse/kinetics/study"
 	"n2pulse/plots"
@@ -37,6 +39,7 @@ func runLength(args []string, stdout, stderr io.Writer) error {
 	out := fs.String("out", "", "write length.csv and the figure length.png/.svg to this directory")
 	sets := fs.StringArray("set", nil, `override a design key, e.g. --set gas.pressure="100 Torr" (repeatable)`)
 	workers := fs.Int("workers", runtime.NumCPU(), "lengths computed at once")
+	memLimit := fs.String("memory-limit", "", `largest memory all lengths computed at once may take, e.g. "8 GB" (default: half the machine's memory); each length gets its share`)
 	asJSON := fs.Bool("json", false, "print the scan as JSON on stdout (SI units) instead of a table")
 	scale := fs.Bool("scale-capacitors", true, "grow both capacitors in proportion to the channel length (Blumlein plates running along the channel); --scale-capacitors=false keeps the design's circuit at every length")
 	if help, err := parseFlags(fs, args); help || err != nil {
@@ -53,6 +56,13 @@ func runLength(args []string, stdout, stderr io.Writer) error {
 		return err
 	}
 	s := &study.LengthScan{Design: d, Points: *points, Workers: *workers, ScaleCapacitors: *scale}
+	limit := kinetics.DefaultMemoryLimit
+	if *memLimit != "" {
+		if limit, err = sysmem.ParseBytes(*memLimit); err != nil {
+			return usagef("length: --memory-limit: %v", err)
+		}
+	}
+	s.Runner = study.MemoryRunner(limit / int64(*workers))
 	if s.From, err = units.Parse(*from, units.Length); err != nil {
 		return usagef("length: --from %q: %v", *from, err)
 	}
@@ -158,7 +168,7 @@ func printLength(w io.Writer, r *study.LengthResult) {
 	}
 	for _, p := range r.Curves[0].Points {
 		if p.Err != nil {
-			fmt.Fprintf(w, "length %.4g cm failed: %v\n", 100*p.Length, p.Err)
+			fmt.Fprintf(w, "length %.4g cm failed: %s\n", 100*p.Length, usermsg.Strip(p.Err.Error()))
 		} else if p.Summary.Truncated {
 			fmt.Fprintf(w, "length %.4g cm truncated: the pulse was still going at %.4g ns, the longest a run may take; its numbers are cut short\n",
 				100*p.Length, 1e9*p.Summary.EndTime)

@@ -80,3 +80,23 @@ func TestSweepMemoryLimitFlag(t *testing.T) {
 		t.Errorf("results.csv:\n%s\nwant the 30 ns point ok and the 10 µs point failed on its 477 MiB share (1 GB / 2)", b)
 	}
 }
+
+// length --memory-limit shares the limit among the workers as sweep does: at 10 µs the 1 cm
+// and 15.5 cm channels (10.7 GiB and 708 MiB by the estimate) fail on their 477 MiB share
+// (1 GB / 2), the 30 cm one runs, and the scan finishes; messages carry no package prefix.
+func TestLengthMemoryLimitFlag(t *testing.T) {
+	t.Parallel()
+	var out, errb bytes.Buffer
+	code := run([]string{"length", "--set", "numerics.end_time=10 us", "--from", "1 cm", "--to", "30 cm",
+		"--points", "3", "--memory-limit", "1 GB", "--workers", "2"}, &out, &errb)
+	if code != 0 {
+		t.Fatalf("length: exit %d: %s", code, errb.String())
+	}
+	text := out.String() + errb.String()
+	if n := strings.Count(text, "failed: the run needs about"); n != 2 || !strings.Contains(text, "477 MiB") {
+		t.Errorf("want the 1 cm and 15.5 cm lengths failed on their 477 MiB share, got %d failures:\n%s", n, text)
+	}
+	if strings.Contains(text, "kinetics:") {
+		t.Errorf("a package prefix reached the user:\n%s", text)
+	}
+}
