@@ -14,7 +14,6 @@ import (
 	"syscall"
 	"text/tabwriter"
 
-	"n2pulse/internal/sysmem"
 	"n2pulse/internal/usermsg"
 	"n2pulse/kinetics"
 	"n2pulse/kinetics/study"
@@ -56,13 +55,9 @@ func runLength(args []string, stdout, stderr io.Writer) error {
 		return err
 	}
 	s := &study.LengthScan{Design: d, Points: *points, Workers: *workers, ScaleCapacitors: *scale}
-	limit := kinetics.DefaultMemoryLimit
-	if *memLimit != "" {
-		if limit, err = sysmem.ParseBytes(*memLimit); err != nil {
-			return usagef("length: --memory-limit: %v", err)
-		}
+	if s.Runner, err = sharedMemoryRunner("length", *memLimit, *workers); err != nil {
+		return err
 	}
-	s.Runner = study.MemoryRunner(limit / int64(*workers))
 	if s.From, err = units.Parse(*from, units.Length); err != nil {
 		return usagef("length: --from %q: %v", *from, err)
 	}

@@ -57,13 +57,9 @@ func runSweep(args []string, stdout, stderr io.Writer) error {
 		return err
 	}
 	s := &study.Sweep{Design: d, Workers: *workers, Dir: *out, Resume: *resume}
-	limit := kinetics.DefaultMemoryLimit
-	if *memLimit != "" {
-		if limit, err = sysmem.ParseBytes(*memLimit); err != nil {
-			return usagef("sweep: --memory-limit: %v", err)
-		}
+	if s.Runner, err = sharedMemoryRunner("sweep", *memLimit, *workers); err != nil {
+		return err
 	}
-	s.Runner = study.MemoryRunner(limit / int64(*workers))
 	for _, v := range *vary {
 		a, err := study.ParseAxis(v, d)
 		if err != nil {
@@ -253,4 +249,18 @@ func printOptima(w io.Writer, t *study.Table, axes []study.Axis, metrics []strin
 	if len(edges) > 0 {
 		fmt.Fprintf(w, "edge: the optimum of %s lies on the edge of the grid; extend the range to find the best\n", strings.Join(edges, ", "))
 	}
+}
+
+// sharedMemoryRunner is the runner of a command that computes several designs at once (sweep,
+// length): the --memory-limit text (empty: kinetics.DefaultMemoryLimit) shared equally among
+// the workers. A malformed limit is a usage error naming the command.
+func sharedMemoryRunner(command, limitText string, workers int) (study.Runner, error) {
+	limit := kinetics.DefaultMemoryLimit
+	if limitText != "" {
+		var err error
+		if limit, err = sysmem.ParseBytes(limitText); err != nil {
+			return nil, usagef("%s: --memory-limit: %v", command, err)
+		}
+	}
+	return study.MemoryRunner(limit / int64(workers)), nil
 }
