@@ -52,8 +52,7 @@ func Uncertainty(ctx context.Context, base *design.Design, n int, seed uint64, w
 	if run == nil {
 		run = ModelRunner
 	}
-	sums := make([]kinetics.Summary, n)
-	ok := make([]bool, n)
+	figs := make([]sampleFigures, n)
 	idx := make([]int, n)
 	for i := range idx {
 		idx[i] = i
@@ -61,57 +60,92 @@ func Uncertainty(ctx context.Context, base *design.Design, n int, seed uint64, w
 	var firstErr error
 	err = evaluate(ctx, idx, workers, func(i int) (*design.Design, error) { return designs[i], nil }, run,
 		func(o outcome) error {
-			if o.err != nil {
-				if firstErr == nil {
-					firstErr = fmt.Errorf("sample %d: %w", o.i+1, o.err)
-				}
-				return nil
+			if o.err != nil && firstErr == nil {
+				firstErr = fmt.Errorf("sample %d: %w", o.i+1, o.err)
 			}
-			sums[o.i], ok[o.i] = o.sum, true
+			figs[o.i] = figuresOf(o.sum, o.err)
 			return nil
 		})
 	if err != nil {
 		return nil, err
 	}
-	res := &UncertaintyResult{Samples: n, Seed: seed, Keys: keys}
+	res, err := bandsOf(seed, keys, values, figs)
+	if err != nil {
+		return nil, err
+	}
+	if res.Failed == n {
+		return nil, fmt.Errorf("study: every sample failed; first: %w", firstErr)
+	}
+	return res, nil
+}
+
+// sampleFigures is what one sample keeps of its run: the numeric figures of merit in
+// NumericMetrics order (NaN where undefined), whether it lased and was cut short, or that it
+// failed.
+type sampleFigures struct {
+	vals             []float64
+	ok               bool
+	lases, truncated bool
+}
+
+// figuresOf reads the numeric figures of merit of a run (err nil) into a sampleFigures: an
+// undefined value (NaN, infinite, or 0 for the metrics of undefinedAtZero) is NaN.
+func figuresOf(s kinetics.Summary, err error) sampleFigures {
+	if err != nil {
+		return sampleFigures{}
+	}
+	f := sampleFigures{ok: true, lases: s.Lases, truncated: s.Truncated}
+	v := reflect.ValueOf(s)
+	for fi := range summaryType.NumField() {
+		field := summaryType.Field(fi)
+		name := tableName(field)
+		if k := field.Type.Kind(); name == "" || (k != reflect.Float64 && k != reflect.Int) {
+			continue
+		}
+		x := v.Field(fi)
+		y := 0.0
+		if x.Kind() == reflect.Int {
+			y = float64(x.Int())
+		} else {
+			y = x.Float()
+		}
+		if math.IsInf(y, 0) || (y == 0 && undefinedAtZero[name]) {
+			y = math.NaN()
+		}
+		f.vals = append(f.vals, y)
+	}
+	return f
+}
+
+// bandsOf makes the result of an uncertainty study from its samples: figs[i] and values[i]
+// (the sampled constants, in keys order) of sample i. A figure of merit gets a band when at
+// least three samples define it. It does not fail when every sample failed (Failed says so).
+func bandsOf(seed uint64, keys []string, values [][]float64, figs []sampleFigures) (*UncertaintyResult, error) {
+	res := &UncertaintyResult{Samples: len(figs), Seed: seed, Keys: keys}
 	var good []int
-	for i := range ok {
-		switch {
-		case !ok[i]:
+	for i, f := range figs {
+		if !f.ok {
 			res.Failed++
-		default:
-			good = append(good, i)
-			if sums[i].Truncated {
-				res.Truncated++
-			}
-			if sums[i].Lases {
-				res.Lasing++
-			}
+			continue
+		}
+		good = append(good, i)
+		if f.truncated {
+			res.Truncated++
+		}
+		if f.lases {
+			res.Lasing++
 		}
 	}
 	if len(good) == 0 {
-		return nil, fmt.Errorf("study: every sample failed; first: %w", firstErr)
+		return res, nil
 	}
-	for fi := range summaryType.NumField() {
-		f := summaryType.Field(fi)
-		name := tableName(f)
-		if k := f.Type.Kind(); name == "" || (k != reflect.Float64 && k != reflect.Int) {
-			continue
-		}
+	for m, name := range NumericMetrics() {
 		var ys []float64
 		var rows []int
 		for _, i := range good {
-			v := reflect.ValueOf(sums[i]).Field(fi)
-			y := 0.0
-			if v.Kind() == reflect.Int {
-				y = float64(v.Int())
-			} else {
-				y = v.Float()
+			if y := figs[i].vals[m]; !math.IsNaN(y) {
+				ys, rows = append(ys, y), append(rows, i)
 			}
-			if math.IsNaN(y) || math.IsInf(y, 0) || (y == 0 && undefinedAtZero[name]) {
-				continue
-			}
-			ys, rows = append(ys, y), append(rows, i)
 		}
 		if len(ys) < 3 {
 			continue
