@@ -25,3 +25,19 @@ func BenchmarkRun(b *testing.B) {
 	b.ReportMetric(float64(updates)/b.Elapsed().Seconds(), "cell-updates/s")
 	b.ReportMetric(b.Elapsed().Seconds()*1e9/float64(updates), "ns/cell-update")
 }
+
+// BenchmarkRunFull times one shot of the built-in example design as `n2pulse run` takes it:
+// with its waveforms and gain map (not light). Reported with shots/s and allocations.
+func BenchmarkRunFull(b *testing.B) {
+	d := design.ExampleDesign()
+	if _, err := Run(d, nil); err != nil { // warm the tables
+		b.Fatal(err)
+	}
+	b.ReportAllocs()
+	for b.Loop() {
+		if _, err := Run(d, nil); err != nil {
+			b.Fatal(err)
+		}
+	}
+	b.ReportMetric(float64(b.N)/b.Elapsed().Seconds(), "shots/s")
+}

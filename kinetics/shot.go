@@ -98,9 +98,17 @@ func (sh *shot) run(res *Result) {
 		for i := range res.Z {
 			res.Z[i] = (float64(i) + 0.5) * p.CellLength
 		}
-		res.Gain = make([][]float64, n)
 	}
 	colEvery := max(1, (sh.steps+sh.cols-1)/sh.cols)
+	if !sh.light {
+		// One column every colEvery steps: each row's length is known now.
+		cols := (sh.steps + colEvery - 1) / colEvery
+		res.Gain = make([][]float64, n)
+		for i := range res.Gain {
+			res.Gain[i] = make([]float64, 0, cols)
+		}
+		res.GainTime = make([]float64, 0, cols)
+	}
 	eC, wC := sh.upperDecay()
 	rest := sh.pumpToCome()
 	// Before the discharge the channel neither amplifies nor holds an upper level worth its
@@ -215,7 +223,9 @@ func (sh *shot) stepUnlit(pump *pumpStep, k int, eC, wC []float64, lit, dark boo
 			}
 		}
 	}
-	if lit {
+	// The gain factors matter only while the optics run: at dawn they start from the
+	// populations; after dark nothing passes through the cells again.
+	if lit && !dark {
 		m.resync()
 	}
 	if lit && !dark {

@@ -189,7 +189,7 @@ func writeRunReport(dir string, d *design.Design, r *kinetics.Result) error {
 
 // writeSweepReport writes report.html for a finished sweep into dir: the grid, the optimum of
 // each metric, the points left out, the figures, the base design and the validation status.
-func writeSweepReport(dir, name, listing string, tab *study.Table, axes []study.Axis, metrics []string, figs []string) error {
+func writeSweepReport(dir, name, listing string, tab *study.Table, axes []study.Axis, metrics []string, figs []string, bands sweepBands) error {
 	if name == "" {
 		name = "design"
 	}
@@ -227,6 +227,9 @@ func writeSweepReport(dir, name, listing string, tab *study.Table, axes []study.
 	sum := report.Section{Heading: "Grid and optima", List: grid, Table: opt,
 		Paragraphs: []string{tableCounts(tab) + "; points that failed, were cut short (truncated) or do not lase are never an optimum."}}
 	p.Sections = append(p.Sections, sum)
+	if bands.Samples > 0 {
+		p.Sections = append(p.Sections, sweepBandSection(tab, bands))
+	}
 	var left []string
 	for r := range tab.Rows {
 		if !tab.OK(r) {

@@ -43,6 +43,8 @@ func runSweep(args []string, stdout, stderr io.Writer) error {
 	shardText := fs.String("shard", "", "compute only shard K of N (point i belongs to shard i mod N + 1); default from SLURM_ARRAY_TASK_ID when set")
 	quiet := fs.Bool("quiet", false, "no progress line")
 	asJSON := fs.Bool("json", false, "print the optimum of each metric as JSON on stdout instead of a table")
+	samples := fs.Int("uncertainty", 0, fmt.Sprintf("also run every point over N samples of the uncertain constants (Latin hypercube, %d…%d; the varied keys keep their grid values): results.csv gains <figure>_p05/_p50/_p95 columns, the drivers and a note per point", study.MinSamples, study.MaxSamples))
+	seed := fs.Uint64("seed", 1, "seed of the --uncertainty samples (the same seed gives the same table on any machine and worker count)")
 	if help, err := parseFlags(fs, args); help || err != nil {
 		return err
 	}
@@ -56,7 +58,10 @@ func runSweep(args []string, stdout, stderr io.Writer) error {
 	if err != nil {
 		return err
 	}
-	s := &study.Sweep{Design: d, Workers: *workers, Dir: *out, Resume: *resume}
+	if err := study.CheckSamples("--uncertainty", *samples); err != nil {
+		return usageOf("sweep: ", err)
+	}
+	s := &study.Sweep{Design: d, Workers: *workers, Dir: *out, Resume: *resume, Samples: *samples, Seed: *seed}
 	if s.Runner, err = sharedMemoryRunner("sweep", *memLimit, *workers); err != nil {
 		return err
 	}
@@ -100,7 +105,7 @@ func runSweep(args []string, stdout, stderr io.Writer) error {
 		fmt.Fprintf(stdout, "shard %s: wrote %s; join the shards with `n2pulse merge`\n", s.Shard, filepath.Join(*out, study.ResultsFile))
 		return nil
 	}
-	return reportSweep(stdout, tab, s.Axes, *metrics, *out, *asJSON, d.Name, d.String())
+	return reportSweep(stdout, tab, s.Axes, *metrics, *out, *asJSON, d.Name, d.String(), sweepBands{*samples, *seed})
 }
 
 // sweepReport is what `sweep --json` prints: the grid, the counts, the optimum of each metric
@@ -111,16 +116,21 @@ type sweepReport struct {
 	Failed int          `json:"failed"`
 	Optima []plots.Best `json:"optima"`
 	Files  []string     `json:"files"`
+	// Uncertainty is present when the sweep ran with --uncertainty: sweepBandJSON.
+	Uncertainty *sweepBandJSON `json:"uncertainty,omitempty"`
 }
 
 // reportSweep prints the optimum of each metric (a table, or JSON), draws the figures, writes
 // the plotting-program copy of a two-key table and lists the files.
-func reportSweep(stdout io.Writer, tab *study.Table, axes []study.Axis, metrics []string, dir string, asJSON bool, name, listing string) error {
+func reportSweep(stdout io.Writer, tab *study.Table, axes []study.Axis, metrics []string, dir string, asJSON bool, name, listing string, bands sweepBands) error {
 	if len(metrics) == 0 {
 		metrics = plots.DefaultMapMetrics
 	}
 	if !asJSON {
 		printOptima(stdout, tab, axes, metrics)
+		if bands.Samples > 0 {
+			printSweepBands(stdout, tab, bands)
+		}
 	}
 	files := []string{filepath.Join(dir, study.ResultsFile)}
 	if len(axes) == 2 {
@@ -135,7 +145,7 @@ func reportSweep(stdout io.Writer, tab *study.Table, axes []study.Axis, metrics 
 		return err
 	}
 	files = append(files, figs...)
-	if err := writeSweepReport(dir, name, listing, tab, axes, metrics, figs); err != nil {
+	if err := writeSweepReport(dir, name, listing, tab, axes, metrics, figs, bands); err != nil {
 		return err
 	}
 	files = append(files, filepath.Join(dir, report.FileName))
@@ -148,6 +158,9 @@ func reportSweep(stdout io.Writer, tab *study.Table, axes []study.Axis, metrics 
 		}
 		for _, m := range metrics {
 			rep.Optima = append(rep.Optima, plots.Optimum(tab, axes, m))
+		}
+		if bands.Samples > 0 {
+			rep.Uncertainty = sweepBandBlock(tab, bands, rep.Optima)
 		}
 		b, err := json.MarshalIndent(rep, "", "  ")
 		if err != nil {
@@ -221,7 +234,11 @@ func tableCounts(t *study.Table) string {
 // units (plots.LabelOf), with a note when it lies on the edge of the grid.
 func printOptima(w io.Writer, t *study.Table, axes []study.Axis, metrics []string) {
 	tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
+	banded := t.Column(study.BandNoteColumn) >= 0
 	head := "figure of merit\toptimum\tvalue"
+	if banded {
+		head += "\t5 %\t95 %"
+	}
 	for _, a := range axes {
 		head += "\t" + plots.LabelOf(a.Key).Text
 	}
@@ -235,6 +252,9 @@ func printOptima(w io.Writer, t *study.Table, axes []study.Axis, metrics []strin
 			continue
 		}
 		line := fmt.Sprintf("%s\t%s\t%s", l.Text, b.Word, l.Format(b.Value))
+		if banded {
+			line += "\t" + bandCell(t, b.Row, m+"_p05", l) + "\t" + bandCell(t, b.Row, m+"_p95", l)
+		}
 		for _, a := range axes {
 			al := plots.LabelOf(a.Key + " [" + a.Unit + "]").Typed(a.Display)
 			line += "\t" + al.Format(t.Float(b.Row, t.Column(a.Header())))

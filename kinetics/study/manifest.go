@@ -25,10 +25,13 @@ type Manifest struct {
 	Points     int      `json:"points"` // of the whole grid
 	Columns    []string `json:"columns"`
 	Shard      Shard    `json:"shard"`
+	// Samples and Seed are the uncertainty samples per point (Sweep.Samples), absent without.
+	Samples int    `json:"uncertainty_samples,omitempty"`
+	Seed    uint64 `json:"uncertainty_seed,omitempty"`
 }
 
 func (s *Sweep) manifest() *Manifest {
-	return &Manifest{
+	m := &Manifest{
 		Version:    manifestVersion,
 		DesignName: s.Design.Name,
 		DesignHash: DesignHash(s.Design),
@@ -37,7 +40,12 @@ func (s *Sweep) manifest() *Manifest {
 		Points:     s.Points(),
 		Columns:    s.Columns(),
 		Shard:      s.Shard.norm(),
+		Samples:    s.Samples,
 	}
+	if s.Samples > 0 {
+		m.Seed = s.Seed
+	}
+	return m
 }
 
 // ReadManifest reads sweep.json from a sweep directory; the error wraps os.ErrNotExist when
@@ -94,6 +102,9 @@ func (m *Manifest) Differs(o *Manifest) string {
 			}
 			return fmt.Sprintf("axis %d: %s against %s", i+1, x, y)
 		}
+	}
+	if m.Samples != o.Samples || m.Seed != o.Seed {
+		return fmt.Sprintf("uncertainty samples %d (seed %d) against %d (seed %d)", m.Samples, m.Seed, o.Samples, o.Seed)
 	}
 	if !slices.Equal(m.Columns, o.Columns) {
 		return "table columns differ (written by another version of the program)"

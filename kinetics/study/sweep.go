@@ -36,6 +36,11 @@ type Sweep struct {
 	Dir      string         // directory of the journal, manifest and results
 	Resume   bool           // finish a sweep already started in Dir
 	Progress io.Writer      // progress line (for a terminal); nil means silent
+	// Samples, when not 0, runs every point also over this many samples of the uncertain
+	// constants (a Latin hypercube of Seed; the varied keys keep their grid values) and adds
+	// the band columns (bandColumns) to the table.
+	Samples int
+	Seed    uint64
 }
 
 // Points returns the number of grid points (of the whole sweep, not the shard).
@@ -54,6 +59,9 @@ func (s *Sweep) Columns() []string {
 		cols = append(cols, a.Header())
 	}
 	cols = append(cols, Metrics()...)
+	if s.Samples > 0 {
+		cols = append(cols, bandColumns("", NumericMetrics())...)
+	}
 	return append(cols, StatusColumn)
 }
 
@@ -110,6 +118,23 @@ func (s *Sweep) row(o outcome) []string {
 	return append(r, statusOf(o.sum, o.err))
 }
 
+// bandRow builds the table row of a finished point with its band: row with the band cells
+// before the status.
+func (s *Sweep) bandRow(p sampledPoint) []string {
+	r := s.row(p.nominal)
+	status := r[len(r)-1]
+	return append(append(r[:len(r)-1], bandCells(p, NumericMetrics(), bandNote(p))...), status)
+}
+
+// axisKeys returns the varied keys, which uncertainty samples leave at their grid values.
+func (s *Sweep) axisKeys() []string {
+	keys := make([]string, len(s.Axes))
+	for k, a := range s.Axes {
+		keys[k] = a.Key
+	}
+	return keys
+}
+
 // DesignHash is the SHA-256 of the design's full key listing (design.Design.String), the
 // fingerprint by which shards and resumed sweeps are matched.
 func DesignHash(d *design.Design) string {
@@ -143,6 +168,16 @@ func (s *Sweep) Check() error {
 	}
 	if !s.Shard.Whole() && (s.Shard.K < 1 || s.Shard.K > s.Shard.N) {
 		return fmt.Errorf("study: shard %d/%d: want 1 ≤ K ≤ N", s.Shard.K, s.Shard.N)
+	}
+	if err := CheckSamples("--uncertainty", s.Samples); err != nil {
+		return err
+	}
+	owned := n
+	if !s.Shard.Whole() {
+		owned = (n + s.Shard.N - 1) / s.Shard.N
+	}
+	if err := CheckSampledRuns("--uncertainty", s.Samples, owned); err != nil {
+		return err
 	}
 	if s.Dir == "" {
 		return errors.New("study: sweep has no output directory")
@@ -188,13 +223,23 @@ func (s *Sweep) Run(ctx context.Context) (*Table, error) {
 		}
 	}
 	prog := newProgress(s.Progress, len(todo))
-	err = evaluate(ctx, todo, s.Workers, s.PointDesign, run, func(o outcome) error {
-		if err := j.append(o.i, s.row(o)); err != nil {
-			return err
-		}
-		prog.step()
-		return nil
-	})
+	if s.Samples > 0 {
+		err = sampledEvaluate(ctx, todo, s.Samples, s.Seed, s.axisKeys(), s.Workers, s.PointDesign, run, func(p sampledPoint) error {
+			if err := j.append(p.nominal.i, s.bandRow(p)); err != nil {
+				return err
+			}
+			prog.step()
+			return nil
+		})
+	} else {
+		err = evaluate(ctx, todo, s.Workers, s.PointDesign, run, func(o outcome) error {
+			if err := j.append(o.i, s.row(o)); err != nil {
+				return err
+			}
+			prog.step()
+			return nil
+		})
+	}
 	prog.finish()
 	if err != nil {
 		return nil, err

@@ -45,43 +45,71 @@ func LatinHypercube(n, k int, seed uint64) ([][]float64, error) {
 // design.Spreads order) and values[i][j] is the value of keys[j] in designs[i] [SI]. base is
 // not changed.
 func UncertainDesigns(base *design.Design, n int, seed uint64) (designs []*design.Design, keys []string, values [][]float64, err error) {
-	used := map[string]bool{}
-	for _, k := range SensitivityKeys(base) {
-		used[k] = true
-	}
-	var spreads []design.Spread
-	for _, s := range design.Spreads() {
-		if used[s.Key] {
-			spreads = append(spreads, s)
-		}
-	}
-	if len(spreads) == 0 {
-		return nil, nil, nil, fmt.Errorf("study: the design uses none of the uncertain constants")
-	}
-	u, err := LatinHypercube(n, len(spreads), seed)
+	p, err := newSamplePlan(base, nil, n, seed)
 	if err != nil {
 		return nil, nil, nil, err
-	}
-	keys = make([]string, len(spreads))
-	for j, s := range spreads {
-		keys[j] = s.Key
 	}
 	designs = make([]*design.Design, n)
 	values = make([][]float64, n)
 	for i := range designs {
-		d := base.Clone()
-		values[i] = make([]float64, len(spreads))
-		for j, s := range spreads {
-			x, err := s.Quantile(u[i][j])
-			if err != nil {
-				return nil, nil, nil, err
-			}
-			if err := d.Set(s.Key, siText(s.Key, x)); err != nil {
-				return nil, nil, nil, fmt.Errorf("study: sample %d: %w", i+1, err)
-			}
-			values[i][j] = x
+		if designs[i], values[i], err = p.design(i); err != nil {
+			return nil, nil, nil, err
 		}
-		designs[i] = d
 	}
-	return designs, keys, values, nil
+	return designs, p.keys, values, nil
+}
+
+// samplePlan is the sampling of one design: the uncertain constants it uses and the Latin
+// hypercube that places them; sample i is made on demand, so a plan of many samples holds
+// n × (constants) numbers, not n designs.
+type samplePlan struct {
+	base    *design.Design
+	spreads []design.Spread
+	keys    []string
+	u       [][]float64
+}
+
+// newSamplePlan plans n samples of the constants of design.Spreads that base uses, leaving out
+// the keys in hold (a sweep's varied keys, which keep their grid values).
+func newSamplePlan(base *design.Design, hold []string, n int, seed uint64) (*samplePlan, error) {
+	used := map[string]bool{}
+	for _, k := range SensitivityKeys(base) {
+		used[k] = true
+	}
+	for _, k := range hold {
+		used[k] = false
+	}
+	p := &samplePlan{base: base}
+	for _, s := range design.Spreads() {
+		if used[s.Key] {
+			p.spreads = append(p.spreads, s)
+			p.keys = append(p.keys, s.Key)
+		}
+	}
+	if len(p.spreads) == 0 {
+		return nil, fmt.Errorf("study: the design uses none of the uncertain constants")
+	}
+	var err error
+	if p.u, err = LatinHypercube(n, len(p.spreads), seed); err != nil {
+		return nil, err
+	}
+	return p, nil
+}
+
+// design returns sample i: a copy of the base with every planned constant at its sampled
+// value, and those values [SI] in key order.
+func (p *samplePlan) design(i int) (*design.Design, []float64, error) {
+	d := p.base.Clone()
+	values := make([]float64, len(p.spreads))
+	for j, s := range p.spreads {
+		x, err := s.Quantile(p.u[i][j])
+		if err != nil {
+			return nil, nil, err
+		}
+		if err := d.Set(s.Key, siText(s.Key, x)); err != nil {
+			return nil, nil, fmt.Errorf("study: sample %d: %w", i+1, err)
+		}
+		values[j] = x
+	}
+	return d, values, nil
 }

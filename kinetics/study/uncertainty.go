@@ -5,6 +5,7 @@ import (
 	"fmt"
 	"math"
 	"reflect"
+	"slices"
 	"sort"
 
 	"n2pulse/kinetics"
@@ -36,6 +37,8 @@ type UncertaintyResult struct {
 	Truncated int          `json:"truncated"` // samples whose pulse outlasted the run; kept, and counted here
 	Lasing    int          `json:"lasing"`    // samples that reach the lasing threshold (kinetics.Summary.Lases)
 	Metrics   []MetricBand `json:"metrics"`   // one per numeric figure of merit with ≥ 3 defined samples
+	// figs are the samples' figures, for bands of ratios between two studies (RatioBand).
+	figs []sampleFigures
 }
 
 // Uncertainty runs base n times with the constants of design.Spreads drawn by a Latin
@@ -52,8 +55,7 @@ func Uncertainty(ctx context.Context, base *design.Design, n int, seed uint64, w
 	if run == nil {
 		run = ModelRunner
 	}
-	sums := make([]kinetics.Summary, n)
-	ok := make([]bool, n)
+	figs := make([]sampleFigures, n)
 	idx := make([]int, n)
 	for i := range idx {
 		idx[i] = i
@@ -61,57 +63,93 @@ func Uncertainty(ctx context.Context, base *design.Design, n int, seed uint64, w
 	var firstErr error
 	err = evaluate(ctx, idx, workers, func(i int) (*design.Design, error) { return designs[i], nil }, run,
 		func(o outcome) error {
-			if o.err != nil {
-				if firstErr == nil {
-					firstErr = fmt.Errorf("sample %d: %w", o.i+1, o.err)
-				}
-				return nil
+			if o.err != nil && firstErr == nil {
+				firstErr = fmt.Errorf("sample %d: %w", o.i+1, o.err)
 			}
-			sums[o.i], ok[o.i] = o.sum, true
+			figs[o.i] = figuresOf(o.sum, o.err)
 			return nil
 		})
 	if err != nil {
 		return nil, err
 	}
-	res := &UncertaintyResult{Samples: n, Seed: seed, Keys: keys}
+	res, err := bandsOf(seed, keys, values, figs)
+	if err != nil {
+		return nil, err
+	}
+	res.figs = figs
+	if res.Failed == n {
+		return nil, fmt.Errorf("study: every sample failed; first: %w", firstErr)
+	}
+	return res, nil
+}
+
+// sampleFigures is what one sample keeps of its run: the numeric figures of merit in
+// NumericMetrics order (NaN where undefined), whether it lased and was cut short, or that it
+// failed.
+type sampleFigures struct {
+	vals             []float64
+	ok               bool
+	lases, truncated bool
+}
+
+// figuresOf reads the numeric figures of merit of a run (err nil) into a sampleFigures: an
+// undefined value (NaN, infinite, or 0 for the metrics of undefinedAtZero) is NaN.
+func figuresOf(s kinetics.Summary, err error) sampleFigures {
+	if err != nil {
+		return sampleFigures{}
+	}
+	f := sampleFigures{ok: true, lases: s.Lases, truncated: s.Truncated}
+	v := reflect.ValueOf(s)
+	for fi := range summaryType.NumField() {
+		field := summaryType.Field(fi)
+		name := tableName(field)
+		if k := field.Type.Kind(); name == "" || (k != reflect.Float64 && k != reflect.Int) {
+			continue
+		}
+		x := v.Field(fi)
+		y := 0.0
+		if x.Kind() == reflect.Int {
+			y = float64(x.Int())
+		} else {
+			y = x.Float()
+		}
+		if math.IsInf(y, 0) || (y == 0 && undefinedAtZero[name]) {
+			y = math.NaN()
+		}
+		f.vals = append(f.vals, y)
+	}
+	return f
+}
+
+// bandsOf makes the result of an uncertainty study from its samples: figs[i] and values[i]
+// (the sampled constants, in keys order) of sample i. A figure of merit gets a band when at
+// least three samples define it. It does not fail when every sample failed (Failed says so).
+func bandsOf(seed uint64, keys []string, values [][]float64, figs []sampleFigures) (*UncertaintyResult, error) {
+	res := &UncertaintyResult{Samples: len(figs), Seed: seed, Keys: keys}
 	var good []int
-	for i := range ok {
-		switch {
-		case !ok[i]:
+	for i, f := range figs {
+		if !f.ok {
 			res.Failed++
-		default:
-			good = append(good, i)
-			if sums[i].Truncated {
-				res.Truncated++
-			}
-			if sums[i].Lases {
-				res.Lasing++
-			}
+			continue
+		}
+		good = append(good, i)
+		if f.truncated {
+			res.Truncated++
+		}
+		if f.lases {
+			res.Lasing++
 		}
 	}
 	if len(good) == 0 {
-		return nil, fmt.Errorf("study: every sample failed; first: %w", firstErr)
+		return res, nil
 	}
-	for fi := range summaryType.NumField() {
-		f := summaryType.Field(fi)
-		name := tableName(f)
-		if k := f.Type.Kind(); name == "" || (k != reflect.Float64 && k != reflect.Int) {
-			continue
-		}
+	for m, name := range NumericMetrics() {
 		var ys []float64
 		var rows []int
 		for _, i := range good {
-			v := reflect.ValueOf(sums[i]).Field(fi)
-			y := 0.0
-			if v.Kind() == reflect.Int {
-				y = float64(v.Int())
-			} else {
-				y = v.Float()
+			if y := figs[i].vals[m]; !math.IsNaN(y) {
+				ys, rows = append(ys, y), append(rows, i)
 			}
-			if math.IsNaN(y) || math.IsInf(y, 0) || (y == 0 && undefinedAtZero[name]) {
-				continue
-			}
-			ys, rows = append(ys, y), append(rows, i)
 		}
 		if len(ys) < 3 {
 			continue
@@ -155,4 +193,33 @@ func (r *UncertaintyResult) Metric(name string) (MetricBand, bool) {
 		}
 	}
 	return MetricBand{}, false
+}
+
+// RatioBand returns the band of the ratio b/a of a figure of merit between two designs studied
+// with the same samples (the same seed, count and sampled constants, so that sample i of each
+// carries the same constant values: a paired comparison, whose band is narrower than the two
+// bands side by side when both designs answer the constants alike). Samples where either
+// failed, either value is undefined or a's is 0 are left out; ok is false when the studies are
+// not paired or fewer than three ratios remain.
+func RatioBand(a, b *UncertaintyResult, metric string) (Band, bool) {
+	m := slices.Index(NumericMetrics(), metric)
+	if a == nil || b == nil || m < 0 || a.Seed != b.Seed || len(a.figs) != len(b.figs) || !slices.Equal(a.Keys, b.Keys) {
+		return Band{}, false
+	}
+	var rs []float64
+	for i := range a.figs {
+		fa, fb := a.figs[i], b.figs[i]
+		if !fa.ok || !fb.ok {
+			continue
+		}
+		x, y := fa.vals[m], fb.vals[m]
+		if r := y / x; x != 0 && !math.IsNaN(r) && !math.IsInf(r, 0) {
+			rs = append(rs, r)
+		}
+	}
+	if len(rs) < 3 {
+		return Band{}, false
+	}
+	band, err := BandOf(rs)
+	return band, err == nil
 }

@@ -59,12 +59,17 @@
 //
 // # Cross sections
 //
-// Three N₂ sets ship (Sets, ResolveSet; O₂ and He are common to all): "original",
-// data/xsec-n2.txt, described below; "phelps1985", data/xsec-n2-phelps.txt, the set of A.V.
+// Three sets ship (Sets, ResolveSet; He is common to all): "original", data/xsec-n2.txt and
+// data/xsec-o2.txt, described below; "phelps1985", data/xsec-n2-phelps.txt, the set of A.V.
 // Phelps & L.C. Pitchford, Phys. Rev. A 31, 2932 (1985) as distributed (with single-level
 // rotation and v = 1…8); "itikawa2006", data/xsec-n2-itikawa.txt, that set with B³Πg and C³Πu
 // from Y. Itikawa, J. Phys. Chem. Ref. Data 35, 31 (2006), Tables 8 and 10. DefaultSet names
-// the one used when none is given. The last two are made by scripts/xsec/n2_sets.py.
+// the one used when none is given. The last two are made by scripts/xsec/n2_sets.py, and both
+// take O₂ from data/xsec-o2-phelps.txt: the swarm-derived O₂ set of Phelps's compilation
+// (S.A. Lawton & A.V. Phelps, J. Chem. Phys. 69, 1055 (1978)) as distributed, with
+// single-level rotation, v = 1…4 with the 9 eV resonance, a¹Δg, b¹Σg⁺, the 4.5, 6.0, 8.4 and
+// 9.97 eV losses, ionisation and dissociative attachment; made by scripts/xsec/o2_sets.py,
+// which derives the elastic momentum transfer from the distributed total momentum transfer.
 //
 // data/xsec-n2.txt, data/xsec-o2.txt and data/xsec-he.txt, in n2pulse's own text format
 // (documented at the top of each file), each process with its source. N₂: elastic momentum
@@ -78,7 +83,7 @@
 //
 // # Attachment
 //
-// Dissociative attachment to O₂ is a cross section in data/xsec-o2.txt. Three-body attachment
+// Dissociative attachment to O₂ is a cross section in the O₂ file. Three-body attachment
 // e + O₂ + M → O₂⁻ + M (M = O₂, N₂; He as third body is neglected) is not part of the Boltzmann equation: it is added to k_att
 // after the solve as a two-body rate at the reference density N_ref (default 2.446e25 m⁻³,
 // 101325 Pa and 300 K), from the expressions of I.A. Kossyi, A.Yu. Kostinsky, A.A. Matveyev &

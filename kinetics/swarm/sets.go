@@ -10,16 +10,20 @@ import (
 	"n2pulse/data"
 )
 
-// Names of the shipped N₂ cross-section sets. O₂ and He are the same in every set.
+// Names of the shipped cross-section sets. A set names the N₂ and O₂ files (setFiles,
+// setO2Files); He is the same in every set.
 const (
 	// SetOriginal is data/xsec-n2.txt, the set the project shipped first (its processes from an
 	// auroral electron-transport code's files, each with its source there).
 	SetOriginal = "original"
 	// SetPhelps1985 is data/xsec-n2-phelps.txt: the swarm-derived set of A.V. Phelps &
-	// L.C. Pitchford, Phys. Rev. A 31, 2932 (1985), as distributed.
+	// L.C. Pitchford, Phys. Rev. A 31, 2932 (1985), as distributed; O₂ from
+	// data/xsec-o2-phelps.txt, the swarm-derived set of S.A. Lawton & A.V. Phelps, J. Chem.
+	// Phys. 69, 1055 (1978), as distributed.
 	SetPhelps1985 = "phelps1985"
 	// SetItikawa2006 is data/xsec-n2-itikawa.txt: SetPhelps1985 with B³Πg and C³Πu from
-	// Y. Itikawa, J. Phys. Chem. Ref. Data 35, 31 (2006), Tables 8 and 10.
+	// Y. Itikawa, J. Phys. Chem. Ref. Data 35, 31 (2006), Tables 8 and 10; O₂ as in
+	// SetPhelps1985.
 	SetItikawa2006 = "itikawa2006"
 )
 
@@ -32,6 +36,15 @@ var setFiles = map[string]string{
 	SetOriginal:    "xsec-n2.txt",
 	SetPhelps1985:  "xsec-n2-phelps.txt",
 	SetItikawa2006: "xsec-n2-itikawa.txt",
+}
+
+// setO2Files gives each set's O₂ file under data/: the original set keeps the O₂ data it
+// shipped with (data/xsec-o2.txt), the swarm-checked N₂ sets take the swarm-checked O₂ set of
+// the same compilation (data/xsec-o2-phelps.txt, made by scripts/xsec/o2_sets.py).
+var setO2Files = map[string]string{
+	SetOriginal:    "xsec-o2.txt",
+	SetPhelps1985:  "xsec-o2-phelps.txt",
+	SetItikawa2006: "xsec-o2-phelps.txt",
 }
 
 // Sets returns the names of the shipped cross-section sets, the default first.
@@ -95,7 +108,7 @@ func speciesFile(set, name string) (string, error) {
 	case "N2":
 		return setFiles[set], nil
 	case "O2":
-		return "xsec-o2.txt", nil
+		return setO2Files[set], nil
 	case "He":
 		return "xsec-he.txt", nil
 	}

@@ -154,3 +154,37 @@ func TestForMixtureSet(t *testing.T) {
 		t.Error("pure N2 with the Phelps set did not return its shipped table")
 	}
 }
+
+// The O₂ file of the swarm-derived sets stores elastic momentum transfer; adding back every
+// inelastic process must give the total (effective) momentum-transfer cross section as the
+// Phelps compilation distributes it (the set of Lawton & Phelps, J. Chem. Phys. 69, 1055
+// (1978), read in the community-format copy named in scripts/xsec/o2_sets.py): values at
+// points of that table, and the species' mass.
+func TestO2PhelpsEffective(t *testing.T) {
+	t.Parallel()
+	sp, err := SetSpecies(SetItikawa2006, "O2")
+	if err != nil {
+		t.Fatal(err)
+	}
+	if sp.File != "data/xsec-o2-phelps.txt" {
+		t.Fatalf("itikawa2006 O2 file %q, want data/xsec-o2-phelps.txt", sp.File)
+	}
+	// energy [eV], effective momentum transfer [m²] as distributed
+	for _, p := range [][2]float64{{0.01, 7.0e-21}, {0.45, 5.45e-20}, {0.57, 5.84e-20}, {1, 7.2e-20},
+		{7, 6.6e-20}, {15, 8.8e-20}, {100, 6.5e-20}, {1000, 2.12e-20}, {1e4, 2.8e-21}} {
+		sum := 0.0
+		for i := range sp.Processes {
+			sum += sp.Processes[i].At(p[0] * units.ElectronVolt)
+		}
+		if !scalar.EqualWithinAbsOrRel(sum, p[1], 0, 1e-6) {
+			t.Errorf("O2 at %g eV: elastic + inelastic = %.6g m², want the distributed %.6g", p[0], sum, p[1])
+		}
+	}
+	orig, err := SetSpecies(SetOriginal, "O2")
+	if err != nil {
+		t.Fatal(err)
+	}
+	if orig.File != "data/xsec-o2.txt" {
+		t.Errorf("original O2 file %q, want data/xsec-o2.txt", orig.File)
+	}
+}
