@@ -8,6 +8,8 @@ import (
 	"n2pulse/units"
 )
 
+// TestForMixture runs serially: ForMixtureSet keeps a process-wide table cache (memTables)
+// that TestForMixtureBitIdentical clears and whose contents decide which cache files appear.
 func TestForMixture(t *testing.T) {
 	dir := t.TempDir()
 	n2, err := ForMixtureSet(SetOriginal, 1, 0, 0, dir)

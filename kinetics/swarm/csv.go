@@ -85,31 +85,9 @@ func ReadCSV(r io.Reader, name string) (*Table, error) {
 	cr.FieldsPerRecord = -1
 	cr.TrimLeadingSpace = true
 	cr.Comment = '#'
-	head, err := cr.Read()
-	if err == io.EOF {
-		return nil, fmt.Errorf("swarm: %s:1: header: missing", name)
-	}
+	h, err := readCSVHeader(cr, name)
 	if err != nil {
-		return nil, fmt.Errorf("swarm: %s: %w", name, err)
-	}
-	hline, _ := cr.FieldPos(0)
-	if len(head) < len(Columns) {
-		return nil, fmt.Errorf("swarm: %s:%d: header: %d columns, need at least %d (%s)", name, hline, len(head), len(Columns), strings.Join(Columns, ", "))
-	}
-	for i, c := range Columns {
-		if strings.TrimSpace(head[i]) != c {
-			return nil, fmt.Errorf("swarm: %s:%d: header: column %d is %q, want %q", name, hline, i+1, head[i], c)
-		}
-	}
-	optAt := make([]int, len(OptionalColumns)) // header index of each optional column, or −1
-	for i, name := range OptionalColumns {
-		optAt[i] = -1
-		for j := len(Columns); j < len(head); j++ {
-			if strings.TrimSpace(head[j]) == name {
-				optAt[i] = j
-				break
-			}
-		}
+		return nil, err
 	}
 	var rows []Coefficients
 	for {
@@ -128,49 +106,9 @@ func ReadCSV(r io.Reader, name string) (*Table, error) {
 		if len(rows) >= MaxCSVRows {
 			return nil, fmt.Errorf("swarm: %s:%d: more than %d rows, the limit of a swarm table", name, ln, MaxCSVRows)
 		}
-		if len(rec) < len(Columns) {
-			return nil, fmt.Errorf("swarm: %s:%d: %s: missing (row has %d columns, need %d)", name, ln, Columns[len(rec)], len(rec), len(Columns))
-		}
-		var v [ncols]float64
-		for i := range Columns {
-			x, err := strconv.ParseFloat(strings.TrimSpace(rec[i]), 64)
-			if err != nil || math.IsNaN(x) || math.IsInf(x, 0) {
-				return nil, fmt.Errorf("swarm: %s:%d: %s: %q is not a finite number", name, ln, Columns[i], rec[i])
-			}
-			if x < 0 {
-				return nil, fmt.Errorf("swarm: %s:%d: %s: %g is negative", name, ln, Columns[i], x)
-			}
-			v[i] = x
-		}
-		if v[0] <= 0 {
-			return nil, fmt.Errorf("swarm: %s:%d: %s: %g must be positive", name, ln, Columns[0], v[0])
-		}
-		if v[2] <= 0 {
-			return nil, fmt.Errorf("swarm: %s:%d: %s: %g must be positive", name, ln, Columns[2], v[2])
-		}
-		if n := len(rows); n > 0 && v[0]*units.Townsend <= rows[n-1].ReducedField {
-			return nil, fmt.Errorf("swarm: %s:%d: %s: %g Td is not above the previous row", name, ln, Columns[0], v[0])
-		}
-		row := Coefficients{
-			ReducedField: v[0] * units.Townsend, MeanEnergy: v[1] * units.ElectronVolt,
-			DriftVelocity: v[2], AlphaN: v[3], EtaN: v[4], Ionisation: v[5], Attachment: v[6],
-			ExciteA: v[7], ExciteB: v[8], ExciteC: v[9],
-		}
-		for i, j := range optAt {
-			if j < 0 {
-				continue
-			}
-			if j >= len(rec) {
-				return nil, fmt.Errorf("swarm: %s:%d: %s: missing (row has %d columns, the header %d)", name, ln, OptionalColumns[i], len(rec), len(head))
-			}
-			x, err := strconv.ParseFloat(strings.TrimSpace(rec[j]), 64)
-			if err != nil || math.IsNaN(x) || math.IsInf(x, 0) {
-				return nil, fmt.Errorf("swarm: %s:%d: %s: %q is not a finite number", name, ln, OptionalColumns[i], rec[j])
-			}
-			if x < 0 {
-				return nil, fmt.Errorf("swarm: %s:%d: %s: %g is negative", name, ln, OptionalColumns[i], x)
-			}
-			setOptional(&row, i, x)
+		row, err := h.parseRow(rec, name, ln, rows)
+		if err != nil {
+			return nil, err
 		}
 		rows = append(rows, row)
 	}
@@ -185,6 +123,101 @@ func ReadCSV(r io.Reader, name string) (*Table, error) {
 		return nil, fmt.Errorf("%w (in %s)", err, name)
 	}
 	return t, nil
+}
+
+// csvHeader is a checked swarm-table header: its width and the index of each of the
+// OptionalColumns in it (−1 where absent).
+type csvHeader struct {
+	width int
+	optAt []int
+}
+
+// readCSVHeader reads the header line and checks it starts with the Columns in order.
+func readCSVHeader(cr *csv.Reader, name string) (*csvHeader, error) {
+	head, err := cr.Read()
+	if err == io.EOF {
+		return nil, fmt.Errorf("swarm: %s:1: header: missing", name)
+	}
+	if err != nil {
+		return nil, fmt.Errorf("swarm: %s: %w", name, err)
+	}
+	hline, _ := cr.FieldPos(0)
+	if len(head) < len(Columns) {
+		return nil, fmt.Errorf("swarm: %s:%d: header: %d columns, need at least %d (%s)", name, hline, len(head), len(Columns), strings.Join(Columns, ", "))
+	}
+	for i, c := range Columns {
+		if strings.TrimSpace(head[i]) != c {
+			return nil, fmt.Errorf("swarm: %s:%d: header: column %d is %q, want %q", name, hline, i+1, head[i], c)
+		}
+	}
+	h := &csvHeader{width: len(head), optAt: make([]int, len(OptionalColumns))}
+	for i, name := range OptionalColumns {
+		h.optAt[i] = -1
+		for j := len(Columns); j < len(head); j++ {
+			if strings.TrimSpace(head[j]) == name {
+				h.optAt[i] = j
+				break
+			}
+		}
+	}
+	return h, nil
+}
+
+// parseRow reads one record, at line ln of the file name, into coefficients in SI units; prev
+// are the rows read before it (E/N must rise).
+func (h *csvHeader) parseRow(rec []string, name string, ln int, prev []Coefficients) (Coefficients, error) {
+	if len(rec) < len(Columns) {
+		return Coefficients{}, fmt.Errorf("swarm: %s:%d: %s: missing (row has %d columns, need %d)", name, ln, Columns[len(rec)], len(rec), len(Columns))
+	}
+	var v [ncols]float64
+	for i := range Columns {
+		x, err := csvNumber(rec[i], name, ln, Columns[i])
+		if err != nil {
+			return Coefficients{}, err
+		}
+		v[i] = x
+	}
+	if v[0] <= 0 {
+		return Coefficients{}, fmt.Errorf("swarm: %s:%d: %s: %g must be positive", name, ln, Columns[0], v[0])
+	}
+	if v[2] <= 0 {
+		return Coefficients{}, fmt.Errorf("swarm: %s:%d: %s: %g must be positive", name, ln, Columns[2], v[2])
+	}
+	if n := len(prev); n > 0 && v[0]*units.Townsend <= prev[n-1].ReducedField {
+		return Coefficients{}, fmt.Errorf("swarm: %s:%d: %s: %g Td is not above the previous row", name, ln, Columns[0], v[0])
+	}
+	row := Coefficients{
+		ReducedField: v[0] * units.Townsend, MeanEnergy: v[1] * units.ElectronVolt,
+		DriftVelocity: v[2], AlphaN: v[3], EtaN: v[4], Ionisation: v[5], Attachment: v[6],
+		ExciteA: v[7], ExciteB: v[8], ExciteC: v[9],
+	}
+	for i, j := range h.optAt {
+		if j < 0 {
+			continue
+		}
+		if j >= len(rec) {
+			return Coefficients{}, fmt.Errorf("swarm: %s:%d: %s: missing (row has %d columns, the header %d)", name, ln, OptionalColumns[i], len(rec), h.width)
+		}
+		x, err := csvNumber(rec[j], name, ln, OptionalColumns[i])
+		if err != nil {
+			return Coefficients{}, err
+		}
+		setOptional(&row, i, x)
+	}
+	return row, nil
+}
+
+// csvNumber parses one field, at line ln of the file name, as a finite number ≥ 0; column
+// names it in the error.
+func csvNumber(field, name string, ln int, column string) (float64, error) {
+	x, err := strconv.ParseFloat(strings.TrimSpace(field), 64)
+	if err != nil || math.IsNaN(x) || math.IsInf(x, 0) {
+		return 0, fmt.Errorf("swarm: %s:%d: %s: %q is not a finite number", name, ln, column, field)
+	}
+	if x < 0 {
+		return 0, fmt.Errorf("swarm: %s:%d: %s: %g is negative", name, ln, column, x)
+	}
+	return x, nil
 }
 
 // WriteCSV writes the table with the Columns and OptionalColumns header, E/N in Td and mean

@@ -140,6 +140,8 @@ func TestCSVRoundTripExact(t *testing.T) {
 // cache, a warm cache, a second directory solved concurrently by two goroutines, and a cache
 // directory that cannot be written (issue 11 item 2: the fresh solve was used at full
 // precision, the cached file at 8 digits).
+//
+// It runs serially: it clears the process-wide table cache.
 func TestForMixtureBitIdentical(t *testing.T) {
 	cold := t.TempDir()
 	a, err := ForMixtureSet(SetOriginal, 0.5, 0, 0.5, cold)

@@ -134,6 +134,9 @@ func TestResolveSet(t *testing.T) {
 
 // A mixture solved with another set is cached under another key: it is not the default set's
 // table (the cache key carries the set and a hash of its files); original against itikawa2006.
+//
+// It runs serially: it shares the process-wide table cache (memTables) with
+// TestForMixture and TestForMixtureBitIdentical.
 func TestForMixtureSet(t *testing.T) {
 	dir := t.TempDir()
 	a, err := ForMixtureSet(SetOriginal, 0.5, 0, 0.5, dir)

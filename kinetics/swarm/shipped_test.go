@@ -19,6 +19,7 @@ var update = flag.Bool("update", false, "rewrite the shipped tables data/swarm-*
 // adaptive grid moves results by about 1e-3 only if its path changes). With -update the files
 // are rewritten.
 func TestShippedTables(t *testing.T) {
+	t.Parallel()
 	var cases []struct {
 		gas, set string
 		xn, xo   float64
@@ -88,6 +89,7 @@ func TestMain(m *testing.M) {
 // solve at the geometric midpoints: drift velocity and mean energy within 0.5 %, α/N and the
 // excitation rates within 3 % where they exceed 1e-20 m³/s resp. 1e-25 m².
 func TestTableResolution(t *testing.T) {
+	t.Parallel()
 	tb, err := BuiltinSet("n2", SetOriginal)
 	if err != nil {
 		t.Fatal(err)

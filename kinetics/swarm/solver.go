@@ -614,28 +614,78 @@ func (s *Solver) Sweep(fields []float64) ([]*Result, error) {
 	return out, nil
 }
 
+// result turns a converged state into the Result: the EEDF, transport, each process's rate,
+// the power balance and its split by channel.
 func (s *Solver) result(st *state) *Result {
 	g := st.g
 	n := g.n
-	F := st.F
 	en := st.reducedFld
 	ev := units.ElectronVolt
 	r := &Result{Energy: make([]float64, n), EEDF: make([]float64, n), MaxEnergy: g.f[n] * ev,
 		Iterations: st.iterations, GrowthRate: st.nu}
-	// EEDF in J^-3/2
+	mean := fillEEDF(r, st)
+	muN, dN, pel := transportSums(st)
+	w := muN * en
+	c := s.collisionSums(st, r)
+	r.DiffusionN = dN
+	if muN > 0 {
+		r.Characteristic = dN / muN * ev
+	}
+	r.PowerField = en * w * ev
+	r.PowerElastic = pel * ev
+	r.PowerInelastic = c.pinel * ev
+	r.PowerAttachment = c.patt * ev
+	r.PowerGrowth = st.nu * mean * ev
+	k3 := 0.0
+	if !s.set.NoThreeBody && s.xO2 > 0 {
+		k3 = s.threeBody(mean)
+	}
+	r.ThreeBodyAttachment = k3
+	r.Coefficients = Coefficients{ReducedField: en, MeanEnergy: mean * ev, DriftVelocity: w,
+		Ionisation: c.kIon, Attachment: c.kAtt + k3, ExciteA: c.kA, ExciteB: c.kB, ExciteC: c.kC,
+		ThreeBodyAttachment: k3, ExciteW: c.kW, ExciteBPrime: c.kBp}
+	// The power split: the elastic recoil, each channel's collisions, and the energy given to
+	// new electrons counted with ionisation. Where attachment outpaces ionisation that last
+	// term is negative; it is left out there (its size is the energy the lost electrons
+	// carried, already in the attachment channel). Energies in eV as the sums above.
+	split := c.split
+	split[ChannelElastic] += max(pel, 0)
+	split[ChannelIonisation] += max(st.nu*mean, 0)
+	for ch := range split {
+		r.Power[ch] = max(split[ch], 0) * ev
+	}
+	if w > 0 {
+		r.AlphaN = c.kIon / w
+		r.EtaN = (c.kAtt + k3) / w
+	}
+	return r
+}
+
+// fillEEDF sets r's cell energies [J], EEDF [J^-3/2] and normalisation from the state and
+// returns the mean energy [eV].
+func fillEEDF(r *Result, st *state) float64 {
+	g := st.g
+	ev := units.ElectronVolt
 	conv := math.Pow(ev, -1.5)
 	mean, norm := 0.0, 0.0
-	for i := 0; i < n; i++ {
+	for i := 0; i < g.n; i++ {
 		r.Energy[i] = g.c[i] * ev
-		r.EEDF[i] = F[i] * conv
-		mean += F[i] * g.we[i]
-		norm += F[i] * g.w[i]
+		r.EEDF[i] = st.F[i] * conv
+		mean += st.F[i] * g.we[i]
+		norm += st.F[i] * g.w[i]
 	}
 	r.Normalisation = norm
-	// mobility from the face gradients: μN = −(γ/3) ∫ ε/σ̃ dF0/dε dε
-	muN := 0.0
-	pel := 0.0
-	dN := 0.0
+	return mean
+}
+
+// transportSums returns the reduced mobility μN from the face gradients,
+// μN = −(γ/3) ∫ ε/σ̃ dF0/dε dε, the reduced diffusion DN = (γ/3) ∫ ε/σ̃ F0 dε and the power
+// the elastic power pel (recoil less the gas's thermal share), all in the solver's internal
+// units (energies in eV).
+func transportSums(st *state) (muN, dN, pel float64) {
+	g := st.g
+	n := g.n
+	F := st.F
 	for i := 0; i < n; i++ {
 		// σ̃ at the cell centre from the neighbouring faces (the end cells use their inner face)
 		var st1 float64
@@ -657,9 +707,22 @@ func (s *Solver) result(st *state) *Result {
 	}
 	// the half cells at both ends of the face sum
 	pel += gamma * g.f[1] * g.f[1] * g.se[1] * F[0] * (g.c[0] - g.f[0]) / 3
-	w := muN * en
-	var kA, kB, kC, kW, kBp, kIon, kAtt, pinel, patt float64
-	var split [NumChannels]float64
+	return muN, dN, pel
+}
+
+// collisionTotals are the sums over every process of a solve, per total gas molecule: the
+// N₂ excitation rates by label, the ionisation and attachment rates [m³/s], the inelastic and
+// attachment powers and the power by channel [eV m³/s].
+type collisionTotals struct {
+	kA, kB, kC, kW, kBp, kIon, kAtt, pinel, patt float64
+	split                                        [NumChannels]float64
+}
+
+// collisionSums appends each process's rate to r.Rates and returns the totals.
+func (s *Solver) collisionSums(st *state, r *Result) collisionTotals {
+	g := st.g
+	F := st.F
+	var c collisionTotals
 	for q, ref := range g.procIdx {
 		cm := &s.mix[ref.comp]
 		pr := &cm.procs[ref.proc]
@@ -673,63 +736,38 @@ func (s *Solver) result(st *state) *Result {
 		ch := channelOf(cm.name, pr.p.Kind, pr.p.Label)
 		switch pr.p.Kind {
 		case Ionisation:
-			kIon += cm.x * k
-			pinel += cm.x * pr.u * k
-			split[ch] += cm.x * pr.u * k
+			c.kIon += cm.x * k
+			c.pinel += cm.x * pr.u * k
+			c.split[ch] += cm.x * pr.u * k
 		case Attachment:
-			kAtt += cm.x * k
-			patt += cm.x * ke
-			split[ch] += cm.x * ke
+			c.kAtt += cm.x * k
+			c.patt += cm.x * ke
+			c.split[ch] += cm.x * ke
 		default:
-			pinel += cm.x * pr.u * k
-			split[ch] += cm.x * pr.u * k
+			c.pinel += cm.x * pr.u * k
+			c.split[ch] += cm.x * pr.u * k
 		}
 		if pr.isN2 {
-			switch pr.p.Label {
-			case "A":
-				kA += k
-			case "B":
-				kB += k
-			case "C":
-				kC += k
-			case "W":
-				kW += k
-			case "Bp":
-				kBp += k
-			}
+			c.addN2(pr.p.Label, k)
 		}
 	}
-	r.DiffusionN = dN
-	if muN > 0 {
-		r.Characteristic = dN / muN * ev
+	return c
+}
+
+// addN2 adds an N₂ process's rate k to the excitation total its label names, if any.
+func (c *collisionTotals) addN2(label string, k float64) {
+	switch label {
+	case "A":
+		c.kA += k
+	case "B":
+		c.kB += k
+	case "C":
+		c.kC += k
+	case "W":
+		c.kW += k
+	case "Bp":
+		c.kBp += k
 	}
-	r.PowerField = en * w * ev
-	r.PowerElastic = pel * ev
-	r.PowerInelastic = pinel * ev
-	r.PowerAttachment = patt * ev
-	r.PowerGrowth = st.nu * mean * ev
-	k3 := 0.0
-	if !s.set.NoThreeBody && s.xO2 > 0 {
-		k3 = s.threeBody(mean)
-	}
-	r.ThreeBodyAttachment = k3
-	r.Coefficients = Coefficients{ReducedField: en, MeanEnergy: mean * ev, DriftVelocity: w,
-		Ionisation: kIon, Attachment: kAtt + k3, ExciteA: kA, ExciteB: kB, ExciteC: kC,
-		ThreeBodyAttachment: k3, ExciteW: kW, ExciteBPrime: kBp}
-	// The power split: the elastic recoil, each channel's collisions, and the energy given to
-	// new electrons counted with ionisation. Where attachment outpaces ionisation that last
-	// term is negative; it is left out there (its size is the energy the lost electrons
-	// carried, already in the attachment channel). Energies in eV as the sums above.
-	split[ChannelElastic] += max(pel, 0)
-	split[ChannelIonisation] += max(st.nu*mean, 0)
-	for c := range split {
-		r.Power[c] = max(split[c], 0) * ev
-	}
-	if w > 0 {
-		r.AlphaN = kIon / w
-		r.EtaN = (kAtt + k3) / w
-	}
-	return r
 }
 
 // threeBody returns the three-body attachment e + O₂ + M → O₂⁻ + M as a two-body rate per total

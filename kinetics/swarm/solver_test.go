@@ -23,6 +23,7 @@ func syntheticSpecies(sigma func(eV float64) float64) *Species {
 // w = (γ/2)(E/N)/C = eE/(m ν_m) (analytic: e.g. Hagelaar & Pitchford 2005, section 2; Raizer,
 // Gas Discharge Physics, 1991, section 2.4). Mean energy within 1 %.
 func TestMaxwellLimit(t *testing.T) {
+	t.Parallel()
 	const C = 1e-20 // m² eV^½
 	sp := syntheticSpecies(func(e float64) float64 { return C / math.Sqrt(e) })
 	s, err := NewSolver([]Component{{sp, 1}}, &Settings{Cells: 400})
@@ -62,6 +63,7 @@ func TestMaxwellLimit(t *testing.T) {
 // a² = (M/3m)(E/N / σ)², mean energy a·Γ(5/4)/Γ(3/4) (Druyvesteyn 1930; analytic, e.g. Raizer,
 // Gas Discharge Physics, 1991, section 2.5). Within 1 %.
 func TestDruyvesteynLimit(t *testing.T) {
+	t.Parallel()
 	const sigma = 1e-19
 	sp := syntheticSpecies(func(float64) float64 { return sigma })
 	s, err := NewSolver([]Component{{sp, 1}}, &Settings{Cells: 400, ColdGas: true})
@@ -97,6 +99,7 @@ func n2Solver(t testing.TB, cells int) *Solver {
 // ~1e-5), EEDF normalised to 1e-9, growth rate self-consistent, in N₂ and air from 10 to
 // 3000 Td (conservation test of the discretisation).
 func TestBalances(t *testing.T) {
+	t.Parallel()
 	for _, x := range []struct{ n, o float64 }{{1, 0}, {AirNitrogen, AirOxygen}} {
 		mix, _ := SetMixture(SetOriginal, x.n, x.o, 0)
 		s, err := NewSolver(mix, nil)
@@ -125,6 +128,7 @@ func TestBalances(t *testing.T) {
 // TestNumberConservation: each column of the inelastic operator removes exactly the electrons
 // lost by attachment and adds one per ionisation (both sharing rules).
 func TestNumberConservation(t *testing.T) {
+	t.Parallel()
 	mix, _ := SetMixture(SetOriginal, AirNitrogen, AirOxygen, 0)
 	for _, sh := range []Sharing{EqualSharing, OneTakesAll} {
 		s, err := NewSolver(mix, &Settings{Sharing: sh})
@@ -160,6 +164,7 @@ func TestNumberConservation(t *testing.T) {
 // the change from 200 to 400 cells is smaller than from 100 to 200 and below 1 % (drift, mean
 // energy, α/N) or 3 % (k_C).
 func TestGridConvergence(t *testing.T) {
+	t.Parallel()
 	var res [3]*Result
 	for _, td := range []float64{100, 1000} {
 		for k, n := range []int{100, 200, 400} {
@@ -194,6 +199,7 @@ func TestGridConvergence(t *testing.T) {
 // TestSharingRules: both ionisation sharing rules conserve power; at 1000 Td one-takes-all
 // leaves the primary with more energy, so α/N is not lower than with equal sharing.
 func TestSharingRules(t *testing.T) {
+	t.Parallel()
 	mix, _ := SetMixture(SetOriginal, 1, 0, 0)
 	var an [2]float64
 	for k, sh := range []Sharing{EqualSharing, OneTakesAll} {
@@ -213,6 +219,7 @@ func TestSharingRules(t *testing.T) {
 }
 
 func TestSolverInputErrors(t *testing.T) {
+	t.Parallel()
 	mix, _ := SetMixture(SetOriginal, 1, 0, 0)
 	if _, err := NewSolver(mix, &Settings{Cells: 5}); err == nil {
 		t.Error("5 cells accepted")

@@ -19,6 +19,7 @@ func sampleRows() []Coefficients {
 }
 
 func TestTableInterpolation(t *testing.T) {
+	t.Parallel()
 	tb, err := NewTable(sampleRows())
 	if err != nil {
 		t.Fatal(err)
@@ -50,6 +51,7 @@ func TestTableInterpolation(t *testing.T) {
 }
 
 func TestTableOutOfRange(t *testing.T) {
+	t.Parallel()
 	tb, _ := NewTable(sampleRows())
 	c := tb.At(5 * units.Townsend) // constant mobility below the range
 	if math.Abs(c.DriftVelocity-1e4) > 1e-9 || c.ExciteB != 1e-19 || c.ReducedField != 5*units.Townsend {
@@ -72,6 +74,7 @@ func TestTableOutOfRange(t *testing.T) {
 }
 
 func TestTableConcurrent(t *testing.T) {
+	t.Parallel()
 	tb, _ := NewTable(sampleRows())
 	var wg sync.WaitGroup
 	for g := 0; g < 4; g++ {
@@ -89,6 +92,8 @@ func TestTableConcurrent(t *testing.T) {
 	}
 }
 
+// TestAtAllocationFree runs serially: testing.AllocsPerRun counts every allocation of the
+// process, so parallel tests would be counted too.
 func TestAtAllocationFree(t *testing.T) {
 	tb, _ := NewTable(sampleRows())
 	n := testing.AllocsPerRun(1000, func() { tb.At(123 * units.Townsend) })
@@ -98,6 +103,7 @@ func TestAtAllocationFree(t *testing.T) {
 }
 
 func TestNewTableErrors(t *testing.T) {
+	t.Parallel()
 	bad := sampleRows()
 	bad[1].ReducedField = bad[0].ReducedField
 	if _, err := NewTable(bad); err == nil || !strings.Contains(err.Error(), "row 2: reduced field") {
@@ -114,6 +120,7 @@ func TestNewTableErrors(t *testing.T) {
 }
 
 func TestCSVRoundTrip(t *testing.T) {
+	t.Parallel()
 	tb, _ := NewTable(sampleRows())
 	var buf bytes.Buffer
 	if err := tb.WriteCSV(&buf); err != nil {
@@ -138,6 +145,7 @@ func TestCSVRoundTrip(t *testing.T) {
 }
 
 func TestReadCSVErrors(t *testing.T) {
+	t.Parallel()
 	head := strings.Join(Columns, ",") + ",extra\n"
 	row := "10,1,2e4,0,0,0,0,0,0,0,7\n"
 	for _, c := range []struct{ in, want string }{
@@ -158,6 +166,7 @@ func TestReadCSVErrors(t *testing.T) {
 }
 
 func TestBuiltin(t *testing.T) {
+	t.Parallel()
 	for _, g := range []string{"n2", "air"} {
 		tb, err := BuiltinSet(g, SetOriginal)
 		if err != nil {

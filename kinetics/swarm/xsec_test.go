@@ -34,6 +34,7 @@ end
 `
 
 func TestParseCrossSections(t *testing.T) {
+	t.Parallel()
 	sp, err := ParseCrossSections(strings.NewReader(goodSet), "good.txt")
 	if err != nil {
 		t.Fatal(err)
@@ -54,6 +55,7 @@ func TestParseCrossSections(t *testing.T) {
 }
 
 func TestParseCrossSectionErrors(t *testing.T) {
+	t.Parallel()
 	for _, c := range []struct{ edit, want string }{
 		{strings.Replace(goodSet, "mass_amu 28", "mass_amu heavy", 1), "bad.txt:4: mass_amu: \"heavy\" is not a mass"},
 		{strings.Replace(goodSet, "kind excitation", "kind ionization", 1), "bad.txt:15: kind: \"ionization\", want elastic"},
@@ -78,6 +80,7 @@ func TestParseCrossSectionErrors(t *testing.T) {
 // with thresholds from the sources (physics-data.md sections 1c and 4: A 6.17, B 7.35,
 // C 11.03, ionisation 15.58 eV; seen in the cross-section files cited there).
 func TestShippedCrossSections(t *testing.T) {
+	t.Parallel()
 	n2, err := SetSpecies(SetOriginal, "N2")
 	if err != nil {
 		t.Fatal(err)
