@@ -2,6 +2,7 @@ package main
 
 import (
 	"bytes"
+	"context"
 	"encoding/csv"
 	"encoding/json"
 	"fmt"
@@ -34,8 +35,11 @@ type compared struct {
 	Name    string           `json:"name"`
 	File    string           `json:"file"`
 	Summary kinetics.Summary `json:"summary"`
-	design  *design.Design
-	result  *kinetics.Result
+	// Uncertainty is the design's band with --uncertainty (uncertaintyJSON).
+	Uncertainty map[string]any `json:"uncertainty,omitempty"`
+	design      *design.Design
+	result      *kinetics.Result
+	band        *study.UncertaintyResult
 }
 
 // keyDiff is a design key whose value differs between the designs, in SI.
@@ -50,6 +54,11 @@ type metricRow struct {
 	Metric string     `json:"metric"`
 	Values []float64  `json:"values"`
 	Ratios []*float64 `json:"ratio_to_first"`
+	// Bands (with --uncertainty) is each design's 5/50/95 % band, null where it has none;
+	// RatioBands the band of each design's ratio to the first over paired samples (the same
+	// constants in both), null where there is none.
+	Bands      []*study.Band `json:"bands,omitempty"`
+	RatioBands []*study.Band `json:"ratio_to_first_bands,omitempty"`
 }
 
 // comparison is what `compare --json` prints.
@@ -58,6 +67,9 @@ type comparison struct {
 	Differ  []keyDiff   `json:"differing_keys"`
 	Metrics []metricRow `json:"metrics"`
 	Files   []string    `json:"files,omitempty"`
+	// Samples and Seed of --uncertainty; absent without.
+	Samples int    `json:"uncertainty_samples,omitempty"`
+	Seed    uint64 `json:"uncertainty_seed,omitempty"`
 }
 
 func runCompare(args []string, stdout, stderr io.Writer) error {
@@ -65,13 +77,24 @@ func runCompare(args []string, stdout, stderr io.Writer) error {
 	sets := fs.StringArray("set", nil, `override a design key in every design, e.g. --set gas.pressure="40 Torr" (repeatable)`)
 	out := fs.String("out", "compare", `directory for compare.csv, the figure compare.png/.svg and report.html ("" writes none)`)
 	asJSON := fs.Bool("json", false, "print the comparison as JSON on stdout (SI units)")
+	samples := fs.Int("uncertainty", 0, fmt.Sprintf("also run every design over the same N samples of the uncertain constants (Latin hypercube, %d…%d): each figure's 5–95 %% band and the band of each ratio to the first design", study.MinSamples, study.MaxSamples))
+	seed := fs.Uint64("seed", 1, "seed of the --uncertainty samples (the same seed gives the same bands on any machine and worker count)")
 	if help, err := parseFlags(fs, args); help || err != nil {
 		return err
 	}
 	if fs.NArg() < 2 {
 		return usagef("compare: name at least two design files, got %d", fs.NArg())
 	}
-	var c comparison
+	if err := study.CheckSamples("--uncertainty", *samples); err != nil {
+		return usageOf("compare: ", err)
+	}
+	if err := study.CheckSampledRuns("--uncertainty", *samples, fs.NArg()); err != nil {
+		return usageOf("compare: ", err)
+	}
+	c := comparison{Samples: *samples}
+	if *samples > 0 {
+		c.Seed = *seed
+	}
 	seen := map[string]int{}
 	for _, f := range fs.Args() {
 		d, err := loadDesign([]string{f}, *sets)
@@ -87,7 +110,14 @@ func runCompare(args []string, stdout, stderr io.Writer) error {
 			name = strings.TrimSuffix(filepath.Base(f), filepath.Ext(f))
 		}
 		seen[name]++
-		c.Designs = append(c.Designs, compared{Name: name, File: f, Summary: r.Summary, design: d, result: r})
+		cd := compared{Name: name, File: f, Summary: r.Summary, design: d, result: r}
+		if *samples > 0 {
+			if cd.band, err = study.Uncertainty(context.Background(), d, *samples, *seed, 0, nil); err != nil {
+				return fmt.Errorf("compare: %s: --uncertainty: %w", f, err)
+			}
+			cd.Uncertainty = uncertaintyJSON(cd.band)
+		}
+		c.Designs = append(c.Designs, cd)
 		for _, w := range r.Warnings {
 			fmt.Fprintf(stderr, "warning: %s: %s\n", name, w)
 		}
@@ -110,6 +140,9 @@ func runCompare(args []string, stdout, stderr io.Writer) error {
 		fmt.Fprintln(stdout, string(b))
 	} else {
 		printComparison(stdout, &c)
+		if c.Samples > 0 {
+			printCompareBands(stdout, &c)
+		}
 	}
 	var stored, pulse float64
 	for _, d := range c.Designs {
@@ -182,6 +215,20 @@ func metricRows(ds []compared) ([]metricRow, error) {
 				row.Ratios = append(row.Ratios, &r)
 			} else {
 				row.Ratios = append(row.Ratios, nil)
+			}
+		}
+		if ds[0].band != nil {
+			for _, d := range ds {
+				if b, ok := d.band.Metric(m); ok {
+					row.Bands = append(row.Bands, &b.Band)
+				} else {
+					row.Bands = append(row.Bands, nil)
+				}
+				if b, ok := study.RatioBand(ds[0].band, d.band, m); ok {
+					row.RatioBands = append(row.RatioBands, &b)
+				} else {
+					row.RatioBands = append(row.RatioBands, nil)
+				}
 			}
 		}
 		rows = append(rows, row)
@@ -285,10 +332,23 @@ func writeCompareFiles(dir string, c *comparison) ([]string, error) {
 	for _, d := range c.Designs[1:] {
 		head = append(head, "ratio "+d.Name+"/"+c.Designs[0].Name)
 	}
+	if c.Samples > 0 {
+		for _, d := range c.Designs {
+			for _, s := range study.BandSuffixes {
+				head = append(head, d.Name+s)
+			}
+		}
+		for _, d := range c.Designs[1:] {
+			for _, s := range study.BandSuffixes {
+				head = append(head, "ratio "+d.Name+"/"+c.Designs[0].Name+s)
+			}
+		}
+	}
+	bandWidth := len(head) - 2*len(c.Designs)
 	cw.Write(head)
 	for _, k := range c.Differ {
 		row := append([]string{k.Key}, k.Values...)
-		cw.Write(append(row, make([]string, len(c.Designs)-1)...))
+		cw.Write(append(row, make([]string, len(c.Designs)-1+bandWidth)...))
 	}
 	for _, m := range c.Metrics {
 		row := []string{m.Metric}
@@ -302,7 +362,21 @@ func writeCompareFiles(dir string, c *comparison) ([]string, error) {
 				row = append(row, strconv.FormatFloat(*r, 'g', 6, 64))
 			}
 		}
+		for _, b := range append(append([]*study.Band(nil), m.Bands...), ratioTail(m.RatioBands)...) {
+			if b == nil {
+				row = append(row, "", "", "")
+				continue
+			}
+			for _, v := range []float64{b.P05, b.P50, b.P95} {
+				row = append(row, strconv.FormatFloat(v, 'g', -1, 64))
+			}
+		}
 		cw.Write(row)
+	}
+	if c.Samples > 0 {
+		for _, line := range compareBandRows(c) {
+			cw.Write(append(line, make([]string, len(c.Designs)-1+bandWidth)...))
+		}
 	}
 	cw.Flush()
 	files := []string{filepath.Join(dir, "compare.csv")}

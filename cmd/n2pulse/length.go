@@ -41,8 +41,13 @@ func runLength(args []string, stdout, stderr io.Writer) error {
 	memLimit := fs.String("memory-limit", "", `largest memory all lengths computed at once may take, e.g. "8 GB" (default: half the machine's memory); each length gets its share`)
 	asJSON := fs.Bool("json", false, "print the scan as JSON on stdout (SI units) instead of a table")
 	scale := fs.Bool("scale-capacitors", true, "grow both capacitors in proportion to the channel length (Blumlein plates running along the channel); --scale-capacitors=false keeps the design's circuit at every length")
+	samples := fs.Int("uncertainty", 0, fmt.Sprintf("also run every length over N samples of the uncertain constants (Latin hypercube, %d…%d): the 5–95 %% band of every figure and of the useful length, with the constants that drive them", study.MinSamples, study.MaxSamples))
+	seed := fs.Uint64("seed", 1, "seed of the --uncertainty samples (the same seed gives the same scan on any machine and worker count)")
 	if help, err := parseFlags(fs, args); help || err != nil {
 		return err
+	}
+	if err := study.CheckSamples("--uncertainty", *samples); err != nil {
+		return usageOf("length: ", err)
 	}
 	if *points < 3 || *points > 10000 {
 		return usagef("length: --points %d: allowed 3 to 10000", *points)
@@ -54,7 +59,7 @@ func runLength(args []string, stdout, stderr io.Writer) error {
 	if err != nil {
 		return err
 	}
-	s := &study.LengthScan{Design: d, Points: *points, Workers: *workers, ScaleCapacitors: *scale}
+	s := &study.LengthScan{Design: d, Points: *points, Workers: *workers, ScaleCapacitors: *scale, Samples: *samples, Seed: *seed}
 	if s.Runner, err = sharedMemoryRunner("length", *memLimit, *workers); err != nil {
 		return err
 	}
@@ -79,6 +84,13 @@ func runLength(args []string, stdout, stderr io.Writer) error {
 		}
 		s.TravellingWave = probe.Optics.ExcitationVelocity
 	}
+	curves := 1
+	if s.TravellingWave != 0 {
+		curves = 2
+	}
+	if err := study.CheckSampledRuns("--uncertainty", *samples, curves**points); err != nil {
+		return usageOf("length: ", err)
+	}
 	ctx, stop := signal.NotifyContext(context.Background(), os.Interrupt, syscall.SIGTERM)
 	defer stop()
 	r, err := s.Run(ctx)
@@ -100,6 +112,9 @@ func runLength(args []string, stdout, stderr io.Writer) error {
 	}
 	if !*asJSON {
 		printLength(stdout, r)
+		if r.Samples > 0 {
+			printLengthBands(stdout, r, *seed)
+		}
 	}
 	if *out == "" {
 		return nil
@@ -174,17 +189,27 @@ func printLength(w io.Writer, r *study.LengthResult) {
 // lengthJSON is one curve of `length --json`, in SI.
 type lengthJSON struct {
 	// ExcitationVelocity is the front speed [m/s]; null for a simultaneous discharge.
-	ExcitationVelocity *float64          `json:"excitation_velocity_m_s"`
-	UsefulLength       *float64          `json:"useful_length_m"` // null when there is none
-	Rule               string            `json:"useful_length_rule"`
-	TransitLength      *float64          `json:"transit_length_m"` // c·τ_g
-	Points             []lengthPointJSON `json:"points"`
+	ExcitationVelocity *float64 `json:"excitation_velocity_m_s"`
+	UsefulLength       *float64 `json:"useful_length_m"` // null when there is none
+	Rule               string   `json:"useful_length_rule"`
+	TransitLength      *float64 `json:"transit_length_m"` // c·τ_g
+	// UsefulP05 … UsefulP95 are the band of the useful length over the --uncertainty samples
+	// (each sample's own curve), UsefulSamples the samples that have one; absent without.
+	UsefulP05     *float64          `json:"useful_length_m_p05,omitempty"`
+	UsefulP50     *float64          `json:"useful_length_m_p50,omitempty"`
+	UsefulP95     *float64          `json:"useful_length_m_p95,omitempty"`
+	UsefulSamples *int              `json:"useful_length_samples,omitempty"`
+	UsefulBeyond  *int              `json:"useful_length_beyond_samples,omitempty"` // samples still rising at the longest length (their quantiles are null)
+	Points        []lengthPointJSON `json:"points"`
 }
 
 type lengthPointJSON struct {
 	Length  float64           `json:"length_m"`
 	Summary *kinetics.Summary `json:"summary,omitempty"`
 	Error   string            `json:"error,omitempty"`
+	// Uncertainty is the point's band with --uncertainty (uncertaintyJSON, with "note": why
+	// the band is flagged, "" when not).
+	Uncertainty map[string]any `json:"uncertainty,omitempty"`
 }
 
 // finite returns a pointer to v, or nil for NaN and infinities (JSON has no such numbers).
@@ -204,8 +229,22 @@ func printLengthJSON(w io.Writer, r *study.LengthResult, scaled bool) error {
 	}{ScaleCapacitors: scaled}
 	for _, c := range r.Curves {
 		j := lengthJSON{ExcitationVelocity: finite(c.Velocity), UsefulLength: finite(c.Useful), Rule: c.Rule, TransitLength: finite(c.Transit)}
+		if r.Samples > 0 {
+			n, beyond := c.UsefulSamples, c.UsefulBeyond
+			j.UsefulSamples, j.UsefulBeyond = &n, &beyond
+			if b := c.UsefulBand; b != nil {
+				j.UsefulP05, j.UsefulP50, j.UsefulP95 = finite(b.P05), finite(b.P50), finite(b.P95)
+			}
+		}
 		for _, p := range c.Points {
 			pj := lengthPointJSON{Length: p.Length}
+			if r.Samples > 0 {
+				pj.Uncertainty = uncertaintyJSON(p.Band)
+				if pj.Uncertainty == nil {
+					pj.Uncertainty = map[string]any{}
+				}
+				pj.Uncertainty["note"] = p.BandNote
+			}
 			if p.Err != nil {
 				pj.Error = p.Err.Error()
 			} else {
@@ -222,4 +261,74 @@ func printLengthJSON(w io.Writer, r *study.LengthResult, scaled bool) error {
 	}
 	fmt.Fprintln(w, string(b))
 	return nil
+}
+
+// printLengthBands writes the band of each length (output-end energy and peak power) with the
+// rows flagged, then each curve's useful-length band and the constants that drive the energy.
+func printLengthBands(w io.Writer, r *study.LengthResult, seed uint64) {
+	fmt.Fprintf(w, "\nuncertainty: %d samples of the uncertain constants at every length (Latin hypercube, seed %d)\n", r.Samples, seed)
+	tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
+	for c, cur := range r.Curves {
+		pre := ""
+		if c > 0 {
+			pre = "tw "
+		}
+		fmt.Fprintf(tw, "%slength [cm]\tenergy 5 %% / median / 95 %% [µJ]\tpeak 5 %% / median / 95 %% [kW]\tnote\n", pre)
+		for _, p := range cur.Points {
+			e, pk := "–", "–"
+			if p.Band != nil {
+				if b, ok := p.Band.Metric("energy_front_J"); ok {
+					e = fmt.Sprintf("%.4g / %.4g / %.4g", 1e6*b.P05, 1e6*b.P50, 1e6*b.P95)
+				}
+				if b, ok := p.Band.Metric("peak_power_W"); ok {
+					pk = fmt.Sprintf("%.4g / %.4g / %.4g", 1e-3*b.P05, 1e-3*b.P50, 1e-3*b.P95)
+				}
+			}
+			note := p.BandNote
+			if p.Band != nil && p.Band.MayNotLase() {
+				note = "MAY NOT LASE: " + note
+			}
+			fmt.Fprintf(tw, "%.4g\t%s\t%s\t%s\n", 100*p.Length, e, pk, note)
+		}
+	}
+	tw.Flush()
+	for _, cur := range r.Curves {
+		name := "simultaneous excitation"
+		if !math.IsInf(cur.Velocity, 1) {
+			name = fmt.Sprintf("excitation front at %.3g c", cur.Velocity/units.SpeedOfLight)
+		}
+		if b := cur.UsefulBand; b != nil {
+			long := 100 * cur.Points[len(cur.Points)-1].Length
+			q := func(v float64) string {
+				if math.IsInf(v, 1) {
+					return fmt.Sprintf("beyond %.3g", long)
+				}
+				return fmt.Sprintf("%.3g", 100*v)
+			}
+			fmt.Fprintf(w, "%s: useful length 5 %% / median / 95 %%: %s / %s / %s cm (%d of %d samples; %d still rising at the longest length)\n",
+				name, q(b.P05), q(b.P50), q(b.P95), cur.UsefulSamples, r.Samples, cur.UsefulBeyond)
+		} else {
+			fmt.Fprintf(w, "%s: no useful-length band (%d of %d samples have a useful length in the range)\n", name, cur.UsefulSamples, r.Samples)
+		}
+		var all []study.Driver
+		for _, p := range cur.Points {
+			if p.Band == nil {
+				continue
+			}
+			if b, ok := p.Band.Metric("energy_front_J"); ok {
+				all = append(all, b.Drivers...)
+			}
+		}
+		fmt.Fprintf(w, "  output-end energy driven most by (median rank correlation over the lengths): %s\n", driverLine(rankDrivers(all)))
+	}
+}
+
+// rankDrivers ranks constants listed several times (once per point) by the median of their
+// rank correlations, largest magnitude first.
+func rankDrivers(ds []study.Driver) []study.RankedDriver {
+	t := &study.Table{Columns: []string{"x" + study.DriversSuffix}}
+	for _, d := range ds {
+		t.Rows = append(t.Rows, []string{fmt.Sprintf("%s:%g", d.Key, d.RankCorrelation)})
+	}
+	return t.Drivers("", "x")
 }

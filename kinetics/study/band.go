@@ -20,7 +20,9 @@ type Band struct {
 // statistics at position (n−1)·p (type 7 of Hyndman & Fan, Am. Stat. 50, 361 (1996), from
 // memory: the median of an odd sample is its middle value, which gonum's stat.LinInterp, an
 // interpolation of the empirical distribution at n·p, does not give). NaN values are an error:
-// a failed sample must be left out or reported, never averaged over.
+// a failed sample must be left out or reported, never averaged over. Infinite values (a
+// quantity beyond a scan's range) sort to the ends, and a quantile that reaches them is
+// infinite.
 func BandOf(xs []float64) (Band, error) {
 	if len(xs) == 0 {
 		return Band{}, fmt.Errorf("study: band of no samples")
@@ -37,6 +39,12 @@ func BandOf(xs []float64) (Band, error) {
 		i := int(math.Floor(h))
 		if i >= len(s)-1 {
 			return s[len(s)-1]
+		}
+		if h == float64(i) {
+			return s[i]
+		}
+		if math.IsInf(s[i+1], 0) {
+			return s[i+1] // among infinite values: no interpolation
 		}
 		return s[i] + (h-float64(i))*(s[i+1]-s[i])
 	}

@@ -47,8 +47,8 @@ func bandColumns(prefix string, metrics []string) []string {
 	return append(cols, prefix+BandNoteColumn)
 }
 
-// bandCells returns the cells of bandColumns for one point.
-func bandCells(p sampledPoint, metrics []string) []string {
+// bandCells returns the cells of bandColumns for one point, with note its band_note.
+func bandCells(p sampledPoint, metrics []string, note string) []string {
 	cells := make([]string, 0, 3*len(metrics)+4+len(DriverMetrics))
 	u := p.band
 	for _, m := range metrics {
@@ -78,7 +78,7 @@ func bandCells(p sampledPoint, metrics []string) []string {
 		}
 		cells = append(cells, strings.Join(parts, ";"))
 	}
-	return append(cells, bandNote(p))
+	return append(cells, note)
 }
 
 // bandNote says why a point's band is flagged, or "" when it is not.

@@ -5,6 +5,8 @@ import (
 	"errors"
 	"fmt"
 	"math"
+	"slices"
+	"strconv"
 
 	"gonum.org/v1/gonum/floats"
 	"gonum.org/v1/gonum/interp"
@@ -29,6 +31,11 @@ type LengthScan struct {
 	ScaleCapacitors bool
 	Runner          Runner // nil means ModelRunner
 	Workers         int    // ≤ 0 means runtime.NumCPU()
+	// Samples, when not 0, runs every length also over this many samples of the uncertain
+	// constants (a Latin hypercube of Seed, the same constants at every length), for the band
+	// of each figure and of the useful length.
+	Samples int
+	Seed    uint64
 }
 
 // LengthPoint is one channel length of a curve.
@@ -36,6 +43,15 @@ type LengthPoint struct {
 	Length  float64 // [m]
 	Summary kinetics.Summary
 	Err     error // the run failed; Summary is zero
+	// Band is the point's uncertainty band (with LengthScan.Samples); nil without, or when
+	// the point has none (BandNote says why).
+	Band *UncertaintyResult
+	// BandNote says why the point's band is flagged (may not lase, failed or truncated
+	// samples, no band); "" when it is not.
+	BandNote string
+	// sampleEnergy and sampleTau are each sample's output-end energy [J] and inversion
+	// duration [s], NaN where the sample failed.
+	sampleEnergy, sampleTau []float64
 }
 
 // LengthCurve is a length scan at one excitation velocity, with its useful length.
@@ -47,11 +63,21 @@ type LengthCurve struct {
 	// Transit is the transit-time estimate c·τ_g [m], τ_g the inversion duration at the useful
 	// length (at the longest length when there is no useful length).
 	Transit float64
+	// UsefulBand is the band of the useful length over the samples (with LengthScan.Samples):
+	// each sample's own energy curve gives its useful length, +Inf for a sample whose energy
+	// still rises at the longest length (its useful length lies beyond the range), so a
+	// quantile among those is +Inf; nil when fewer than three samples count. UsefulSamples
+	// counts the samples in the band, UsefulBeyond those beyond the range.
+	UsefulBand    *Band
+	UsefulSamples int
+	UsefulBeyond  int
 }
 
 // LengthResult holds the curve of the design as given and, with a travelling wave, a second.
 type LengthResult struct {
 	Curves []LengthCurve
+	// Samples is LengthScan.Samples (0: no bands).
+	Samples int
 }
 
 // Lengths returns the scan's channel lengths, evenly spaced.
@@ -79,7 +105,14 @@ func (s *LengthScan) check() error {
 			return fmt.Errorf("study: length scan: --travelling-wave: %w", err)
 		}
 	}
-	return nil
+	if err := CheckSamples("--uncertainty", s.Samples); err != nil {
+		return err
+	}
+	curves := 1
+	if s.TravellingWave != 0 {
+		curves = 2
+	}
+	return CheckSampledRuns("--uncertainty", s.Samples, curves*s.Points)
 }
 
 // Run computes the curves. A length whose run fails keeps its error in its LengthPoint.
@@ -96,7 +129,7 @@ func (s *LengthScan) Run(ctx context.Context) (*LengthResult, error) {
 	if s.TravellingWave != 0 {
 		velocities = append(velocities, s.TravellingWave)
 	}
-	res := &LengthResult{Curves: make([]LengthCurve, len(velocities))}
+	res := &LengthResult{Curves: make([]LengthCurve, len(velocities)), Samples: s.Samples}
 	idx := make([]int, len(lengths)*len(velocities))
 	for c, v := range velocities {
 		res.Curves[c] = LengthCurve{Velocity: v, Points: make([]LengthPoint, len(lengths))}
@@ -116,18 +149,77 @@ func (s *LengthScan) Run(ctx context.Context) (*LengthResult, error) {
 		}
 		return d, d.Validate()
 	}
-	err := evaluate(ctx, idx, s.Workers, designAt, run, func(o outcome) error {
-		p := &res.Curves[o.i/len(lengths)].Points[o.i%len(lengths)]
-		p.Summary, p.Err = o.sum, o.err
-		return nil
-	})
+	var err error
+	if s.Samples > 0 {
+		hold := []string{"channel.length", "optics.excitation_velocity"}
+		err = sampledEvaluate(ctx, idx, s.Samples, s.Seed, hold, s.Workers, designAt, run, func(sp sampledPoint) error {
+			o := sp.nominal
+			p := &res.Curves[o.i/len(lengths)].Points[o.i%len(lengths)]
+			p.Summary, p.Err = o.sum, o.err
+			p.Band, p.BandNote = sp.band, bandNote(sp)
+			p.sampleEnergy, p.sampleTau = sampleColumn(sp.figs, "energy_front_J"), sampleColumn(sp.figs, "inversion_duration_s")
+			return nil
+		})
+	} else {
+		err = evaluate(ctx, idx, s.Workers, designAt, run, func(o outcome) error {
+			p := &res.Curves[o.i/len(lengths)].Points[o.i%len(lengths)]
+			p.Summary, p.Err = o.sum, o.err
+			return nil
+		})
+	}
 	if err != nil {
 		return nil, err
 	}
 	for c := range res.Curves {
 		res.Curves[c].mark()
+		if s.Samples > 0 {
+			res.Curves[c].markBand(s.Samples)
+		}
 	}
 	return res, nil
+}
+
+// sampleColumn returns one numeric figure of merit of every sample, NaN where the sample failed
+// or leaves it undefined.
+func sampleColumn(figs []sampleFigures, metric string) []float64 {
+	m := slices.Index(NumericMetrics(), metric)
+	out := make([]float64, len(figs))
+	for i, f := range figs {
+		out[i] = math.NaN()
+		if f.ok && m >= 0 {
+			out[i] = f.vals[m]
+		}
+	}
+	return out
+}
+
+// markBand finds the useful length of each of the n samples from its own energy curve (the
+// lengths where the sample ran) and the band of those lengths.
+func (c *LengthCurve) markBand(n int) {
+	var useful []float64
+	for k := range n {
+		var L, E []float64
+		for _, p := range c.Points {
+			if p.sampleEnergy != nil && !math.IsNaN(p.sampleEnergy[k]) {
+				L, E = append(L, p.Length), append(E, p.sampleEnergy[k])
+			}
+		}
+		u, _ := UsefulLength(L, E)
+		switch {
+		case !math.IsNaN(u):
+			useful = append(useful, u)
+		case len(E) >= 3 && floats.MaxIdx(E) == len(E)-1 && E[len(E)-1] > 0:
+			// still rising at the longest length: the useful length lies beyond the range
+			useful = append(useful, math.Inf(1))
+			c.UsefulBeyond++
+		}
+	}
+	c.UsefulSamples = len(useful)
+	if len(useful) >= 3 {
+		if b, err := BandOf(useful); err == nil {
+			c.UsefulBand = &b
+		}
+	}
 }
 
 // mark finds the useful length and the transit estimate of a curve from its output-end energy.
@@ -218,13 +310,23 @@ func interpolate(x, y []float64, t float64) float64 {
 	return pl.Predict(t)
 }
 
+// finiteCell writes a number, or an empty cell for NaN and infinities.
+func finiteCell(v float64) string {
+	if math.IsNaN(v) || math.IsInf(v, 0) {
+		return ""
+	}
+	return formatNumber(v)
+}
+
 // lengthMetrics are the figures of merit a length table lists per curve.
 var lengthMetrics = []string{"energy_front_J", "energy_total_J", "peak_power_W", "fwhm_s", "inversion_duration_s"}
 
 // Table returns the scan as a table: the length, then for each curve its energies, peak power,
 // FWHM, inversion duration, transit estimate c·τ_g ("transit_length_m"), the curve's useful
 // length (the same on every row, empty when there is none) and status; columns of the
-// travelling-wave curve carry the prefix "tw.".
+// travelling-wave curve carry the prefix "tw.". With samples, each curve adds the band of its
+// useful length (an empty cell for a quantile beyond the longest length), useful_length_beyond
+// (samples still rising at the longest length) and the band columns of its figures.
 func (r *LengthResult) Table() *Table {
 	t := &Table{Columns: []string{"channel.length [m]"}}
 	for c := range r.Curves {
@@ -235,7 +337,12 @@ func (r *LengthResult) Table() *Table {
 		for _, m := range lengthMetrics {
 			t.Columns = append(t.Columns, pre+m)
 		}
-		t.Columns = append(t.Columns, pre+"transit_length_m", pre+"useful_length_m", pre+StatusColumn)
+		t.Columns = append(t.Columns, pre+"transit_length_m", pre+"useful_length_m")
+		if r.Samples > 0 {
+			t.Columns = append(t.Columns, pre+"useful_length_m_p05", pre+"useful_length_m_p50", pre+"useful_length_m_p95", pre+"useful_length_beyond")
+			t.Columns = append(t.Columns, bandColumns(pre, lengthMetrics)...)
+		}
+		t.Columns = append(t.Columns, pre+StatusColumn)
 	}
 	all := Metrics()
 	pos := make([]int, len(lengthMetrics))
@@ -263,6 +370,15 @@ func (r *LengthResult) Table() *Table {
 					row = append(row, f[j])
 				}
 				row = append(row, formatNumber(units.SpeedOfLight*p.Summary.InversionDuration), useful)
+			}
+			if r.Samples > 0 {
+				if b := c.UsefulBand; b != nil {
+					row = append(row, finiteCell(b.P05), finiteCell(b.P50), finiteCell(b.P95))
+				} else {
+					row = append(row, "", "", "")
+				}
+				row = append(row, strconv.Itoa(c.UsefulBeyond))
+				row = append(row, bandCells(sampledPoint{band: p.Band}, lengthMetrics, p.BandNote)...)
 			}
 			row = append(row, statusOf(p.Summary, p.Err))
 		}

@@ -166,3 +166,59 @@ func TestSampledRunLimits(t *testing.T) {
 		t.Errorf("resume with another seed: %v; want a refusal naming the seed", err)
 	}
 }
+
+// saturatingSampleRunner makes an output-end energy that grows in proportion to the channel length up
+// to a saturation length L_s = 0.3 m × (C(0)–N₂ quenching / 1.25e-17) and stays flat beyond, so
+// the useful length (90 % of the largest energy) of a sample is 0.9 L_s; a sample whose
+// quenching constant lies above 1.4e-17 saturates at 5 m, beyond any scan here.
+func saturatingSampleRunner(d *design.Design) (kinetics.Summary, error) {
+	q := d.Levels.UpperQuenchingNitrogen
+	ls := 0.3 * q / 1.25e-17
+	if q > 1.4e-17 {
+		ls = 5
+	}
+	return kinetics.Summary{EnergyFront: 1e-3 * math.Min(d.Channel.Length, ls), Lases: true}, nil
+}
+
+// TestLengthBands scans 5–100 cm in 1 cm steps with 20 samples on saturatingSampleRunner: every
+// sample's own curve gives its useful length 0.9 L_s, uniform over 0.216–0.3024 m for the 16
+// samples below 1.4e-17, and the 4 above are counted beyond the range, so the 95 % quantile is
+// beyond it (+Inf) and the median is the quenching constant's median mapped (0.27 m) within two
+// strata (2 × 0.108/20 m) plus the grid step; the table is the same with 1 and 3 workers.
+func TestLengthBands(t *testing.T) {
+	t.Parallel()
+	scan := func(workers int) *LengthResult {
+		s := &LengthScan{Design: design.ExampleDesign(), From: 0.05, To: 1.0, Points: 96, Runner: saturatingSampleRunner,
+			Workers: workers, Samples: 20, Seed: 2}
+		r, err := s.Run(context.Background())
+		if err != nil {
+			t.Fatal(err)
+		}
+		return r
+	}
+	r := scan(3)
+	if !bytes.Equal(r.Table().CSV(), scan(1).Table().CSV()) {
+		t.Error("length table differs between 1 and 3 workers")
+	}
+	c := r.Curves[0]
+	if c.UsefulBand == nil || c.UsefulSamples != 20 || c.UsefulBeyond != 4 {
+		t.Fatalf("useful band %+v over %d samples, %d beyond; want a band over 20, 4 beyond", c.UsefulBand, c.UsefulSamples, c.UsefulBeyond)
+	}
+	if tol := 2*0.108/20 + 0.01; !scalar.EqualWithinAbsOrRel(c.UsefulBand.P50, 0.27, tol, 0) || !math.IsInf(c.UsefulBand.P95, 1) ||
+		!scalar.EqualWithinAbsOrRel(c.UsefulBand.P05, 0.216+0.05*0.108, tol, 0) {
+		t.Errorf("useful band %+v; want p05 %g and median 0.27 within %g, p95 +Inf", *c.UsefulBand, 0.216+0.05*0.108, tol)
+	}
+	tab := r.Table()
+	for _, name := range []string{"useful_length_m_p50", "useful_length_beyond", "energy_front_J_p95", MayNotLaseColumn, BandNoteColumn} {
+		if tab.Column(name) < 0 {
+			t.Errorf("length table has no column %q", name)
+		}
+	}
+	if v := tab.Rows[0][tab.Column("useful_length_m_p95")]; v != "" {
+		t.Errorf("useful_length_m_p95 cell %q, want empty (beyond the range)", v)
+	}
+	// at 1 m every sample is saturated except the 4 beyond: energy p50 = 1e-3 × L_s(median)
+	if e := tab.Float(len(tab.Rows)-1, tab.Column("energy_front_J_p50")); !scalar.EqualWithinAbsOrRel(e, 0.3e-3, 2*0.108e-3/20/0.9, 0) {
+		t.Errorf("energy median at 1 m %g, want 3e-4 within two strata", e)
+	}
+}

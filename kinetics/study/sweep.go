@@ -123,7 +123,7 @@ func (s *Sweep) row(o outcome) []string {
 func (s *Sweep) bandRow(p sampledPoint) []string {
 	r := s.row(p.nominal)
 	status := r[len(r)-1]
-	return append(append(r[:len(r)-1], bandCells(p, NumericMetrics())...), status)
+	return append(append(r[:len(r)-1], bandCells(p, NumericMetrics(), bandNote(p))...), status)
 }
 
 // axisKeys returns the varied keys, which uncertainty samples leave at their grid values.

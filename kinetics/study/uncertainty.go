@@ -5,6 +5,7 @@ import (
 	"fmt"
 	"math"
 	"reflect"
+	"slices"
 	"sort"
 
 	"n2pulse/kinetics"
@@ -36,6 +37,8 @@ type UncertaintyResult struct {
 	Truncated int          `json:"truncated"` // samples whose pulse outlasted the run; kept, and counted here
 	Lasing    int          `json:"lasing"`    // samples that reach the lasing threshold (kinetics.Summary.Lases)
 	Metrics   []MetricBand `json:"metrics"`   // one per numeric figure of merit with ≥ 3 defined samples
+	// figs are the samples' figures, for bands of ratios between two studies (RatioBand).
+	figs []sampleFigures
 }
 
 // Uncertainty runs base n times with the constants of design.Spreads drawn by a Latin
@@ -73,6 +76,7 @@ func Uncertainty(ctx context.Context, base *design.Design, n int, seed uint64, w
 	if err != nil {
 		return nil, err
 	}
+	res.figs = figs
 	if res.Failed == n {
 		return nil, fmt.Errorf("study: every sample failed; first: %w", firstErr)
 	}
@@ -189,4 +193,33 @@ func (r *UncertaintyResult) Metric(name string) (MetricBand, bool) {
 		}
 	}
 	return MetricBand{}, false
+}
+
+// RatioBand returns the band of the ratio b/a of a figure of merit between two designs studied
+// with the same samples (the same seed, count and sampled constants, so that sample i of each
+// carries the same constant values: a paired comparison, whose band is narrower than the two
+// bands side by side when both designs answer the constants alike). Samples where either
+// failed, either value is undefined or a's is 0 are left out; ok is false when the studies are
+// not paired or fewer than three ratios remain.
+func RatioBand(a, b *UncertaintyResult, metric string) (Band, bool) {
+	m := slices.Index(NumericMetrics(), metric)
+	if a == nil || b == nil || m < 0 || a.Seed != b.Seed || len(a.figs) != len(b.figs) || !slices.Equal(a.Keys, b.Keys) {
+		return Band{}, false
+	}
+	var rs []float64
+	for i := range a.figs {
+		fa, fb := a.figs[i], b.figs[i]
+		if !fa.ok || !fb.ok {
+			continue
+		}
+		x, y := fa.vals[m], fb.vals[m]
+		if r := y / x; x != 0 && !math.IsNaN(r) && !math.IsInf(r, 0) {
+			rs = append(rs, r)
+		}
+	}
+	if len(rs) < 3 {
+		return Band{}, false
+	}
+	band, err := BandOf(rs)
+	return band, err == nil
 }

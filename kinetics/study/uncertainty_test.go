@@ -7,6 +7,8 @@ import (
 	"reflect"
 	"testing"
 
+	"gonum.org/v1/gonum/floats"
+
 	"n2pulse/kinetics"
 	"n2pulse/kinetics/design"
 )
@@ -71,6 +73,10 @@ func TestUncertainty(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
+	if !sameFigures(one.figs, r.figs) {
+		t.Error("1 and 2 workers keep different sample figures")
+	}
+	one.figs, r.figs = nil, nil // NaN (undefined figures) is never DeepEqual to itself
 	if !reflect.DeepEqual(one, r) {
 		t.Error("1 and 2 workers give different results")
 	}
@@ -110,4 +116,17 @@ func TestUncertaintyModel(t *testing.T) {
 	if r.Failed != 0 || !ok || !(e.P05 > 0 && e.P05 <= e.P50 && e.P50 <= e.P95) {
 		t.Errorf("failed %d, energy band %+v (found %v); want no failures and 0 < p05 ≤ p50 ≤ p95", r.Failed, e.Band, ok)
 	}
+}
+
+// sameFigures compares the sample figures of two studies, NaN equal to NaN.
+func sameFigures(a, b []sampleFigures) bool {
+	if len(a) != len(b) {
+		return false
+	}
+	for i := range a {
+		if a[i].ok != b[i].ok || a[i].lases != b[i].lases || a[i].truncated != b[i].truncated || !floats.Same(a[i].vals, b[i].vals) {
+			return false
+		}
+	}
+	return true
 }
