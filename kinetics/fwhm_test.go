@@ -105,9 +105,19 @@ func TestFWHMIssue16(t *testing.T) {
 		t.Errorf("fwhm %g s, half-max width %g s, detector %g s: want equal widths, ideal detector", s.FWHM, s.HalfMaxWidth, s.DetectorResponse)
 	}
 	// The two widths are different measures: on the example they differed by 30 % at the time
-	// of the change, by 1.6 % since issue 15's C(v=1) and electron collisions reshaped the pulse.
-	if !(s.RMSWidth > 0) || math.Abs(s.RMSWidth/s.FWHM-1) < 0.005 {
-		t.Errorf("rms-based width %g s within 0.5 %% of the FWHM %g s: the example no longer tells them apart", s.RMSWidth, s.FWHM)
+	// of the change, by 1.6 % after issue 15's C(v=1) and electron collisions reshaped the
+	// pulse, by 0.3 % once B(0) took the electrons' C(0) → B(0) flow; the low-pressure tube's
+	// long tail keeps them far apart (half-maximum 5.1 ns, rms-based 12 ns).
+	dt, err := design.LoadDesign("testdata/tube.toml")
+	if err != nil {
+		t.Fatal(err)
+	}
+	rt, err := Run(dt, &RunSettings{Light: true})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if st := rt.Summary; !(st.RMSWidth > 0) || math.Abs(st.RMSWidth/st.FWHM-1) < 0.5 {
+		t.Errorf("tube: rms-based width %g s within 50 %% of the FWHM %g s: the two no longer differ", st.RMSWidth, st.FWHM)
 	}
 	rd, err := Run(design.ExampleDesign(), &RunSettings{Light: true, DetectorResponse: 1e-9})
 	if err != nil {

@@ -215,14 +215,14 @@ func expMedium(x float64) float64 {
 func (m *medium) propagate(step int) (front, rear float64) { return m.advance(step, nil, false) }
 
 // pumpStep is the pump and decay of every cell over one optical step, for constant
-// coefficients: C' = C·e + cp, B' = B·eB + bp + wBh·(C + C′), with e, cp and bp the same for
-// every cell when uniform, else per cell.
+// coefficients: C' = C·e + cp, B' = B·eB + bp + wBh·(C + C′), with e, cp, bp and wBh the same
+// for every cell when uniform, else per cell.
 type pumpStep struct {
 	uniform   bool
 	e, cp, bp float64   // e^(−Γ_C Δt), P_C·(1−e^(−Γ_CΔt))/Γ_C [m⁻³], P_B·(1−e^(−Γ_BΔt))/Γ_B [m⁻³]
 	es, cps   []float64 // per cell when not uniform: e and cp
-	bps       []float64 // and bp
-	eB, wBh   float64   // e^(−Γ_B Δt) and ½·A₀₀·(1−e^(−Γ_BΔt))/Γ_B
+	bps, wBhs []float64 // and bp and wBh
+	eB, wBh   float64   // e^(−Γ_B Δt) and ½·(A₀₀ + X)·(1−e^(−Γ_BΔt))/Γ_B, X the electrons' C(0) → B(0) rate
 }
 
 // advance is one optical step of every cell: with pump non-nil, first the pump and decay of
@@ -355,7 +355,7 @@ func (m *medium) pump(ps *pumpStep, cells int, follow bool) {
 	e, pc, pb := ps.e, ps.cp, ps.bp
 	for i := range cs {
 		if !ps.uniform {
-			e, pc, pb = ps.es[i], ps.cps[i], ps.bps[i]
+			e, pc, pb, wBh = ps.es[i], ps.cps[i], ps.bps[i], ps.wBhs[i]
 		}
 		c0, b0 := cs[i], bs[i]
 		c := c0*e + pc

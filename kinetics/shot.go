@@ -120,7 +120,7 @@ func (sh *shot) run(res *Result) {
 	lit, dark := false, false
 	pump := &pumpStep{uniform: sh.uniform, eB: sh.eB, wBh: 0.5 * p.EinsteinA00 * sh.wB}
 	if !sh.uniform {
-		pump.es, pump.cps, pump.bps = make([]float64, n), make([]float64, n), make([]float64, n)
+		pump.es, pump.cps, pump.bps, pump.wBhs = make([]float64, n), make([]float64, n), make([]float64, n), make([]float64, n)
 	}
 	for k := 0; k < sh.steps; k++ {
 		if dark && sh.light {
@@ -314,19 +314,31 @@ func (sh *shot) fillPump(ps *pumpStep, k int, eC, wC []float64) {
 		c, b := sh.wf.pumpC[k], sh.wf.pumpB[k]
 		sh.pumpPeak = max(sh.pumpPeak, c)
 		ps.e, ps.cp, ps.bp = eC[k], c*wC[k], b*sh.wB
+		ps.wBh = 0.5 * (sh.p.EinsteinA00 + sh.mixB(k, 0, 0)) * sh.wB
 		return
 	}
 	n := sh.d.Numerics.Cells
-	pe, pc, pb := ps.es[:n], ps.cps[:n], ps.bps[:n]
+	pe, pc, pb, pw := ps.es[:n], ps.cps[:n], ps.bps[:n], ps.wBhs[:n]
 	for i := range pe {
 		w, f := sh.delayWhole[i], sh.delayFrac[i]
 		c := sample(sh.wf.pumpC, k, w, f)
 		j := max(0, min(k-w, sh.steps-1))
 		pe[i], pc[i], pb[i] = eC[j], c*wC[j], sample(sh.wf.pumpB, k, w, f)*sh.wB
+		// At the same sample as the C(0) loss it belongs to.
+		pw[i] = 0.5 * (sh.p.EinsteinA00 + sh.mixB(j, 0, 0)) * sh.wB
 		if i == n/2 {
 			sh.pumpPeak = max(sh.pumpPeak, c)
 		}
 	}
+}
+
+// mixB is the rate [s⁻¹] at which electrons move C(0) into B(0) at step k − whole − frac
+// (zero when the run has no electron collisions with C(0)).
+func (sh *shot) mixB(k, whole int, frac float64) float64 {
+	if sh.wf.mixB == nil {
+		return 0
+	}
+	return sample(sh.wf.mixB, k, whole, frac)
 }
 
 // pumpOnly advances the populations of every cell through the pump and decay of step k
@@ -454,14 +466,15 @@ func (sh *shot) termination(s *Summary) {
 	mid := sh.d.Numerics.Cells / 2
 	w, f := sh.delayWhole[mid], sh.delayFrac[mid]
 	// Between the peak and the end, the inversion ΔN = N_C − g·N_B falls by
-	// ∫Γ_C·N_C (upper-level decay) + ∫g·(P_B + A₀₀·N_C) (lower-level growth)
+	// ∫Γ_C·N_C (upper-level decay) + ∫g·(P_B + (A₀₀ + X)·N_C) (lower-level growth, X the
+	// electrons' C(0) → B(0) rate)
 	// + (1+g)·(stimulated transitions) − ∫P_C (pump); the stimulated part is what the
 	// other terms leave unexplained.
 	var lower, upper, pumpC float64
 	dt := p.TimeStep
 	for k := kp + 1; k <= ke; k++ {
 		c := sh.midC[k]
-		lower += g * (sample(sh.wf.pumpB, k, w, f) + p.EinsteinA00*c) * dt
+		lower += g * (sample(sh.wf.pumpB, k, w, f) + (p.EinsteinA00+sh.mixB(k, w, f))*c) * dt
 		upper += p.UpperDecayRate * c * dt
 		pumpC += sample(sh.wf.pumpC, k, w, f) * dt
 	}

@@ -86,14 +86,21 @@ func lotzRate(q, i, kT float64) float64 {
 // is the C(0) radiative lifetime (nearly all of it C → B), photon [J] the C → B (0,0)
 // photon energy and upper [J] the energy of C(0) above X(0).
 func upperElectronLoss(mean, tauC, photon, upper float64) float64 {
+	sup, ion := upperElectronRates(mean, tauC, photon, upper)
+	return sup + ion
+}
+
+// upperElectronRates returns the two parts of upperElectronLoss [m³/s]: superelastic C → B
+// and ionisation out of C(0).
+func upperElectronRates(mean, tauC, photon, upper float64) (super, ion float64) {
 	if !(mean > 0) {
-		return 0
+		return 0, 0
 	}
 	kT := 2 * mean / 3
 	lambda := units.Planck * units.SpeedOfLight / photon
 	// C³Πu and B³Πg have the same degeneracy, (2 − δ₀,Λ)(2S + 1) = 6.
 	f := oscillatorStrength(1/tauC, lambda, 1)
-	return superelasticRate(f, photon, kT, 1) + lotzRate(1, ionBEnergy-upper, kT)
+	return superelasticRate(f, photon, kT, 1), lotzRate(1, ionBEnergy-upper, kT)
 }
 
 // expIntE1 is the exponential integral E₁(x) = ∫₁^∞ e^(−xt)/t dt for x > 0: its power series

@@ -6,6 +6,7 @@ import (
 
 	"gonum.org/v1/gonum/floats/scalar"
 
+	"n2pulse/kinetics/design"
 	"n2pulse/units"
 )
 
@@ -82,5 +83,64 @@ func TestGauntFloorShortcut(t *testing.T) {
 	}
 	if full := 0.276 * math.Exp(0.5) * expIntE1(0.5); !(full > gauntFloor) {
 		t.Errorf("y = 0.5: 0.276·e^y·E₁(y) = %g, want above the floor", full)
+	}
+}
+
+// TestSuperelasticIntoLower: electrons that de-excite C(0) superelastically put the (0,0)
+// band's share A₀₀·τ_C of it into B(0). With no pump and no photons, C(0) = C₀·e^(−Γt), Γ =
+// Γ_C + L (L the electrons' total loss rate), and B(0), fed at (A₀₀ + X)·C and emptied at Γ_B,
+// is B(T) = (A₀₀ + X)·C₀·(e^(−ΓT) − e^(−Γ_B·T))/(Γ_B − Γ) (hand integration of the two
+// rate equations): the steps reproduce it to 1e-6 for a simultaneous discharge and for a
+// front moving along the channel (the per-cell path), whichever cell is read.
+func TestSuperelasticIntoLower(t *testing.T) {
+	t.Parallel()
+	for _, v := range []float64{math.Inf(1), 2e8} {
+		d := design.ExampleDesign()
+		d.Optics.ExcitationVelocity = v
+		par, _, err := laserParameters(d)
+		if err != nil {
+			t.Fatal(err)
+		}
+		n := d.Numerics.Cells
+		par.CellLength = d.Channel.Length / float64(n)
+		par.TimeStep = par.CellLength / 299792458.0
+		par.OpticalArea = 1e-12 // no photons to speak of
+		steps := 3000
+		const loss, mix = 4e7, 1.5e7 // electrons' loss of C(0) and the part into B(0) [s⁻¹]
+		wf := &waveforms{pumpC: make([]float64, steps), pumpB: make([]float64, steps), density: make([]float64, steps),
+			lossC: make([]float64, steps), mixB: make([]float64, steps)}
+		for k := range wf.lossC {
+			wf.lossC[k], wf.mixB[k] = loss, mix
+		}
+		sh := newShot(d, &par, wf, steps, &RunSettings{})
+		for i := range sh.med.c {
+			sh.med.c[i], sh.med.b[i] = 1e18, 0
+		}
+		sh.run(&Result{})
+		tEnd := float64(steps) * par.TimeStep
+		g, gb := par.UpperDecayRate+loss, par.LowerDecayRate
+		want := (par.EinsteinA00 + mix) * 1e18 * (math.Exp(-g*tEnd) - math.Exp(-gb*tEnd)) / (gb - g)
+		// With a moving front each cell takes its delayed sample; the rates are constant,
+		// so every cell must agree.
+		for _, i := range []int{0, n / 2, n - 1} {
+			if got := sh.med.b[i]; !scalar.EqualWithinAbsOrRel(got, want, 0, 1e-6) {
+				t.Errorf("front %g m/s, cell %d: B(0) = %.8g m⁻³, want %.8g", v, i, got, want)
+			}
+		}
+	}
+}
+
+// TestUpperElectronRatesSplit: the two parts add up to the total loss, and the superelastic
+// part is the Born–Bethe rate of TestUpperElectronHand.
+func TestUpperElectronRatesSplit(t *testing.T) {
+	t.Parallel()
+	ev := units.ElectronVolt
+	de := units.Planck * units.SpeedOfLight / 337.1e-9
+	sup, ion := upperElectronRates(3*ev, 40e-9, de, 11.032*ev)
+	if !scalar.EqualWithinAbsOrRel(sup, 2.58986e-14, 0, 1e-5) || !scalar.EqualWithinAbsOrRel(ion, 1.248641e-15, 0, 1e-5) {
+		t.Errorf("superelastic %.6g, ionisation %.6g m³/s; want 2.58986e-14 and 1.248641e-15 (hand calculation above)", sup, ion)
+	}
+	if tot := upperElectronLoss(3*ev, 40e-9, de, 11.032*ev); tot != sup+ion {
+		t.Errorf("total %.8g ≠ %.8g + %.8g", tot, sup, ion)
 	}
 }

@@ -16,6 +16,7 @@ type waveforms struct {
 	voltage, current, field, density []float64                  // V_ch [V], channel current [A], E/N [V m²], n_e [m⁻³]
 	pumpC, pumpB                     []float64                  // excitation rates into C(0) and B(0) [m⁻³ s⁻¹]
 	lossC                            []float64                  // loss rate of C(0) by electron collisions (Born–Bethe and Lotz estimate) [s⁻¹]
+	mixB                             []float64                  // the part of lossC that lands in B(0): superelastic C(0) → B(0) [s⁻¹]
 	stored, deposited                float64                    // [J]
 	switchLoss, shuntLoss, left      float64                    // dissipated in the switch and the shunt, left in the circuit [J]
 	plasmaSplit                      [swarm.NumChannels]float64 // Σ plasma power × channel share × Δt over the samples [J]
@@ -58,7 +59,7 @@ func solveCircuit(c *circuit, d *design.Design, par *Parameters, steps int) (*wa
 		voltage: make([]float64, steps), current: make([]float64, steps),
 		field: make([]float64, steps), density: make([]float64, steps),
 		pumpC: make([]float64, steps), pumpB: make([]float64, steps),
-		plasmaPower: make([]float64, steps), lossC: make([]float64, steps),
+		plasmaPower: make([]float64, steps), lossC: make([]float64, steps), mixB: make([]float64, steps),
 		stored: stored,
 	}
 	_, hi := c.table.Range()
@@ -92,7 +93,11 @@ func solveCircuit(c *circuit, d *design.Design, par *Parameters, steps int) (*wa
 			w.field[k] = c.reducedField(y[iVg])
 			w.density[k] = ne
 			if eScale > 0 {
-				w.lossC[k] = eScale * upperElectronLoss(mean, par.UpperLifetime, par.PhotonEnergy, par.UpperEnergy) * ne
+				sup, ion := upperElectronRates(mean, par.UpperLifetime, par.PhotonEnergy, par.UpperEnergy)
+				w.lossC[k] = eScale * (sup + ion) * ne
+				// Superelastic C(0) → B(v) ends in B(0) with the (0,0) band's share of the C → B
+				// transition strength, A₀₀·τ_C; the rest lands in B(v>0) (not followed here).
+				w.mixB[k] = eScale * sup * ne * par.EinsteinA00 * par.UpperLifetime
 			}
 			w.pumpC[k] = kC*ne*shareC + v1.step(kC*ne*shareC1)
 			w.pumpB[k] = kB*ne*shareB + man.step(((1-par.LowerShare)*kB+kW+kBp)*ne*nX)

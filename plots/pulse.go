@@ -30,6 +30,48 @@ type PulseData struct {
 	// RearReflectivity and FrontReflectivity name the ends in the legend ("rear end, mirror
 	// R = 0.9"); 0 for an open end.
 	RearReflectivity, FrontReflectivity float64
+	// Band, when not nil, is the 5–95 % band of the output-end power over the samples of an
+	// uncertainty study, shaded under the output-end curve.
+	Band *PowerBand
+}
+
+// PowerBand is the spread of the output-end power over the samples of an uncertainty study,
+// aligned at switch closure: at each Time [s] the Low (5 %) and High (95 %) values [W] over
+// Samples samples.
+type PowerBand struct {
+	Time      []float64
+	Low, High []float64
+	Samples   int
+}
+
+// check validates a band: at least two strictly increasing finite times, as many finite values
+// in Low and High, and Low ≤ High.
+func (b *PowerBand) check() error {
+	n := len(b.Time)
+	if n < 2 || len(b.Low) != n || len(b.High) != n {
+		return fmt.Errorf("plots: pulse report: PowerBand has %d times, %d low and %d high values; want at least 2 times and as many of each", n, len(b.Low), len(b.High))
+	}
+	for i := range b.Time {
+		if math.IsNaN(b.Time[i]) || math.IsInf(b.Time[i], 0) || (i > 0 && !(b.Time[i] > b.Time[i-1])) {
+			return fmt.Errorf("plots: pulse report: PowerBand.Time[%d] = %g s: want finite, strictly increasing times", i, b.Time[i])
+		}
+		if lo, hi := b.Low[i], b.High[i]; math.IsNaN(lo) || math.IsInf(lo, 0) || math.IsNaN(hi) || math.IsInf(hi, 0) || lo > hi {
+			return fmt.Errorf("plots: pulse report: PowerBand at %g s: low %g W, high %g W; want finite with low ≤ high", b.Time[i], lo, hi)
+		}
+	}
+	return nil
+}
+
+// PowerWindow returns the span [s] that the pulse report's power panel shows for a shot with
+// output power front and rear [W] at times t [s]: where their sum exceeds 1 % of its peak,
+// widened by half its length on each side (at least 1 ns in all), within the run.
+func PowerWindow(t, front, rear []float64) (lo, hi float64, err error) {
+	r := PulseData{Time: t, PowerFront: front, PowerRear: rear}
+	if err := r.check(); err != nil {
+		return 0, 0, err
+	}
+	lo, hi = pulseWindow(scaled(t, 1e9), r.totalPower())
+	return 1e-9 * lo, 1e-9 * hi, nil
 }
 
 // HalfMaxCrossings returns the first and last times at which p reaches half its maximum,
@@ -111,6 +153,11 @@ func PulseReport(path string, r PulseData) error {
 	}
 	if err := r.check(); err != nil {
 		return err
+	}
+	if r.Band != nil {
+		if err := r.Band.check(); err != nil {
+			return err
+		}
 	}
 	t := scaled(r.Time, 1e9)
 	lo, hi := pulseWindow(t, r.totalPower())
@@ -251,6 +298,12 @@ func (r *PulseData) powerPanel(t []float64) *plot.Plot {
 	p := plot.New()
 	total := r.totalPower()
 	f, u := siScale(maxAbs(total), "W")
+	if b := r.Band; b != nil {
+		if poly := bandPolygon(scaled(b.Time, 1e9), b.Low, b.High, f); poly != nil {
+			p.Add(poly)
+			p.Legend.Add(fmt.Sprintf("output end, 5–95 %% of %d samples", b.Samples), poly)
+		}
+	}
 	// The output end wide and light, the rear end thin and dashed on top: both stay visible
 	// when they coincide (a channel without mirrors).
 	if l := addCurveStyled(p, t, r.PowerFront, f, colFrontLight, nil, 2.8); l != nil {
@@ -407,4 +460,26 @@ func addCurveStyled(p *plot.Plot, t, v []float64, factor float64, col color.Colo
 	}
 	flush()
 	return first
+}
+
+// colBand fills the uncertainty band of the output-end power: the output end's colour, faint.
+var colBand = color.NRGBA{R: 200, G: 40, B: 30, A: 60}
+
+// bandPolygon is the filled region between low and high (scaled by factor) over t [ns]; nil
+// when it cannot be made.
+func bandPolygon(t, low, high []float64, factor float64) *plotter.Polygon {
+	pts := make(plotter.XYs, 0, 2*len(t))
+	for i := range t {
+		pts = append(pts, plotter.XY{X: t[i], Y: factor * high[i]})
+	}
+	for i := len(t) - 1; i >= 0; i-- {
+		pts = append(pts, plotter.XY{X: t[i], Y: factor * low[i]})
+	}
+	poly, err := plotter.NewPolygon(pts)
+	if err != nil {
+		return nil
+	}
+	poly.Color = colBand
+	poly.LineStyle.Width = 0
+	return poly
 }

@@ -158,7 +158,7 @@ func warningSection(ws []string) report.Section {
 }
 
 // writeRunReport writes report.html for one shot into dir, after its figures.
-func writeRunReport(dir string, d *design.Design, r *kinetics.Result) error {
+func writeRunReport(dir string, d *design.Design, r *kinetics.Result, u *study.UncertaintyResult, env *study.Envelope) error {
 	s := r.Summary
 	name := d.Name
 	if name == "" {
@@ -176,8 +176,15 @@ func writeRunReport(dir string, d *design.Design, r *kinetics.Result) error {
 	if e, ok := energySection(s); ok {
 		p.Sections = append(p.Sections, e)
 	}
+	if u != nil {
+		p.Sections = append(p.Sections, uncertaintySection(u, env))
+	}
+	pulseCaption := "The shot: circuit, E/N, electron density, laser levels (whole run) and the output at both ends (zoomed on the pulse; the span is shaded above)."
+	if env != nil {
+		pulseCaption += fmt.Sprintf(" The light band under the output-end power is its 5–95 %% range over %d samples of the uncertain constants, aligned at switch closure.", env.Samples)
+	}
 	figs, err := figureSection("Figures", dir, [][3]string{
-		{"pulse-report", "pulse-report.svg", "The shot: circuit, E/N, electron density, laser levels (whole run) and the output at both ends (zoomed on the pulse; the span is shaded above)."},
+		{"pulse-report", "pulse-report.svg", pulseCaption},
 		{"gain-map", "gain-map.svg", "Small-signal gain along the channel against time."},
 	})
 	if err != nil {

@@ -3,7 +3,6 @@ package main
 import (
 	"bufio"
 	"bytes"
-	"context"
 	"encoding/json"
 	"fmt"
 	"io"
@@ -124,8 +123,9 @@ func runRun(args []string, stdout, stderr io.Writer) error {
 		return err
 	}
 	var unc *study.UncertaintyResult
+	var env *study.Envelope
 	if *samples > 0 {
-		if unc, err = study.Uncertainty(context.Background(), d, *samples, *seed, 0, nil); err != nil {
+		if unc, env, err = runUncertainty(d, res, *samples, *seed, rs.MemoryLimit, *out != ""); err != nil {
 			return err
 		}
 	}
@@ -158,7 +158,7 @@ func runRun(args []string, stdout, stderr io.Writer) error {
 		printUncertainty(stdout, unc)
 	}
 	if *out != "" {
-		if err := writeRunOutputs(*out, d, res); err != nil {
+		if err := writeRunOutputs(*out, d, res, unc, env); err != nil {
 			return err
 		}
 		fmt.Fprintf(stderr, "wrote %s\n", *out)
@@ -296,8 +296,10 @@ func caution(stored, pulse float64) string {
 	return "Caution: " + strings.Join(parts, "; ") + ". Follow local electrical codes and licensed laser-safety practice."
 }
 
-// writeRunOutputs writes waveforms.csv, summary.json and the figures into dir.
-func writeRunOutputs(dir string, d *design.Design, r *kinetics.Result) error {
+// writeRunOutputs writes waveforms.csv, summary.json and the figures into dir; with an
+// uncertainty study u, summary.json carries its block, the pulse report shades the envelope
+// env of the output power (when not nil) and report.html has a section on the bands.
+func writeRunOutputs(dir string, d *design.Design, r *kinetics.Result, u *study.UncertaintyResult, env *study.Envelope) error {
 	if err := os.MkdirAll(dir, 0o755); err != nil {
 		return err
 	}
@@ -313,17 +315,17 @@ func writeRunOutputs(dir string, d *design.Design, r *kinetics.Result) error {
 	if err := atomicfile.WriteFile(filepath.Join(dir, "waveforms.csv"), csv.Bytes()); err != nil {
 		return err
 	}
-	js, err := runJSON(d, r, nil)
+	js, err := runJSON(d, r, u)
 	if err != nil {
 		return err
 	}
 	if err := atomicfile.WriteFile(filepath.Join(dir, "summary.json"), append(js, '\n')); err != nil {
 		return err
 	}
-	if err := writeRunFigures(dir, d, r); err != nil {
+	if err := writeRunFigures(dir, d, r, env); err != nil {
 		return err
 	}
-	return writeRunReport(dir, d, r)
+	return writeRunReport(dir, d, r, u, env)
 }
 
 // runOutput is what `run --json` prints and summary.json holds: every field of the summary

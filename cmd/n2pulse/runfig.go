@@ -5,11 +5,13 @@ import (
 
 	"n2pulse/kinetics"
 	"n2pulse/kinetics/design"
+	"n2pulse/kinetics/study"
 	"n2pulse/plots"
 )
 
-// writeRunFigures draws the pulse report and the gain map of one shot as PNG and SVG.
-func writeRunFigures(dir string, d *design.Design, r *kinetics.Result) error {
+// writeRunFigures draws the pulse report and the gain map of one shot as PNG and SVG; env, when
+// not nil, is shaded on the output power.
+func writeRunFigures(dir string, d *design.Design, r *kinetics.Result, env *study.Envelope) error {
 	pd := plots.PulseData{
 		Title:           d.Name,
 		Time:            r.Time,
@@ -24,6 +26,9 @@ func writeRunFigures(dir string, d *design.Design, r *kinetics.Result) error {
 	}
 	pd.FWHMStart, pd.FWHMEnd = plots.HalfMaxCrossings(r.Time, r.PowerFront)
 	pd.RearReflectivity, pd.FrontReflectivity = d.Optics.RearReflectivity, d.Optics.FrontReflectivity
+	if env != nil {
+		pd.Band = &plots.PowerBand{Time: env.Time, Low: env.P05, High: env.P95, Samples: env.Samples}
+	}
 	for _, ext := range []string{".png", ".svg"} {
 		if err := plots.PulseReport(filepath.Join(dir, "pulse-report"+ext), pd); err != nil {
 			return err

@@ -1,12 +1,18 @@
 package main
 
 import (
+	"context"
 	"fmt"
 	"io"
+	"runtime"
 	"strings"
 	"text/tabwriter"
 
+	"n2pulse/kinetics"
+	"n2pulse/kinetics/design"
 	"n2pulse/kinetics/study"
+	"n2pulse/plots"
+	"n2pulse/report"
 	"n2pulse/units"
 )
 
@@ -75,4 +81,74 @@ func uncertaintyJSON(r *study.UncertaintyResult) map[string]any {
 	}
 	out["drivers"] = drivers
 	return out
+}
+
+// envelopeTimes is the number of times on which the output-power band of the pulse report is
+// computed, spread evenly over the power panel's window.
+const envelopeTimes = 400
+
+// runUncertainty runs the uncertainty study of run --uncertainty: n samples of seed on one
+// worker per CPU, each run with its share of the memory limit (0: the default). With
+// envelope (the run writes --out), the samples also keep their output-end power for the band
+// of the pulse report, on the window the report shows for the nominal shot r.
+func runUncertainty(d *design.Design, r *kinetics.Result, n int, seed uint64, limit int64, envelope bool) (*study.UncertaintyResult, *study.Envelope, error) {
+	if limit <= 0 {
+		limit = kinetics.DefaultMemoryLimit
+	}
+	workers := runtime.NumCPU()
+	share := limit / int64(workers)
+	if !envelope {
+		u, err := study.Uncertainty(context.Background(), d, n, seed, workers, study.MemoryRunner(share))
+		return u, nil, err
+	}
+	lo, hi, err := plots.PowerWindow(r.Time, r.PowerFront, r.PowerRear)
+	if err != nil {
+		return nil, nil, err
+	}
+	grid := make([]float64, envelopeTimes)
+	for k := range grid {
+		grid[k] = lo + (hi-lo)*float64(k)/float64(envelopeTimes-1)
+	}
+	return study.UncertaintyEnvelope(context.Background(), d, n, seed, workers, share, grid)
+}
+
+// uncertaintySection is report.html's section on a run's uncertainty study: the sampling, the
+// lasing verdict over the samples, and the band and drivers of the headline figures.
+func uncertaintySection(u *study.UncertaintyResult, env *study.Envelope) report.Section {
+	ok := u.Samples - u.Failed
+	sec := report.Section{Heading: "Uncertainty bands"}
+	sec.Paragraphs = append(sec.Paragraphs, fmt.Sprintf("%d samples of the uncertain constants (Latin hypercube, seed %d): %s. The constants, their ranges and sources are listed in package kinetics/design (Spreads).",
+		u.Samples, u.Seed, strings.Join(u.Keys, ", ")))
+	switch {
+	case u.MayNotLase():
+		sec.Warn = true
+		sec.Paragraphs = append(sec.Paragraphs, fmt.Sprintf("MAY NOT LASE: %d of %d samples reach the lasing threshold; the band straddles it.", u.Lasing, ok))
+	case u.Lasing == 0:
+		sec.Warn = true
+		sec.Paragraphs = append(sec.Paragraphs, fmt.Sprintf("None of the %d samples reaches the lasing threshold.", ok))
+	default:
+		sec.Paragraphs = append(sec.Paragraphs, fmt.Sprintf("All %d samples reach the lasing threshold.", ok))
+	}
+	if u.Failed > 0 || u.Truncated > 0 {
+		sec.Warn = true
+		sec.Paragraphs = append(sec.Paragraphs, fmt.Sprintf("%d samples failed and are left out; %d were truncated (their pulse outlasted the run, their figures are cut short).", u.Failed, u.Truncated))
+	}
+	if env != nil && env.Samples < u.Samples-u.Failed {
+		sec.Paragraphs = append(sec.Paragraphs, fmt.Sprintf("The band of the output power in the pulse report is drawn from the first %d samples.", env.Samples))
+	}
+	t := &report.Table{Head: []string{"figure of merit", "5 %", "median", "95 %", "driven most by (rank correlation)"}}
+	for _, m := range uncertaintyMetrics {
+		b, found := u.Metric(m.name)
+		if !found {
+			t.Rows = append(t.Rows, []string{m.label, "–", "–", "–", "undefined in most samples"})
+			continue
+		}
+		var drv []string
+		for _, x := range b.Drivers[:min(3, len(b.Drivers))] {
+			drv = append(drv, fmt.Sprintf("%s %+.2f", strings.TrimPrefix(x.Key, "levels."), x.RankCorrelation))
+		}
+		t.Rows = append(t.Rows, []string{m.label, units.Format(b.P05, m.unit), units.Format(b.P50, m.unit), units.Format(b.P95, m.unit), strings.Join(drv, ", ")})
+	}
+	sec.Table = t
+	return sec
 }

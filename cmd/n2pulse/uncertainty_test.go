@@ -3,6 +3,7 @@ package main
 import (
 	"bytes"
 	"encoding/json"
+	"path/filepath"
 	"strings"
 	"testing"
 )
@@ -59,5 +60,55 @@ func TestRunUncertainty(t *testing.T) {
 		if code := run(bad, &o, &e); code != 2 || !strings.Contains(e.String(), "--uncertainty") {
 			t.Errorf("%v: exit %d, message %q; want 2 naming --uncertainty", bad, code, e.String())
 		}
+	}
+}
+
+// TestRunUncertaintyOut runs `run --uncertainty 10 --out DIR` on the example design (20 cells):
+// summary.json carries the uncertainty block, the same numbers as run --json prints; the pulse
+// report shades the band of the output power over the 10 samples; report.html has the band
+// section. Without --uncertainty summary.json has no such block.
+func TestRunUncertaintyOut(t *testing.T) {
+	t.Parallel()
+	if testing.Short() {
+		t.Skip("runs the model 22 times")
+	}
+	dir, plain := t.TempDir(), t.TempDir()
+	base := []string{"run", "../../data/designs/example.toml", "--set", "numerics.cells=20"}
+	var out, errb bytes.Buffer
+	if code := run(append(append([]string{}, base...), "--uncertainty", "10", "--seed", "6", "--out", dir), &out, &errb); code != 0 {
+		t.Fatalf("exit %d: %s", code, errb.String())
+	}
+	var js bytes.Buffer
+	if code := run(append(append([]string{}, base...), "--uncertainty", "10", "--seed", "6", "--json"), &js, &errb); code != 0 {
+		t.Fatalf("--json: exit %d: %s", code, errb.String())
+	}
+	if code := run(append(append([]string{}, base...), "--out", plain), &out, &errb); code != 0 {
+		t.Fatalf("plain: exit %d: %s", code, errb.String())
+	}
+	type block struct {
+		U map[string]any `json:"uncertainty"`
+	}
+	var file, printed, none block
+	for _, c := range []struct {
+		b   []byte
+		dst *block
+	}{{mustRead(t, filepath.Join(dir, "summary.json")), &file}, {js.Bytes(), &printed}, {mustRead(t, filepath.Join(plain, "summary.json")), &none}} {
+		if err := json.Unmarshal(c.b, c.dst); err != nil {
+			t.Fatal(err)
+		}
+	}
+	if none.U != nil {
+		t.Errorf("summary.json without --uncertainty has an uncertainty block: %v", none.U)
+	}
+	for _, k := range []string{"energy_front_J_p05", "energy_front_J_p50", "energy_front_J_p95", "samples", "may_not_lase"} {
+		if file.U[k] == nil || file.U[k] != printed.U[k] {
+			t.Errorf("summary.json %s = %v, run --json %v; want present and equal", k, file.U[k], printed.U[k])
+		}
+	}
+	if svg := string(mustRead(t, filepath.Join(dir, "pulse-report.svg"))); !strings.Contains(svg, "5–95 % of 10 samples") {
+		t.Error("pulse-report.svg has no band of the 10 samples")
+	}
+	if html := string(mustRead(t, filepath.Join(dir, "report.html"))); !strings.Contains(html, "Uncertainty bands") || !strings.Contains(html, "5–95 % range over 10 samples") {
+		t.Error("report.html lacks the uncertainty section or the band's caption")
 	}
 }

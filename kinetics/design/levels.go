@@ -27,9 +27,13 @@ func defaultLevels() Levels {
 		// the estimate's range is ×0.5–2 (van Regemorter's form for allowed transitions of
 		// neutrals) and up to ×3 if ionisation could leave the ion in its ground state.
 		UpperElectronScale: 1,
-		// C(v=1) → C(0) by N₂ and the quenching of C(v=1) by N₂: about 1.5e-11 cm³/s each
-		// (Dilecce, Ambrico & De Benedictis, Chem. Phys. Lett. 431, 241 (2006); abstract seen,
-		// values from memory), range 1–2e-11 each. C(v=1) takes 0.31 of the C excitation
+		// C(v=1) → C(0) by N₂ and the quenching of C(v=1) by N₂: about 1.5e-11 cm³/s each,
+		// from memory, range 1–2e-11 each. The measurement is Dilecce, Ambrico & De Benedictis,
+		// Chem. Phys. Lett. 431, 241 (2006): its first page was seen (title, abstract and
+		// introduction: electronic quenching and vibrational relaxation rate coefficients of
+		// C³Πu v = 0–4 by N₂, by optical–optical double-resonance laser-induced fluorescence
+		// from N₂(A) in a pulsed barrier discharge), its table was not: both numbers remain
+		// from memory until someone reads it. C(v=1) takes 0.31 of the C excitation
 		// (Franck–Condon, package spectro); relaxing into C(0) it raises the 1-atm pulse energies
 		// by 27–56 % (issue-15 note), so it is in by default.
 		UpperRelaxationNitrogen:  1.5e-17,

@@ -52,6 +52,13 @@ func Uncertainty(ctx context.Context, base *design.Design, n int, seed uint64, w
 	if err != nil {
 		return nil, err
 	}
+	return uncertaintyOf(ctx, designs, keys, values, seed, workers, run)
+}
+
+// uncertaintyOf runs the sample designs (made by UncertainDesigns: keys, values) and makes
+// their result, as Uncertainty.
+func uncertaintyOf(ctx context.Context, designs []*design.Design, keys []string, values [][]float64, seed uint64, workers int, run Runner) (*UncertaintyResult, error) {
+	n := len(designs)
 	if run == nil {
 		run = ModelRunner
 	}
@@ -61,7 +68,7 @@ func Uncertainty(ctx context.Context, base *design.Design, n int, seed uint64, w
 		idx[i] = i
 	}
 	var firstErr error
-	err = evaluate(ctx, idx, workers, func(i int) (*design.Design, error) { return designs[i], nil }, run,
+	err := evaluate(ctx, idx, workers, func(i int) (*design.Design, error) { return designs[i], nil }, run,
 		func(o outcome) error {
 			if o.err != nil && firstErr == nil {
 				firstErr = fmt.Errorf("sample %d: %w", o.i+1, o.err)

@@ -188,3 +188,47 @@ func TestO2PhelpsEffective(t *testing.T) {
 		t.Errorf("original O2 file %q, want data/xsec-o2.txt", orig.File)
 	}
 }
+
+// The B³Πg and C³Πu cross sections of the itikawa2006 set equal, point by point up to 50 eV, the
+// recommended values of Y. Itikawa, J. Phys. Chem. Ref. Data 35, 31 (2006), Table 8 (B³Πg) and
+// Table 10 (C³Πu), as transcribed in the public repository USNavalResearchLaboratory/nepc
+// (data/cs/n2/itikawa/excitation_itikawa2006_a_2.dat and _b_3.dat, read again for this test; the
+// paper's own tables could not be reached). Units 1e-20 m². The transcription's C point at
+// 11.0 eV (0.001), below the 11.03 eV threshold, is not used (the file starts at the threshold).
+func TestItikawaTables(t *testing.T) {
+	t.Parallel()
+	tables := map[string][][2]float64{
+		"B": {{8.55, 0.002}, {9, 0.141}, {9.5, 0.202}, {10, 0.25}, {10.5, 0.287}, {11, 0.313}, {11.5, 0.33},
+			{12, 0.338}, {12.5, 0.339}, {13, 0.333}, {13.5, 0.323}, {14, 0.308}, {14.5, 0.29}, {15, 0.27},
+			{16, 0.224}, {17, 0.199}, {18, 0.177}, {19, 0.159}, {20, 0.144}, {25, 0.092}, {30, 0.064},
+			{35, 0.049}, {40, 0.036}, {45, 0.028}, {50, 0.023}},
+		"C": {{11.5, 0.074}, {12, 0.147}, {12.5, 0.229}, {13, 0.335}, {13.5, 0.455}, {14, 0.551},
+			{14.5, 0.583}, {15, 0.551}, {15.7, 0.478}, {16, 0.447}, {16.5, 0.403}, {17, 0.353},
+			{17.5, 0.302}, {18, 0.276}, {18.5, 0.258}, {19, 0.242}, {19.5, 0.226}, {20, 0.212},
+			{25, 0.122}, {30, 0.077}, {35, 0.052}, {40, 0.038}, {45, 0.028}, {50, 0.022}},
+	}
+	sp, err := SetSpecies(SetItikawa2006, "N2")
+	if err != nil {
+		t.Fatal(err)
+	}
+	for label, tab := range tables {
+		var p *Process
+		for i := range sp.Processes {
+			if sp.Processes[i].Label == label {
+				if p != nil {
+					t.Fatalf("two processes labelled %s", label)
+				}
+				p = &sp.Processes[i]
+			}
+		}
+		if p == nil {
+			t.Fatalf("no process labelled %s", label)
+		}
+		for _, pt := range tab {
+			got := p.At(pt[0]*units.ElectronVolt) * 1e20
+			if !scalar.EqualWithinAbsOrRel(got, pt[1], 0, 1e-9) {
+				t.Errorf("%s at %g eV: %.6g e-20 m², Itikawa 2006 gives %.6g", label, pt[0], got, pt[1])
+			}
+		}
+	}
+}

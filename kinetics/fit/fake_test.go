@@ -1,0 +1,153 @@
+package fit
+
+import (
+	"context"
+	"math"
+	"strconv"
+	"strings"
+	"testing"
+
+	"gonum.org/v1/gonum/floats/scalar"
+
+	"n2pulse/kinetics"
+	"n2pulse/kinetics/design"
+	"n2pulse/kinetics/fit/measured"
+)
+
+// peakModel is a stand-in for the laser with a closed form, so that the fit's intervals can be
+// checked against a hand calculation: the energy is w·A·exp(−(g − k·L)²/(2s²)), a gap scan
+// whose height grows with the discharge width w and whose best gap k·L moves with the switch
+// inductance L. levels.upper_quenching_oxygen plays no part.
+const (
+	peakA = 1e-3 / 2e-3 // J per m of width
+	peakK = 0.15e-3 / 1e-9
+	peakS = 0.5e-3
+)
+
+func peakEnergy(g, w, l float64) float64 {
+	x := g - peakK*l
+	return w * peakA * math.Exp(-x*x/(2*peakS*peakS))
+}
+
+func peakRunner(d *design.Design) (kinetics.Summary, error) {
+	return kinetics.Summary{EnergyFront: peakEnergy(d.Channel.Gap, d.Channel.Width, d.Circuit.SwitchInductance)}, nil
+}
+
+// productRunner sees only the product w·L.
+func productRunner(d *design.Design) (kinetics.Summary, error) {
+	return kinetics.Summary{EnergyFront: d.Channel.Width * d.Circuit.SwitchInductance * 1e8 * (1 + d.Channel.Gap)}, nil
+}
+
+func gapScan(t *testing.T, gaps []float64, w, l, rel float64) *measured.Set {
+	t.Helper()
+	var b strings.Builder
+	b.WriteString("channel.gap [mm], energy_front [J], energy_front_uncertainty [%]\n")
+	for _, g := range gaps {
+		b.WriteString(strings.Join([]string{ftoa(g * 1e3), ftoa(peakEnergy(g, w, l)), ftoa(100 * rel)}, ",") + "\n")
+	}
+	set, err := measured.Parse([]byte(b.String()), "scan.csv")
+	if err != nil {
+		t.Fatal(err)
+	}
+	return set
+}
+
+func testDesign(t *testing.T) *design.Design {
+	t.Helper()
+	d, err := design.LoadDesign("testdata/small-transfer.toml")
+	if err != nil {
+		t.Fatal(err)
+	}
+	return d
+}
+
+// TestIntervalsByHand: exact data of the closed-form model; the fit must return the true keys
+// and the 95 % intervals of the hand-computed covariance (J with analytic derivatives).
+func TestIntervalsByHand(t *testing.T) {
+	t.Parallel()
+	const w, l, rel = 1.5e-3, 12e-9, 0.05
+	gaps := []float64{1.2e-3, 1.5e-3, 1.8e-3, 2.1e-3, 2.4e-3, 2.7e-3}
+	data := gapScan(t, gaps, w, l, rel)
+	free := []Free{{"channel.width", 0.5e-3, 5e-3}, {"circuit.switch_inductance", 3e-9, 40e-9}}
+	res, err := Fit(context.Background(), testDesign(t), data, free, &Settings{Run: peakRunner, Starts: 2})
+	if err != nil {
+		t.Fatal(err)
+	}
+	// Hand calculation: r = ln E/rel, ∂r/∂ln w = 1/rel, ∂r/∂ln L = (g − kL)·kL/(s²·rel).
+	var a, b, c float64 // JᵀJ = [[a b][b c]]
+	for _, g := range gaps {
+		j1, j2 := 1/rel, (g-peakK*l)*peakK*l/(peakS*peakS*rel)
+		a, b, c = a+j1*j1, b+j1*j2, c+j2*j2
+	}
+	det := a*c - b*b
+	sdW, sdL, corr := math.Sqrt(c/det), math.Sqrt(a/det), -b/math.Sqrt(a*c)
+	for i, want := range []struct{ value, sd float64 }{{w, sdW}, {l, sdL}} {
+		p := res.Params[i]
+		if !p.Determined {
+			t.Fatalf("%s not determined: %s", p.Key, p.Why)
+		}
+		// The data are exact: the optimum is the truth to the minimiser's tolerance.
+		if !scalar.EqualWithinAbsOrRel(p.Value, want.value, 0, 1e-4) {
+			t.Errorf("%s = %g, want %g", p.Key, p.Value, want.value)
+		}
+		// Forward differences of step 0.01 in ln x: a few per cent on the sd.
+		if !scalar.EqualWithinAbsOrRel(p.SDLog, want.sd, 0, 0.03) {
+			t.Errorf("%s: sd of ln = %g, hand calculation %g", p.Key, p.SDLog, want.sd)
+		}
+		if !scalar.EqualWithinAbsOrRel(p.Hi95/p.Value, math.Exp(1.959964*want.sd), 0, 0.01) {
+			t.Errorf("%s: upper 95 %% limit %g", p.Key, p.Hi95)
+		}
+	}
+	if !scalar.EqualWithinAbsOrRel(res.Correlation[0][1], corr, 0.02, 0) {
+		t.Errorf("correlation %g, hand calculation %g", res.Correlation[0][1], corr)
+	}
+	if res.ChiSquare > 1e-6 || res.DOF != 4 {
+		t.Errorf("χ² = %g with %d degrees of freedom, want ≈ 0 with 4", res.ChiSquare, res.DOF)
+	}
+	if v, _ := res.Design.Get("channel.width"); !scalar.EqualWithinAbsOrRel(v, w, 0, 1e-4) {
+		t.Errorf("fitted design has width %g", v)
+	}
+}
+
+// TestUntouchedKey: a key the model ignores is reported as not determined, and the others
+// still are.
+func TestUntouchedKey(t *testing.T) {
+	t.Parallel()
+	data := gapScan(t, []float64{1.2e-3, 1.6e-3, 2.0e-3, 2.4e-3}, 2e-3, 10e-9, 0.05)
+	free := []Free{{"channel.width", 0.5e-3, 5e-3}, {"circuit.switch_inductance", 3e-9, 40e-9},
+		{"levels.upper_quenching_oxygen", 1e-17, 1e-15}}
+	res, err := Fit(context.Background(), testDesign(t), data, free, &Settings{Run: peakRunner, Starts: 1})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if got := res.Undetermined(); len(got) != 1 || got[0] != "levels.upper_quenching_oxygen" {
+		t.Fatalf("not determined: %v, want only levels.upper_quenching_oxygen", got)
+	}
+	if p := res.Params[2]; !strings.Contains(p.Why, "do not change") || !math.IsNaN(p.SDLog) {
+		t.Errorf("why %q, sd %g", p.Why, p.SDLog)
+	}
+	if !math.IsNaN(res.Correlation[2][0]) || math.IsNaN(res.Correlation[0][1]) {
+		t.Errorf("correlations %v", res.Correlation)
+	}
+}
+
+// TestCombinationOnly: a model that sees only w·L determines neither alone.
+func TestCombinationOnly(t *testing.T) {
+	t.Parallel()
+	data, err := measured.Parse([]byte("channel.gap [mm], energy_front [uJ]\n1.0, 30\n1.5, 30.2\n2.0, 29.9\n"), "c.csv")
+	if err != nil {
+		t.Fatal(err)
+	}
+	free := []Free{{"channel.width", 0.5e-3, 5e-3}, {"circuit.switch_inductance", 3e-9, 40e-9}}
+	res, err := Fit(context.Background(), testDesign(t), data, free, &Settings{Run: productRunner, Starts: 1})
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, p := range res.Params {
+		if p.Determined || !strings.Contains(p.Why, "combination") {
+			t.Errorf("%s: determined %v, why %q", p.Key, p.Determined, p.Why)
+		}
+	}
+}
+
+func ftoa(x float64) string { return strconv.FormatFloat(x, 'g', -1, 64) }
