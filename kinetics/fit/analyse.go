@@ -127,16 +127,26 @@ func (p *problem) analyse(res *Result, theta []float64, maxSpread float64) error
 				for i := range s {
 					c += Vk.At(a, i) * Vk.At(b, i) / (s[i] * s[i])
 				}
-				cov.SetSym(a, b, c*scale2)
+				cov.SetSym(a, b, c)
 			}
 		}
+		// The correlations do not depend on the scale of the covariance, so they are known
+		// even when the scatter is not.
 		for a, j := range keep {
 			for b, k := range keep {
 				res.Correlation[j][k] = cov.At(a, b) / math.Sqrt(cov.At(a, a)*cov.At(b, b))
 			}
 			pr := &res.Params[j]
-			pr.SDLog = math.Sqrt(cov.At(a, a))
+			pr.SDLog = math.Sqrt(cov.At(a, a) * scale2)
 			pr.Lo95, pr.Hi95 = pr.Value*math.Exp(-t*pr.SDLog), pr.Value*math.Exp(t*pr.SDLog)
+		}
+	}
+
+	if res.ScatterEstimated {
+		for k := range res.Residuals {
+			rs := &res.Residuals[k]
+			rs.Normalised /= res.RelScatter // NaN when the scatter is unknown
+			rs.Uncertainty = rs.Measured * res.RelScatter
 		}
 	}
 

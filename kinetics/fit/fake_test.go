@@ -151,3 +151,41 @@ func TestCombinationOnly(t *testing.T) {
 }
 
 func ftoa(x float64) string { return strconv.FormatFloat(x, 'g', -1, 64) }
+
+// TestCurves: the curves run along the column with the most distinct values, one per group of
+// the other column, across the measured span widened by a fifth each side, and carry the
+// model's values there.
+func TestCurves(t *testing.T) {
+	t.Parallel()
+	text := "circuit.switch_capacitance [pF], channel.gap [mm], energy_front [uJ]\n" +
+		"800, 1.0, 10\n800, 1.5, 12\n1300, 2.0, 20\n1300, 1.5, 18\n800, 2.0, 9\n"
+	data, err := measured.Parse([]byte(text), "c.csv")
+	if err != nil {
+		t.Fatal(err)
+	}
+	d := testDesign(t)
+	curves, dropped, err := Curves(context.Background(), d, data, "", 11, &Settings{Run: peakRunner})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if len(curves) != 2 || dropped != 0 || curves[0].Key != "channel.gap" || len(curves[0].Points) != 3 || len(curves[1].Points) != 2 {
+		t.Fatalf("curves %+v", curves)
+	}
+	c := curves[1]
+	if c.Fixed[0].Value != "1300 pF" || c.PointX[0] != 1.5e-3 || c.PointX[1] != 2e-3 {
+		t.Errorf("second group %+v", c)
+	}
+	// 1.0 … 2.0 mm widened by 0.2 mm each side.
+	if !scalar.EqualWithinAbsOrRel(c.X[0], 0.8e-3, 1e-12, 0) || !scalar.EqualWithinAbsOrRel(c.X[10], 2.2e-3, 1e-12, 0) {
+		t.Errorf("x from %g to %g, want 0.8 mm to 2.2 mm", c.X[0], c.X[10])
+	}
+	for j, x := range c.X {
+		want := peakEnergy(x, d.Channel.Width, d.Circuit.SwitchInductance)
+		if !scalar.EqualWithinAbsOrRel(c.Y["energy_front"][j], want, 0, 1e-12) {
+			t.Errorf("y(%g) = %g, want %g", x, c.Y["energy_front"][j], want)
+		}
+	}
+	if _, _, err := Curves(context.Background(), d, data, "gas.pressure", 11, &Settings{Run: peakRunner}); err == nil {
+		t.Error("a curve along a key that is not a column was drawn")
+	}
+}

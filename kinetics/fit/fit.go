@@ -66,13 +66,16 @@ type Param struct {
 
 // Residual is one measured value against the fitted model.
 type Residual struct {
-	Point       int     `json:"point"` // index in the measured set
-	Line        int     `json:"line"`  // line of the file
-	Quantity    string  `json:"quantity"`
-	Measured    float64 `json:"measured"` // [SI]
-	Model       float64 `json:"model"`    // [SI]
+	Point    int     `json:"point"` // index in the measured set
+	Line     int     `json:"line"`  // line of the file
+	Quantity string  `json:"quantity"`
+	Measured float64 `json:"measured"` // [SI]
+	Model    float64 `json:"model"`    // [SI]
+	// Uncertainty is the standard uncertainty of Measured, given or (with the scatter
+	// estimated) RelScatter × Measured; NaN when the scatter is unknown.
 	Uncertainty float64 `json:"uncertainty"`
-	// Normalised is (ln model − ln measured)/s: in standard uncertainties, given or estimated.
+	// Normalised is (ln model − ln measured)/s: in standard uncertainties, given or estimated
+	// (NaN when the scatter is unknown).
 	Normalised float64 `json:"normalised"`
 }
 
