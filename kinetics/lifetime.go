@@ -38,6 +38,13 @@ func EffectiveUpperLifetime(d *design.Design) float64 {
 	return 1 / upperDecayRate(d.Levels, radiativeUpperLifetime(d), d.Gas)
 }
 
+// EffectiveUpperV1Lifetime returns the lifetime of C(v=1) in the design's gas without electrons
+// [s]: radiation (at τ_C of C(0)), relaxation into C(0) and electronic quenching by N₂, and
+// quenching by O₂ and He at C(0)'s constants, as the C(v=1) reservoir of a run takes them.
+func EffectiveUpperV1Lifetime(d *design.Design) float64 {
+	return 1 / newUpperV1(d.Levels, d.Gas, gasDensity(d.Gas), radiativeUpperLifetime(d), 1e-12).decay
+}
+
 // radiativeUpperLifetime is τ_C, the radiative lifetime of C(0) [s]: spectroscopy.upper_lifetime,
 // else package spectro at the design's p and T, else 40.8 ns.
 func radiativeUpperLifetime(d *design.Design) float64 {

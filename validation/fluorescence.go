@@ -20,6 +20,7 @@ const (
 	airflyTemperature = 293.0 // K
 	airflyPressure    = 800e2 // Pa, the reference pressure of the relative intensities
 	airflyP337        = 15.89 // hPa
+	airflyP316        = 11.9  // hPa, the (1,0) band at 316 nm, from C(v=1)
 	airflyI358        = 0.6741
 	airflyI381        = 0.2720
 )
@@ -44,6 +45,17 @@ func fluorescenceChecks() ([]Check, error) {
 		c.Computed = d.Gas.Pressure / (lp.UpperLifetime/tauEff - 1) / 100
 	}
 	cs := []Check{c}
+
+	// The (1,0) band at 316 nm comes from C(v=1): its quenching pressure tests the sum of
+	// the C(v=1) constants (relaxation into C(0) plus quenching by N₂, and O₂ taken at C(0)'s
+	// constant), not how the N₂ part splits between the two.
+	c1 := Check{ID: "fluorescence.quenching_pressure.316nm", Quantity: "quenching pressure p′ of the 316 nm band (C(v=1)) in dry air at 293 K",
+		Unit: "hPa", Reference: airflyP316, Tolerance: 0.10, Mode: Relative, Kind: Published, Source: srcAirfly, Err: err}
+	if err == nil {
+		tauEff := kinetics.EffectiveUpperV1Lifetime(d)
+		c1.Computed = d.Gas.Pressure / (lp.UpperLifetime/tauEff - 1) / 100
+	}
+	cs = append(cs, c1)
 
 	// Band ratios: photons of C(0) → B(v″) relative to C(0) → B(0) are A(0,v″)/A(0,0), the same
 	// at every pressure for bands of one upper level. The measured ratios are at 800 hPa, where
