@@ -356,7 +356,7 @@ func fitJSON(fr *fitReport) map[string]any {
 			settings[s.Key] = s.Value
 		}
 		resid = append(resid, map[string]any{"line": rs.Line, "settings": settings, "quantity": rs.Quantity,
-			"measured": rs.Measured, "model": rs.Model, "uncertainty": nullable(rs.Uncertainty), "normalised": rs.Normalised})
+			"measured": rs.Measured, "model": rs.Model, "uncertainty": nullable(rs.Uncertainty), "normalised": nullable(rs.Normalised)})
 	}
 	var starts []map[string]any
 	for _, s := range r.Starts {
