@@ -86,7 +86,8 @@ func solveCircuit(c *circuit, d *design.Design, par *Parameters, steps int) (*wa
 				return nil, Stats{}, fmt.Errorf("kinetics: circuit: %w", err)
 			}
 			ne := math.Exp(y[iLnNe])
-			kB, kC, kW, kBp, mean := c.pumpRates(y[iVg])
+			smp := c.sample(y[iVg], ne)
+			kB, kC, kW, kBp, mean := smp.kB, smp.kC, smp.kW, smp.kBp, smp.mean
 			w.voltage[k] = y[iVg]
 			w.current[k] = y[iIc]
 			w.field[k] = c.reducedField(y[iVg])
@@ -100,8 +101,8 @@ func solveCircuit(c *circuit, d *design.Design, par *Parameters, steps int) (*wa
 			}
 			w.pumpC[k] = kC*ne*shareC + v1.step(kC*ne*shareC1)
 			w.pumpB[k] = kB*ne*shareB + man.step(((1-par.LowerShare)*kB+kW+kBp)*ne*nX)
-			if share, ok := c.powerSplit(y[iVg]); ok {
-				pw := y[iVg] * c.plasmaCurrentQuiet(y[iVg], ne) * dt
+			if share, ok := smp.share, smp.split; ok {
+				pw := y[iVg] * smp.current * dt
 				w.plasmaPower[k] = pw / dt
 				w.split = true
 				w.plasmaSampled += pw
