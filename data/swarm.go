@@ -5,7 +5,8 @@ import "embed"
 // CrossSections holds the electron-impact cross sections xsec-n2.txt (the original N₂ set),
 // xsec-n2-phelps.txt and xsec-n2-itikawa.txt (the other N₂ sets, made by
 // scripts/xsec/n2_sets.py), xsec-o2.txt (O₂ of the original set), xsec-o2-phelps.txt (O₂ of
-// the other sets, made by scripts/xsec/o2_sets.py) and xsec-he.txt, in n2pulse's own documented text
+// the other sets, made by scripts/xsec/o2_sets.py) and xsec-he.txt (every set, made by
+// scripts/xsec/he_set.py), in n2pulse's own documented text
 // format, each process with its source.
 //
 //go:embed xsec-*.txt

@@ -102,6 +102,11 @@ func swarmChecks() ([]Check, error) {
 		return nil, err
 	}
 	cs := transportChecks(n2, air)
+	hes, err := heliumChecks()
+	if err != nil {
+		return nil, err
+	}
+	cs = append(cs, hes...)
 	xs, err := crossSectionChecks()
 	if err != nil {
 		return nil, err
@@ -203,6 +208,30 @@ func transportChecks(n2, air *swarm.Solver) []Check {
 			Reference: ek, Tolerance: 0.20, Mode: Relative, Kind: Published, Source: srcMorrowLowke + " (D/μ = 0.3341e9 (E/N[V cm²])^0.54069 V)"}, charEnergyEV))
 	}
 	return cs
+}
+
+// heliumChecks compare the characteristic energy of pure helium (the He cross sections are
+// common to every set) with the measured Townsend energy factor of Kaye & Laby's table, the
+// same table and conversion as the N₂ checks.
+func heliumChecks() ([]Check, error) {
+	mix, err := swarm.Mixture(0, 0, 1)
+	if err != nil {
+		return nil, err
+	}
+	he, err := swarm.NewSolver(mix, nil)
+	if err != nil {
+		return nil, err
+	}
+	kT0 := units.Boltzmann * 273.15 // s.t.p. [J], as in transportChecks
+	var cs []Check
+	// Columns of the table: E/p [V m⁻¹ Pa⁻¹] and η of He (the table gives He up to E/p = 4).
+	for _, m := range []struct{ ep, eta float64 }{{0.5, 37}, {1, 74}, {2, 126}, {3, 152}, {4, 176}} {
+		en := m.ep * kT0
+		cs = append(cs, solvedCheck(he, en, Check{ID: fmt.Sprintf("swarm.charenergy.he.Ep%g", m.ep),
+			Quantity: fmt.Sprintf("characteristic energy D_T/μ in He at E/p = %g V m⁻¹ Pa⁻¹ (%.3g Td)", m.ep, en/units.Townsend), Unit: "eV",
+			Reference: m.eta * kT0 / units.ElementaryCharge, Tolerance: 0.20, Mode: Relative, Kind: Published, Source: srcKayeLabyEta}, charEnergyEV))
+	}
+	return cs, nil
 }
 
 // thresholdChecks compare the effective ionisation threshold of air, α = η (two-body

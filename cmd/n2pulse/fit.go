@@ -94,7 +94,7 @@ func runFit(args []string, stdout, stderr io.Writer) error {
 	if err != nil {
 		return err
 	}
-	fr := &fitReport{design: fs.Arg(0), file: *measuredFile, data: data, res: res, typed: typed}
+	fr := &fitReport{design: fs.Arg(0), file: *measuredFile, data: data, res: res, typed: typed, sets: *sets}
 	if *out != "" {
 		curves, dropped, err := fit.Curves(ctx, res.Design, data, *along, fitCurvePoints, settings)
 		if err != nil {
@@ -126,6 +126,7 @@ type fitReport struct {
 	data         *measured.Set
 	res          *fit.Result
 	typed        map[string]string // free key → unit the user wrote its bounds in
+	sets         []string          // --set values applied before the fit
 	curves       []fit.Curve
 	dropped      int
 	files        []string
@@ -355,7 +356,7 @@ func fitJSON(fr *fitReport) map[string]any {
 			settings[s.Key] = s.Value
 		}
 		resid = append(resid, map[string]any{"line": rs.Line, "settings": settings, "quantity": rs.Quantity,
-			"measured": rs.Measured, "model": rs.Model, "uncertainty": nullable(rs.Uncertainty), "normalised": rs.Normalised})
+			"measured": rs.Measured, "model": rs.Model, "uncertainty": nullable(rs.Uncertainty), "normalised": nullable(rs.Normalised)})
 	}
 	var starts []map[string]any
 	for _, s := range r.Starts {
@@ -394,6 +395,9 @@ func writeFitFiles(dir string, fr *fitReport) ([]string, error) {
 	}
 	var toml bytes.Buffer
 	fmt.Fprintf(&toml, "# Design %s fitted to the measured points of %s by `n2pulse fit`.\n", fr.design, fr.file)
+	for _, s := range fr.sets {
+		fmt.Fprintf(&toml, "# changed before the fit: --set %s\n", s)
+	}
 	for _, p := range fr.res.Params {
 		l := fr.freeLabel(p.Key)
 		if p.Determined {

@@ -148,3 +148,35 @@ func TestFitUsage(t *testing.T) {
 		}
 	}
 }
+
+// TestFitNoScatter: one point, one free key, no uncertainty: nothing is left to estimate the
+// scatter, so --json carries null intervals and residuals and the key is not determined.
+func TestFitNoScatter(t *testing.T) {
+	t.Parallel()
+	dir := t.TempDir()
+	data := filepath.Join(dir, "one.csv")
+	if err := os.WriteFile(data, []byte("channel.gap [mm], energy_front [uJ]\n1.8, 60\n"), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	var o, e bytes.Buffer
+	if code := run([]string{"fit", fitDemoDesign, "--measured", data, "--free", "channel.width=0.5:5 mm", "--starts", "1", "--out", "", "--json"}, &o, &e); code != 0 {
+		t.Fatalf("exit %d: %s", code, e.String())
+	}
+	var got struct {
+		Params []struct {
+			Determined bool     `json:"determined"`
+			Low        *float64 `json:"ci95_low"`
+			Why        string   `json:"why"`
+		} `json:"params"`
+		Residuals []struct {
+			Normalised *float64 `json:"normalised"`
+		} `json:"residuals"`
+		Scatter *float64 `json:"relative_scatter"`
+	}
+	if err := json.Unmarshal(o.Bytes(), &got); err != nil {
+		t.Fatalf("%v\n%s", err, o.String())
+	}
+	if p := got.Params[0]; p.Determined || p.Low != nil || !strings.Contains(p.Why, "no interval") || got.Residuals[0].Normalised != nil || got.Scatter != nil {
+		t.Errorf("got %+v", got)
+	}
+}

@@ -52,7 +52,7 @@ func gapScan(t *testing.T, gaps []float64, w, l, rel float64) *measured.Set {
 	return set
 }
 
-func testDesign(t *testing.T) *design.Design {
+func testDesign(t testing.TB) *design.Design {
 	t.Helper()
 	d, err := design.LoadDesign("testdata/small-transfer.toml")
 	if err != nil {

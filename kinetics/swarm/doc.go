@@ -54,7 +54,7 @@
 // drift velocities are bulk values, which exceed the flux value where ionisation is strong
 // (above about 1000 Td in N₂), and measured α is a steady-state Townsend value; the
 // validation compares below that range. In helium-rich mixtures at the top of the range the
-// mean energy reaches hundreds of eV (near runaway, beyond the 3 keV end of the data, where
+// mean energy reaches hundreds of eV (near runaway, beyond the end of the data, 1 keV for He, where
 // cross sections are held at their last value): the two-term results there are indicative.
 //
 // # Cross sections
@@ -71,15 +71,18 @@
 // 9.97 eV losses, ionisation and dissociative attachment; made by scripts/xsec/o2_sets.py,
 // which derives the elastic momentum transfer from the distributed total momentum transfer.
 //
-// data/xsec-n2.txt, data/xsec-o2.txt and data/xsec-he.txt, in n2pulse's own text format
-// (documented at the top of each file), each process with its source. N₂: elastic momentum
-// transfer, vibrational excitation v = 1…7, A, B, W, B′, a′, a, w, C, E, a″, c′ and lumped
-// higher states, neutral dissociation, counting ionisation. O₂: momentum transfer,
-// vibration (summed), a¹Δg, b¹Σg⁺, the 4.5, 8.4 and 9.97 eV states, ionisation, dissociative
-// attachment. He: momentum transfer, lumped excitation, ionisation. Rotational excitation is
-// left out (its energy loss matters only below a few Td). Momentum transfer above 10 eV is
-// derived from the elastic values and the published phase functions in the same source (see
-// the files). The He and O₂ attachment data are from memory and marked so.
+// data/xsec-n2.txt and data/xsec-o2.txt, in n2pulse's own text format (documented at the top
+// of each file), each process with its source. N₂: elastic momentum transfer, vibrational
+// excitation v = 1…7, A, B, W, B′, a′, a, w, C, E, a″, c′ and lumped higher states, neutral
+// dissociation, counting ionisation. O₂: momentum transfer, vibration (summed), a¹Δg, b¹Σg⁺,
+// the 4.5, 8.4 and 9.97 eV states, ionisation, dissociative attachment. Rotational excitation
+// is left out of these two (its energy loss matters only below a few Td). Momentum transfer
+// above 10 eV is derived from the elastic values and the published phase functions in the same
+// source (see the files). Their O₂ attachment is from memory and marked so.
+//
+// data/xsec-he.txt, common to every set, is the He set of Phelps's compilation as distributed
+// (momentum transfer after Crompton et al. and Hayashi, one lumped excitation, ionisation after
+// Rapp & Englander-Golden 1965), made by scripts/xsec/he_set.py; its data end at 1 keV.
 //
 // # Attachment
 //

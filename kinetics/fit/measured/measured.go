@@ -440,6 +440,9 @@ func parseRow(rec []string, cols []column, file string, line int) (Point, error)
 		}
 		if u < 0 {
 			u = -u * p.Values[k].Value
+			if !(u > 0) {
+				return p, fail(uncertCol[q], "the uncertainty of %g is too small to represent", p.Values[k].Value)
+			}
 		}
 		p.Values[k].Uncertainty = u
 	}
