@@ -136,41 +136,38 @@ func (c *circuit) plasmaCurrent(vg, ne float64) (current, net float64) {
 	return math.Copysign(units.ElementaryCharge*ne*k[rateDrift]*c.area, vg), k[rateIon] - k[rateAtt]
 }
 
-// plasmaCurrentQuiet is the current of plasmaCurrent without counting the lookup, for the samples
-// that the energy account takes of a state the integrator has already evaluated [A].
-func (c *circuit) plasmaCurrentQuiet(vg, ne float64) float64 {
-	var k [nRates]float64
-	c.rates.at(c.reducedField(vg), rateDrift, rateDrift+1, &k, nil)
-	return math.Copysign(units.ElementaryCharge*ne*k[rateDrift]*c.area, vg)
+// dischargeSample is what the waveforms take of the discharge at one sample of channel voltage vg [V]
+// and electron density ne [m⁻³], from one lookup of the swarm table (counted once; circuit.sample): the rate
+// coefficients for X → B³Πg, X → C³Πu, X → W³Δu and X → B′³Σu⁻ [m³/s] (W and B′ zero for a
+// table without them), the mean electron energy [J], the plasma current e·n_e·v_d·A with the
+// sign of vg [A], and the share of the plasma power taken by each channel of the swarm's power
+// split (split false when the table has none).
+type dischargeSample struct {
+	kB, kC, kW, kBp, mean float64
+	current               float64
+	share                 [swarm.NumChannels]float64
+	split                 bool
 }
 
-// pumpRates are the rate coefficients for X → B³Πg, X → C³Πu, X → W³Δu and X → B′³Σu⁻
-// [m³/s] at channel voltage vg (W and B′ zero for a table without them).
-// The mean electron energy [J] comes with them.
-func (c *circuit) pumpRates(vg float64) (kB, kC, kW, kBp, mean float64) {
+func (c *circuit) sample(vg, ne float64) dischargeSample {
 	en := c.reducedField(vg)
 	c.count(en)
 	var k [nRates]float64
-	c.rates.at(en, rateExcB, rateMean+1, &k, nil)
-	return k[rateExcB], k[rateExcC], k[rateExcW], k[rateExcBp], k[rateMean]
-}
-
-// powerSplit returns the share of the plasma power taken by each channel of the swarm's
-// power split at channel voltage vg, and false when the table has no split.
-func (c *circuit) powerSplit(vg float64) (share [swarm.NumChannels]float64, ok bool) {
-	var k [nRates]float64
-	c.rates.at(c.reducedField(vg), ratePower, nRates, &k, nil)
+	c.rates.at(en, rateDrift, nRates, &k, nil)
+	s := dischargeSample{kB: k[rateExcB], kC: k[rateExcC], kW: k[rateExcW], kBp: k[rateExcBp], mean: k[rateMean],
+		current: math.Copysign(units.ElementaryCharge*ne*k[rateDrift]*c.area, vg)}
 	sum := 0.0
 	for _, p := range k[ratePower:] {
 		sum += p
 	}
 	if !(sum > 0) {
-		return share, false
+		return s
 	}
+	s.split = true
 	for i, p := range k[ratePower:] {
-		share[i] = p / sum
+		s.share[i] = p / sum
 	}
-	return share, true
+	return s
 }
 
 // Eval implements ode.System.

@@ -57,11 +57,21 @@ func oscillatorStrength(a, lambda, guOverGl float64) float64 {
 // Maxwellian integral of the excitation exactly e^(−y) times this.)
 func superelasticRate(f, de, kT, glOverGu float64) float64 {
 	y := de / kT
-	p := max(gauntFloor, 0.276*math.Exp(y)*expIntE1(y))
+	p := gauntFloor
+	if y < floorAbove {
+		p = max(gauntFloor, 0.276*math.Exp(y)*expIntE1(y))
+	}
 	pa := math.Pi * bohrRadius * bohrRadius
 	return glOverGu * math.Sqrt(8/(math.Pi*units.ElectronMass*kT)) *
 		8 * math.Pi / math.Sqrt(3) * pa * f * rydbergEnergy * rydbergEnergy / de * p
 }
+
+// floorAbove is a y = ΔE/kT above which P(y) is the Gaunt floor: e^y·E₁(y) < ln(1 + 1/y) for
+// every y > 0 (Abramowitz & Stegun, Handbook of Mathematical Functions (1964), 5.1.20; from
+// memory, and checked against the computed factor by TestGauntFloorShortcut), so
+// 0.276·e^y·E₁(y) < 0.276·ln(1 + 1/0.95) = 0.1985 < 0.2 there, far beyond the error of
+// expIntE1. Most steps of a shot have y above it, and need neither E₁ nor e^y.
+const floorAbove = 0.95
 
 // lotzRate is the Maxwellian rate coefficient [m³/s] of ionisation of q electrons bound by
 // i [J] at electron temperature kT [J] by the Lotz cross section a·q·ln(E/I)/(E·I):

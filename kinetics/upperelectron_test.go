@@ -63,6 +63,29 @@ func TestUpperElectronHand(t *testing.T) {
 	}
 }
 
+// TestGauntFloorShortcut checks the shortcut of superelasticRate: from y = floorAbove on, the
+// full Born–Bethe factor 0.276·e^y·E₁(y) as computed is below the floor, so P(y) = 0.2 exactly
+// as without the shortcut. Sampled densely from floorAbove to y = 700 (a Maxwellian some 200
+// times colder than the photon energy; beyond y = 709 e^y overflows, where the shortcut gives
+// the floor the physics wants). At y = 0.5 the factor lies above the floor: the shortcut
+// must not reach down there.
+func TestGauntFloorShortcut(t *testing.T) {
+	t.Parallel()
+	for y := floorAbove; y <= 700; y *= 1.0001 {
+		if full := 0.276 * math.Exp(y) * expIntE1(y); !(full < gauntFloor) {
+			t.Fatalf("y = %g: 0.276·e^y·E₁(y) = %.17g, not below the floor %g", y, full, gauntFloor)
+		}
+	}
+	// Against mpmath 1.3.0 (30 digits): e·E₁(1) = 0.59634736232319407, so the factor at y = 1
+	// is 0.1646, below the floor; the crossing lies near y = 0.74, below floorAbove.
+	if got := 0.276 * math.Exp(1) * expIntE1(1); !scalar.EqualWithinAbsOrRel(got, 0.276*0.59634736232319407, 0, 1e-13) {
+		t.Errorf("0.276·e·E₁(1) = %.17g", got)
+	}
+	if full := 0.276 * math.Exp(0.5) * expIntE1(0.5); !(full > gauntFloor) {
+		t.Errorf("y = 0.5: 0.276·e^y·E₁(y) = %g, want above the floor", full)
+	}
+}
+
 // TestSuperelasticIntoLower: electrons that de-excite C(0) superelastically put the (0,0)
 // band's share A₀₀·τ_C of it into B(0). With no pump and no photons, C(0) = C₀·e^(−Γt), Γ =
 // Γ_C + L (L the electrons' total loss rate), and B(0), fed at (A₀₀ + X)·C and emptied at Γ_B,

@@ -91,7 +91,8 @@ func solveCircuit(c *circuit, d *design.Design, par *Parameters, steps int) (*wa
 				return nil, Stats{}, fmt.Errorf("kinetics: circuit: %w", err)
 			}
 			ne := math.Exp(y[iLnNe])
-			kB, kC, kW, kBp, mean := c.pumpRates(y[iVg])
+			smp := c.sample(y[iVg], ne)
+			kB, kC, kW, kBp, mean := smp.kB, smp.kC, smp.kW, smp.kBp, smp.mean
 			w.voltage[k] = y[iVg]
 			w.current[k] = y[iIc]
 			w.field[k] = c.reducedField(y[iVg])
@@ -110,8 +111,8 @@ func solveCircuit(c *circuit, d *design.Design, par *Parameters, steps int) (*wa
 			cMean := shadow.step(w.pumpC[k], par.UpperDecayRate+d.Levels.UpperElectronMixing*ne+w.lossC[k])
 			fromC := cMean*(toB+sup*(1-par.EinsteinA00*par.UpperLifetime)) + v1.r*toBv1
 			w.pumpB[k] = kB*ne*shareB + man.step(((1-par.LowerShare)*kB+kW+kBp)*ne*nX+fromC)
-			if share, ok := c.powerSplit(y[iVg]); ok {
-				pw := y[iVg] * c.plasmaCurrentQuiet(y[iVg], ne) * dt
+			if share, ok := smp.share, smp.split; ok {
+				pw := y[iVg] * smp.current * dt
 				w.plasmaPower[k] = pw / dt
 				w.split = true
 				w.plasmaSampled += pw

@@ -41,6 +41,7 @@ func runFit(args []string, stdout, stderr io.Writer) error {
 	seed := fs.Uint64("seed", 1, "seed of the starts after the first")
 	workers := fs.Int("workers", runtime.NumCPU(), "shots run at once")
 	out := fs.String("out", "fit", `directory for fitted.toml (the design with the fitted values), residuals.csv, fit.json and one overlay figure per measured quantity ("" writes none)`)
+	memLimit := fs.String("memory-limit", "", `largest memory all shots computed at once may take, e.g. "8 GB" (default: half the machine's memory); each worker gets its share`)
 	along := fs.String("along", "", "design-key column of the measured file to draw the figures along (default: the one with the most distinct values)")
 	asJSON := fs.Bool("json", false, "print the fit as JSON on stdout (SI units; null where a value is not determined)")
 	if help, err := parseFlags(fs, args); help || err != nil {
@@ -89,7 +90,11 @@ func runFit(args []string, stdout, stderr io.Writer) error {
 		fmt.Fprintf(stderr, "fitting %d key(s) to %d measured point(s), %d start(s)…\n", len(free), len(data.Points), *starts)
 	}
 	ctx := context.Background()
-	settings := &fit.Settings{Starts: *starts, Seed: *seed, Workers: *workers}
+	runner, err := sharedMemoryRunner("fit", *memLimit, *workers)
+	if err != nil {
+		return err
+	}
+	settings := &fit.Settings{Starts: *starts, Seed: *seed, Workers: *workers, Run: runner}
 	res, err := fit.Fit(ctx, d, data, free, settings)
 	if err != nil {
 		return err

@@ -2,6 +2,7 @@ package fit
 
 import (
 	"context"
+	"errors"
 	"math"
 	"strconv"
 	"strings"
@@ -187,5 +188,31 @@ func TestCurves(t *testing.T) {
 	}
 	if _, _, err := Curves(context.Background(), d, data, "gas.pressure", 11, &Settings{Run: peakRunner}); err == nil {
 		t.Error("a curve along a key that is not a column was drawn")
+	}
+}
+
+// TestFailingRuns: runs that fail in part of the box only turn the minimiser back; when every
+// run fails the fit returns the model's error, naming the line, and never panics.
+func TestFailingRuns(t *testing.T) {
+	t.Parallel()
+	data := gapScan(t, []float64{1.2e-3, 1.6e-3, 2.0e-3, 2.4e-3}, 1.5e-3, 10e-9, 0.05)
+	free := []Free{{"channel.width", 0.5e-3, 5e-3}, {"circuit.switch_inductance", 3e-9, 40e-9}}
+	partly := func(d *design.Design) (kinetics.Summary, error) {
+		if d.Channel.Width > 3e-3 {
+			return kinetics.Summary{}, errors.New("too wide for this stand-in")
+		}
+		return peakRunner(d)
+	}
+	res, err := Fit(context.Background(), testDesign(t), data, free, &Settings{Run: partly, Starts: 3})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if w := res.Params[0]; !scalar.EqualWithinAbsOrRel(w.Value, 1.5e-3, 0, 1e-3) {
+		t.Errorf("width %g, want 1.5 mm", w.Value)
+	}
+	never := func(*design.Design) (kinetics.Summary, error) { return kinetics.Summary{}, errors.New("no shot") }
+	_, err = Fit(context.Background(), testDesign(t), data, free, &Settings{Run: never, Starts: 2})
+	if err == nil || !strings.Contains(err.Error(), "every start failed") || !strings.Contains(err.Error(), "no shot") {
+		t.Errorf("error %v", err)
 	}
 }
