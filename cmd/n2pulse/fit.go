@@ -87,7 +87,7 @@ func runFit(args []string, stdout, stderr io.Writer) error {
 		}
 	}
 	if !*asJSON {
-		fmt.Fprintf(stderr, "fitting %d key(s) to %d measured point(s), %d start(s)…\n", len(free), len(data.Points), *starts)
+		fmt.Fprintf(stderr, "fitting %s to %s, %s…\n", count(len(free), "key"), count(len(data.Points), "measured point"), count(*starts, "start"))
 	}
 	ctx := context.Background()
 	runner, err := sharedMemoryRunner("fit", *memLimit, *workers)
@@ -230,8 +230,9 @@ func (fr *fitReport) quantityLabel(q string) plots.Label {
 // printFit writes the fitted keys, what is not determined, correlations, residuals and χ².
 func printFit(w io.Writer, fr *fitReport) {
 	r := fr.res
-	fmt.Fprintf(w, "fit of %s to %s: %d points, %d measured values, %d free keys; %d shots, %d starts (best: %d)\n",
-		fr.design, fr.file, len(fr.data.Points), r.Values, len(r.Params), r.Runs, len(r.Starts), r.Best+1)
+	fmt.Fprintf(w, "fit of %s to %s: %s, %s, %s; %s, %s (best: %d)\n", fr.design, fr.file,
+		count(len(fr.data.Points), "point"), count(r.Values, "measured value"), count(len(r.Params), "free key"),
+		count(int(r.Runs), "shot"), count(len(r.Starts), "start"), r.Best+1)
 	tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
 	fmt.Fprintln(tw, "\nkey\tdesign\tfitted\t95 % interval\tbounds")
 	for _, p := range r.Params {
@@ -305,9 +306,9 @@ func printFit(w io.Writer, fr *fitReport) {
 	tw.Flush()
 	switch {
 	case !r.ScatterEstimated:
-		fmt.Fprintf(w, "χ² = %.3g for %d degrees of freedom (uncertainties from the file)\n", r.ChiSquare, r.DOF)
+		fmt.Fprintf(w, "χ² = %.3g for %d degree%s of freedom (uncertainties from the file)\n", r.ChiSquare, r.DOF, map[bool]string{true: "", false: "s"}[r.DOF == 1])
 	case r.DOF > 0:
-		fmt.Fprintf(w, "no uncertainties in the file: scatter of model/measured estimated from the residuals, %.2g %% (%d degrees of freedom)\n", 100*r.RelScatter, r.DOF)
+		fmt.Fprintf(w, "no uncertainties in the file: scatter of model/measured estimated from the residuals, %.2g %% (%s)\n", 100*r.RelScatter, fmt.Sprintf("%d degree%s of freedom", r.DOF, map[bool]string{true: "", false: "s"}[r.DOF == 1]))
 	default:
 		fmt.Fprintln(w, "no uncertainties in the file and no measured value to spare (as many values as determined keys): no interval can be given; add <quantity>_uncertainty columns or more points")
 	}
@@ -322,6 +323,14 @@ func printFit(w io.Writer, fr *fitReport) {
 	if c := caution(stored, pulse); c != "" {
 		fmt.Fprintln(w, "\n"+c)
 	}
+}
+
+// count writes n things: "1 start", "3 starts".
+func count(n int, thing string) string {
+	if n == 1 {
+		return "1 " + thing
+	}
+	return fmt.Sprintf("%d %ss", n, thing)
 }
 
 // nullable is x, or nil (JSON null) when it is NaN or infinite.

@@ -12,6 +12,7 @@ import (
 	"gonum.org/v1/gonum/floats/scalar"
 
 	"n2pulse/kinetics/design"
+	"n2pulse/kinetics/fit/measured"
 	"n2pulse/kinetics/study"
 )
 
@@ -178,5 +179,29 @@ func TestFitNoScatter(t *testing.T) {
 	}
 	if p := got.Params[0]; p.Determined || p.Low != nil || !strings.Contains(p.Why, "no interval") || got.Residuals[0].Normalised != nil || got.Scatter != nil {
 		t.Errorf("got %+v", got)
+	}
+}
+
+// TestFitExamples: the measured files the README runs parse, with the points it describes.
+func TestFitExamples(t *testing.T) {
+	t.Parallel()
+	for file, want := range map[string]struct {
+		points, values int
+		uncertain      bool
+	}{
+		"../../examples/fit/demo-tea-transfer.csv":      {6, 9, true},
+		"../../examples/fit/tea-transfer-88mm-gaps.csv": {2, 2, false},
+	} {
+		s, err := measured.ReadFile(file)
+		if err != nil {
+			t.Fatal(err)
+		}
+		n := 0
+		for _, p := range s.Points {
+			n += len(p.Values)
+		}
+		if len(s.Points) != want.points || n != want.values || s.Uncertain != want.uncertain {
+			t.Errorf("%s: %d points, %d values, uncertain %v; want %+v", file, len(s.Points), n, s.Uncertain, want)
+		}
 	}
 }
