@@ -10,6 +10,7 @@ import (
 	"html/template"
 	"os"
 	"strings"
+	"sync"
 
 	"n2pulse/internal/atomicfile"
 )
@@ -119,7 +120,7 @@ func HTML(p Page) ([]byte, error) {
 		data.Secs = append(data.Secs, sc)
 	}
 	var b bytes.Buffer
-	if err := page.Execute(&b, data); err != nil {
+	if err := page().Execute(&b, data); err != nil {
 		return nil, fmt.Errorf("report: %w", err)
 	}
 	return b.Bytes(), nil
@@ -137,7 +138,13 @@ func Write(path string, p Page) error {
 	return nil
 }
 
-var page = template.Must(template.New("report").Parse(`<!DOCTYPE html>
+// page is the page's template, parsed at its first use rather than at start-up: most runs of
+// the program write no report.
+var page = sync.OnceValue(func() *template.Template {
+	return template.Must(template.New("report").Parse(pageText))
+})
+
+const pageText = `<!DOCTYPE html>
 <html lang="en">
 <head>
 <meta charset="utf-8">
@@ -185,4 +192,4 @@ figcaption { color: #444; font-size: 0.95em; }
 {{end}}
 </body>
 </html>
-`))
+`

@@ -212,7 +212,19 @@ func boundValue(key, text string) (float64, error) {
 func unitOf(key string) string { u, _ := design.KeyUnit(key); return u }
 
 // freeLabel is the label of a free key, shown in the unit its bounds were written in.
-func (fr *fitReport) freeLabel(key string) plots.Label { return keyLabel(key).Typed(fr.typed[key]) }
+func (fr *fitReport) freeLabel(key string) plots.Label {
+	return keyLabel(key).Typed(micro(fr.typed[key]))
+}
+
+// micro writes the ASCII micro prefix of a typed unit as µ for display: "uJ" → "µJ".
+func micro(unit string) string {
+	if len(unit) > 1 && unit[0] == 'u' {
+		if _, _, err := units.ParseUnit(unit[1:]); err == nil {
+			return "µ" + unit[1:]
+		}
+	}
+	return unit
+}
 
 // quantityLabel is the label of a measured quantity in the unit of the file's header.
 func (fr *fitReport) quantityLabel(q string) plots.Label {
@@ -221,7 +233,7 @@ func (fr *fitReport) quantityLabel(q string) plots.Label {
 	l.Text = mq.Words
 	for _, c := range fr.data.Quantities {
 		if c.Name == q {
-			return l.Typed(c.Unit)
+			return l.Typed(micro(c.Unit))
 		}
 	}
 	return l
@@ -469,7 +481,7 @@ func fitFigure(fr *fitReport, q string) plots.FitFigure {
 	xl := keyLabel(key)
 	for _, c := range fr.data.Keys {
 		if c.Name == key {
-			xl = xl.Typed(c.Unit)
+			xl = xl.Typed(micro(c.Unit))
 		}
 	}
 	yl := fr.quantityLabel(q)

@@ -10,6 +10,7 @@ import (
 	"os"
 	"path/filepath"
 	"regexp"
+	"sync"
 )
 
 // WriteFile writes b to path atomically with permissions 0644.
@@ -50,8 +51,8 @@ func WriteTo(path string, w io.WriterTo) error {
 }
 
 // tempPattern is the name CreateTemp gives WriteFile's temporary files: "." + the target's
-// name + ".tmp" + digits.
-var tempPattern = regexp.MustCompile(`^\..+\.tmp[0-9]+$`)
+// name + ".tmp" + digits. It is compiled at its first use, not at every start of the program.
+var tempPattern = sync.OnceValue(func() *regexp.Regexp { return regexp.MustCompile(`^\..+\.tmp[0-9]+$`) })
 
 // RemoveLeftovers deletes the temporary files that a WriteFile killed before its rename left
 // in dir, and returns how many it removed. Call it when a program starts writing into a
@@ -64,7 +65,7 @@ func RemoveLeftovers(dir string) (int, error) {
 	}
 	n := 0
 	for _, e := range entries {
-		if e.Type().IsRegular() && tempPattern.MatchString(e.Name()) {
+		if e.Type().IsRegular() && tempPattern().MatchString(e.Name()) {
 			if err := os.Remove(filepath.Join(dir, e.Name())); err != nil {
 				return n, fmt.Errorf("cleaning %s: %w", dir, err)
 			}

@@ -52,16 +52,8 @@ func Mixture(nitrogen, oxygen, helium float64) ([]Component, error) {
 // SetMixture returns the built-in components of the named cross-section set for the given mole
 // fractions (zero fractions are left out).
 func SetMixture(set string, nitrogen, oxygen, helium float64) ([]Component, error) {
-	for _, f := range []struct {
-		name string
-		x    float64
-	}{{"nitrogen", nitrogen}, {"oxygen", oxygen}, {"helium", helium}} {
-		if !(f.x >= 0 && f.x <= 1) {
-			return nil, fmt.Errorf("swarm: %s fraction %g: allowed 0–1", f.name, f.x)
-		}
-	}
-	if s := nitrogen + oxygen + helium; math.Abs(s-1) > 1e-3 {
-		return nil, fmt.Errorf("swarm: fractions nitrogen %g + oxygen %g + helium %g = %g, want 1 (within 1e-3)", nitrogen, oxygen, helium, s)
+	if err := checkFractions(nitrogen, oxygen, helium); err != nil {
+		return nil, err
 	}
 	var mix []Component
 	for _, c := range []struct {
@@ -78,6 +70,22 @@ func SetMixture(set string, nitrogen, oxygen, helium float64) ([]Component, erro
 		mix = append(mix, Component{Species: sp, Fraction: c.x})
 	}
 	return mix, nil
+}
+
+// checkFractions checks mole fractions of N₂, O₂ and He: each in 0–1, their sum 1 within 1e-3.
+func checkFractions(nitrogen, oxygen, helium float64) error {
+	for _, f := range []struct {
+		name string
+		x    float64
+	}{{"nitrogen", nitrogen}, {"oxygen", oxygen}, {"helium", helium}} {
+		if !(f.x >= 0 && f.x <= 1) {
+			return fmt.Errorf("swarm: %s fraction %g: allowed 0–1", f.name, f.x)
+		}
+	}
+	if s := nitrogen + oxygen + helium; math.Abs(s-1) > 1e-3 {
+		return fmt.Errorf("swarm: fractions nitrogen %g + oxygen %g + helium %g = %g, want 1 (within 1e-3)", nitrogen, oxygen, helium, s)
+	}
+	return nil
 }
 
 // Extra columns written after Columns and OptionalColumns by WriteResultsCSV.
@@ -313,8 +321,8 @@ func ForMixtureSet(set string, nitrogen, oxygen, helium float64, cacheDir string
 	if err != nil {
 		return nil, err
 	}
-	mix, err := SetMixture(set, nitrogen, oxygen, helium)
-	if err != nil {
+	// The shipped tables need no cross sections: those are read only for a mixture to solve.
+	if err := checkFractions(nitrogen, oxygen, helium); err != nil {
 		return nil, err
 	}
 	near := func(a, b float64) bool { return math.Abs(a-b) <= 1e-3 }
@@ -323,6 +331,10 @@ func ForMixtureSet(set string, nitrogen, oxygen, helium float64, cacheDir string
 	}
 	if near(nitrogen, AirNitrogen) && near(oxygen, AirOxygen) && near(helium, 0) {
 		return BuiltinSet("air", set)
+	}
+	mix, err := SetMixture(set, nitrogen, oxygen, helium)
+	if err != nil {
+		return nil, err
 	}
 	xs, err := crossSectionHash(set)
 	if err != nil {
