@@ -173,4 +173,10 @@ type RunSettings struct {
 	// Light drops the waveforms and gain map from the Result and keeps only the Summary,
 	// for sweeps.
 	Light bool
+	// SummaryOnly drops the waveforms and gain map from the Result as Light does, but takes
+	// the shot as a full run does (Light stops the optics for good once the channel is
+	// dark): the Summary, warnings and statistics are those of a full run bit for bit, and
+	// so is the memory a run may take (MemoryLimit is checked as for a full run). For
+	// callers that print only the figures of merit.
+	SummaryOnly bool
 }

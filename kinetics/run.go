@@ -96,7 +96,7 @@ func Run(d *design.Design, s *RunSettings) (*Result, error) {
 		res.Summary.UniformGlow = false
 		res.Summary.Verdict += "; " + note
 	}
-	if s.Light {
+	if s.Light || s.SummaryOnly {
 		res.dropSeries()
 	}
 	return res, nil
@@ -175,7 +175,8 @@ func dischargeSummary(s *Summary, wf *waveforms) {
 	}
 }
 
-// dropSeries removes the waveforms and the gain map, keeping the summary (RunSettings.Light).
+// dropSeries removes the waveforms and the gain map, keeping the summary (RunSettings.Light,
+// RunSettings.SummaryOnly).
 func (r *Result) dropSeries() {
 	r.Time, r.ChannelVoltage, r.Current, r.ReducedField = nil, nil, nil, nil
 	r.ElectronDensity, r.UpperLevel, r.LowerLevel = nil, nil, nil

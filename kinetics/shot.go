@@ -17,6 +17,8 @@ type shot struct {
 	steps int
 	med   *medium
 	light bool
+	// series: the Result gets the waveforms and the gain map (neither Light nor SummaryOnly).
+	series bool
 	// detector is the time constant of the detector for the FWHM [s]; 0 for an ideal one.
 	detector float64
 	cols     int
@@ -44,6 +46,7 @@ func newShot(d *design.Design, p *Parameters, wf *waveforms, steps int, s *RunSe
 	spontPerC := p.EinsteinA00 * omega / (4 * math.Pi)
 	sh := &shot{
 		d: d, p: p, wf: wf, steps: steps, light: s.Light, detector: s.DetectorResponse,
+		series: !s.Light && !s.SummaryOnly,
 		med: newMedium(n, p.CellLength, p.TimeStep, p.CrossSection, p.DegeneracyRatio,
 			spontPerC, d.Optics.Loss, d.Optics.RearReflectivity, d.Optics.FrontReflectivity),
 		delayWhole: make([]int, n), delayFrac: make([]float64, n),
@@ -93,14 +96,14 @@ func sample(x []float64, k, whole int, frac float64) float64 {
 // channel is dark for good; it records the waveforms and the gain map into res.
 func (sh *shot) run(res *Result) {
 	n, p := sh.d.Numerics.Cells, sh.p
-	if !sh.light {
+	if sh.series {
 		res.Z = make([]float64, n)
 		for i := range res.Z {
 			res.Z[i] = (float64(i) + 0.5) * p.CellLength
 		}
 	}
 	colEvery := max(1, (sh.steps+sh.cols-1)/sh.cols)
-	if !sh.light {
+	if sh.series {
 		// One column every colEvery steps: each row's length is known now.
 		cols := (sh.steps + colEvery - 1) / colEvery
 		res.Gain = make([][]float64, n)
@@ -280,7 +283,7 @@ func (sh *shot) dark(rest *pumpAhead, k int, maxInv float64) bool {
 }
 
 // record keeps step k of the channel-mean gain, the populations of the middle cell, the peak
-// gain and, every colEvery steps unless light, a column of the gain map.
+// gain and, every colEvery steps when the Result takes the series, a column of the gain map.
 func (sh *shot) record(res *Result, k int, sum float64, lit bool, colEvery int) {
 	n, m, p := sh.d.Numerics.Cells, sh.med, sh.p
 	g := p.CrossSection * sum / float64(n)
@@ -295,7 +298,7 @@ func (sh *shot) record(res *Result, k int, sum float64, lit bool, colEvery int) 
 		sh.peakGain = gm
 	}
 	sh.peakGainLength = max(sh.peakGainLength, g*sh.d.Channel.Length)
-	if !sh.light && k%colEvery == 0 {
+	if sh.series && k%colEvery == 0 {
 		res.GainTime = append(res.GainTime, (float64(k)+1)*p.TimeStep)
 		for i := 0; i < n; i++ {
 			j := i
@@ -354,7 +357,8 @@ func (sh *shot) pumpOnly(ps *pumpStep, k int, eC, wC []float64, lit bool) {
 	sh.med.pump(ps, cells, false)
 }
 
-// summarise computes the figures of merit and, unless light, fills the waveforms.
+// summarise computes the figures of merit and, when the Result takes the series, fills the
+// waveforms.
 func (sh *shot) summarise(res *Result) {
 	dt := sh.p.TimeStep
 	s := &res.Summary
@@ -405,7 +409,7 @@ func (sh *shot) summarise(res *Result) {
 	if led.spontaneous > 0 {
 		s.StimulatedRatio = led.stimulated / led.spontaneous
 	}
-	if sh.light {
+	if !sh.series {
 		return
 	}
 	res.Time = make([]float64, sh.steps)

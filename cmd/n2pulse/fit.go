@@ -358,7 +358,7 @@ func fitJSON(fr *fitReport) map[string]any {
 	r := fr.res
 	var params []map[string]any
 	for _, p := range r.Params {
-		m := map[string]any{"key": p.Key, "start": p.Start, "lower_bound": p.Lo, "upper_bound": p.Hi,
+		m := map[string]any{"key": p.Key, "start": nullable(p.Start), "lower_bound": p.Lo, "upper_bound": p.Hi,
 			"value": p.Value, "determined": p.Determined, "at_bound": p.AtBound,
 			"sd_ln": nullable(p.SDLog), "ci95_low": nil, "ci95_high": nil}
 		if p.Determined {
@@ -392,6 +392,10 @@ func fitJSON(fr *fitReport) map[string]any {
 		}
 		starts = append(starts, m)
 	}
+	files := fr.files
+	if files == nil {
+		files = []string{}
+	}
 	undetermined := r.Undetermined()
 	if undetermined == nil {
 		undetermined = []string{}
@@ -401,7 +405,7 @@ func fitJSON(fr *fitReport) map[string]any {
 		"params": params, "undetermined": undetermined, "correlation": corr, "residuals": resid,
 		"chi_square": r.ChiSquare, "degrees_of_freedom": r.DOF, "scatter_estimated": r.ScatterEstimated,
 		"relative_scatter": nullable(r.RelScatter), "singular_values": r.Singular, "starts": starts,
-		"best_start": r.Best + 1, "several_optima": r.SeveralOptima, "shots": r.Runs, "files": fr.files,
+		"best_start": r.Best + 1, "several_optima": r.SeveralOptima, "shots": r.Runs, "files": files,
 	}
 }
 
@@ -452,15 +456,6 @@ func writeFitFiles(dir string, fr *fitReport) ([]string, error) {
 	if err := write("residuals.csv", csv.Bytes()); err != nil {
 		return nil, err
 	}
-	fr.files = append(files, filepath.Join(dir, "fit.json")) // listed in its own content
-	js, err := json.MarshalIndent(fitJSON(fr), "", "  ")
-	if err != nil {
-		return nil, fmt.Errorf("fit: %w", err)
-	}
-	fr.files = nil
-	if err := write("fit.json", append(js, '\n')); err != nil {
-		return nil, err
-	}
 	for _, q := range fr.data.Quantities {
 		if len(fr.curves) == 0 {
 			break
@@ -470,6 +465,15 @@ func writeFitFiles(dir string, fr *fitReport) ([]string, error) {
 			return nil, err
 		}
 		files = append(files, path)
+	}
+	fr.files = append(files, filepath.Join(dir, "fit.json")) // listed in its own content
+	js, err := json.MarshalIndent(fitJSON(fr), "", "  ")
+	fr.files = nil
+	if err != nil {
+		return nil, fmt.Errorf("fit: %w", err)
+	}
+	if err := write("fit.json", append(js, '\n')); err != nil {
+		return nil, err
 	}
 	return files, nil
 }

@@ -103,7 +103,9 @@ func runRun(args []string, stdout, stderr io.Writer) error {
 	if err != nil {
 		return err
 	}
-	rs := &kinetics.RunSettings{}
+	// Without --out nothing draws the waveforms or the gain map: the run keeps only what the
+	// summary needs (the same summary, less memory to fill).
+	rs := &kinetics.RunSettings{SummaryOnly: *out == ""}
 	if *memLimit != "" {
 		b, err := sysmem.ParseBytes(*memLimit)
 		if err != nil {
