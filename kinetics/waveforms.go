@@ -72,6 +72,11 @@ func solveCircuit(c *circuit, d *design.Design, par *Parameters, steps int, seri
 	man := newManifold(d.Levels, d.Gas, c.density, dt)
 	v1 := newUpperV1(d.Levels, d.Gas, c.density, par.UpperLifetime, dt)
 	shareC1 := par.UpperShare1 * nX
+	shadow := &upperShadow{dt: dt}
+	// C(0) → B: quenching by N₂ and spontaneous emission into B(v>0); C(v=1) → B: quenching
+	// by N₂ and all of its spontaneous emission [s⁻¹].
+	toB := nX*d.Levels.UpperQuenchingNitrogen + (1/par.UpperLifetime - par.EinsteinA00)
+	toBv1 := nX*d.Levels.UpperV1QuenchingNitrogen + 1/par.UpperLifetime
 	eScale := d.Levels.UpperElectronScale
 	y := make([]float64, nState)
 	k := 0
@@ -98,15 +103,20 @@ func solveCircuit(c *circuit, d *design.Design, par *Parameters, steps int, seri
 				w.current[k], w.field[k] = y[iIc], field
 			}
 			w.density[k] = ne
+			var sup float64 // the electrons' superelastic C(0) → B rate [s⁻¹]
 			if eScale > 0 {
-				sup, ion := upperElectronRates(mean, par.UpperLifetime, par.PhotonEnergy, par.UpperEnergy)
-				w.lossC[k] = eScale * (sup + ion) * ne
+				s, ion := upperElectronRates(mean, par.UpperLifetime, par.PhotonEnergy, par.UpperEnergy)
+				sup = eScale * s * ne
+				w.lossC[k] = eScale * (s + ion) * ne
 				// Superelastic C(0) → B(v) ends in B(0) with the (0,0) band's share of the C → B
-				// transition strength, A₀₀·τ_C; the rest lands in B(v>0) (not followed here).
-				w.mixB[k] = eScale * sup * ne * par.EinsteinA00 * par.UpperLifetime
+				// transition strength, A₀₀·τ_C; the rest lands in B(v>0), the manifold.
+				w.mixB[k] = sup * par.EinsteinA00 * par.UpperLifetime
 			}
 			w.pumpC[k] = kC*ne*shareC + v1.step(kC*ne*shareC1)
-			w.pumpB[k] = kB*ne*shareB + man.step(((1-par.LowerShare)*kB+kW+kBp)*ne*nX)
+			// What leaves C(0) and C(v=1) for the B state feeds the manifold (see upperShadow).
+			cMean := shadow.step(w.pumpC[k], par.UpperDecayRate+d.Levels.UpperElectronMixing*ne+w.lossC[k])
+			fromC := cMean*(toB+sup*(1-par.EinsteinA00*par.UpperLifetime)) + v1.r*toBv1
+			w.pumpB[k] = kB*ne*shareB + man.step(((1-par.LowerShare)*kB+kW+kBp)*ne*nX+fromC)
 			if share, ok := smp.share, smp.split; ok {
 				pw := y[iVg] * smp.current * dt
 				w.plasmaPower[k] = pw / dt

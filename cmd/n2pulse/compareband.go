@@ -9,6 +9,7 @@ import (
 
 	"n2pulse/kinetics/study"
 	"n2pulse/plots"
+	"n2pulse/report"
 )
 
 // ratioTail drops the first design's ratio band (its ratio to itself).
@@ -111,4 +112,48 @@ func bandText(b *study.Band, format func(float64) string) string {
 		return "–"
 	}
 	return format(b.P05) + " / " + format(b.P50) + " / " + format(b.P95)
+}
+
+// compareBandSection is report.html's section on a comparison with --uncertainty: the band of
+// the headline figures of each design and of each ratio to the first, the designs that may not
+// lase and the drivers of each design's energy. head is the figures-of-merit table's header.
+func compareBandSection(c *comparison, head []string) report.Section {
+	sec := report.Section{Heading: "Uncertainty bands"}
+	sec.Paragraphs = append(sec.Paragraphs, fmt.Sprintf("Every design ran over the same %d samples of the uncertain constants (Latin hypercube, seed %d). Each cell is 5 %% / median / 95 %%; a ratio's band pairs sample i of each design (the same constants in both).", c.Samples, c.Seed))
+	t := &report.Table{Head: head}
+	for _, m := range c.Metrics {
+		if !isHeadline(m.Metric) {
+			continue
+		}
+		l := plots.LabelOf(m.Metric)
+		row := []string{l.Text}
+		for _, b := range m.Bands {
+			row = append(row, bandText(b, l.Format))
+		}
+		for _, b := range ratioTail(m.RatioBands) {
+			row = append(row, bandText(b, func(v float64) string { return strconv.FormatFloat(v, 'g', 3, 64) }))
+		}
+		t.Rows = append(t.Rows, row)
+	}
+	sec.Table = t
+	for i, d := range c.Designs {
+		u := d.band
+		var drv []study.RankedDriver
+		if b, ok := u.Metric("energy_front_J"); ok {
+			for _, x := range b.Drivers {
+				drv = append(drv, study.RankedDriver{Key: x.Key, MedianRankCorrelation: x.RankCorrelation, Points: 1})
+			}
+		}
+		line := fmt.Sprintf("%d of %d samples lase; output-end energy driven most by %s", u.Lasing, u.Samples-u.Failed, driverLine(drv))
+		if u.MayNotLase() {
+			sec.Warn = true
+			line = "MAY NOT LASE, the band straddles the threshold; " + line
+		}
+		line = letter(i) + ": " + line
+		if u.Failed > 0 || u.Truncated > 0 {
+			line += fmt.Sprintf("; %d samples failed, %d truncated", u.Failed, u.Truncated)
+		}
+		sec.List = append(sec.List, line)
+	}
+	return sec
 }

@@ -6,6 +6,7 @@ import (
 	"math"
 	"os"
 	"path/filepath"
+	"strings"
 	"testing"
 
 	"gonum.org/v1/gonum/floats/scalar"
@@ -16,7 +17,8 @@ import (
 // first design to itself is exactly 1; the paired ratio band of the second is ordered and its
 // median lies between the ratio of the two medians ± 25 % (tolerance: this test's choice; the
 // pairing narrows the band, it does not move the centre far); compare.csv carries the same
-// numbers in its <name>_p05/_p50/_p95 and ratio columns, finite.
+// numbers in its <name>_p05/_p50/_p95 and ratio columns, finite; report.html has the section
+// on the bands.
 func TestCompareUncertainty(t *testing.T) {
 	t.Parallel()
 	if testing.Short() {
@@ -47,6 +49,9 @@ func TestCompareUncertainty(t *testing.T) {
 	}
 	if c.Samples != 10 || len(c.Designs) != 2 || c.Designs[1].U["energy_front_J_p50"] == nil {
 		t.Fatalf("samples %d, %d designs, second design's block %v", c.Samples, len(c.Designs), c.Designs[1].U)
+	}
+	if html := string(mustRead(t, filepath.Join(dir, "report.html"))); !strings.Contains(html, "Uncertainty bands") || !strings.Contains(html, "same 10 samples") {
+		t.Error("report.html lacks the section on the bands")
 	}
 	tab := readTable(t, mustRead(t, filepath.Join(dir, "compare.csv")))
 	for _, m := range c.Metrics {

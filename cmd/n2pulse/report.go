@@ -324,7 +324,11 @@ func writeCompareReport(dir string, c *comparison) error {
 	p.Sections = append(p.Sections,
 		report.Section{Heading: "Designs and verdicts", List: who},
 		report.Section{Heading: "Keys that differ", Table: keys},
-		report.Section{Heading: "Figures of merit", Table: merit},
+		report.Section{Heading: "Figures of merit", Table: merit})
+	if c.Samples > 0 {
+		p.Sections = append(p.Sections, compareBandSection(c, head))
+	}
+	p.Sections = append(p.Sections,
 		warningSection(warns),
 		report.Section{Heading: "Pulses", Figures: []report.Figure{fig}},
 		validationSection())

@@ -257,3 +257,35 @@ func TestCoverage(t *testing.T) {
 	}
 	t.Logf("coverage: %d and %d of %d", inside[0], inside[1], draws)
 }
+
+// TestSeveralOptima: a stand-in whose energy depends on the width only through
+// (ln(w/2 mm))² fits the data equally well at 2 mm·e^(±0.5); starts on both sides must find
+// both and say so.
+func TestSeveralOptima(t *testing.T) {
+	t.Parallel()
+	twoWays := func(d *design.Design) (kinetics.Summary, error) {
+		x := math.Log(d.Channel.Width / 2e-3)
+		return kinetics.Summary{EnergyFront: d.Channel.Gap * 0.1 * math.Exp(-x*x)}, nil
+	}
+	var b strings.Builder
+	b.WriteString("channel.gap [mm], energy_front [J], energy_front_uncertainty [%]\n")
+	for _, g := range []float64{1e-3, 2e-3, 3e-3} {
+		b.WriteString(ftoa(g*1e3) + "," + ftoa(g*0.1*math.Exp(-0.25)) + ",5\n")
+	}
+	data, err := measured.Parse([]byte(b.String()), "two.csv")
+	if err != nil {
+		t.Fatal(err)
+	}
+	res, err := Fit(context.Background(), testDesign(t), data, []Free{{"channel.width", 0.5e-3, 5e-3}}, &Settings{Run: twoWays, Starts: 4})
+	if err != nil {
+		t.Fatal(err)
+	}
+	var low, high bool
+	for _, s := range res.Starts {
+		low = low || scalar.EqualWithinAbsOrRel(s.Values[0], 2e-3*math.Exp(-0.5), 0, 1e-3)
+		high = high || scalar.EqualWithinAbsOrRel(s.Values[0], 2e-3*math.Exp(0.5), 0, 1e-3)
+	}
+	if !low || !high || !res.SeveralOptima {
+		t.Errorf("starts ended at %+v; several optima %v; want both 1.21 mm and 3.30 mm, flagged", res.Starts, res.SeveralOptima)
+	}
+}
