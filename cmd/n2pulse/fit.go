@@ -14,6 +14,7 @@ import (
 	"text/tabwriter"
 
 	"n2pulse/internal/atomicfile"
+	"n2pulse/internal/usermsg"
 	"n2pulse/kinetics/design"
 	"n2pulse/kinetics/fit"
 	"n2pulse/kinetics/fit/measured"
@@ -95,6 +96,15 @@ func runFit(args []string, stdout, stderr io.Writer) error {
 		return err
 	}
 	settings := &fit.Settings{Starts: *starts, Seed: *seed, Workers: *workers, Run: runner}
+	if !*asJSON {
+		settings.Progress = func(i int, s fit.Start) {
+			if s.Err != "" {
+				fmt.Fprintf(stderr, "  start %d of %d failed: %s\n", i, *starts, usermsgText(s.Err))
+				return
+			}
+			fmt.Fprintf(stderr, "  start %d of %d: χ² %.4g after %s\n", i, *starts, s.ChiSquare, count(s.Iterations, "iteration"))
+		}
+	}
 	res, err := fit.Fit(ctx, d, data, free, settings)
 	if err != nil {
 		return err
@@ -336,6 +346,9 @@ func printFit(w io.Writer, fr *fitReport) {
 		fmt.Fprintln(w, "\n"+c)
 	}
 }
+
+// usermsgText is an error text without the library's package prefixes.
+func usermsgText(s string) string { return usermsg.Strip(s) }
 
 // count writes n things: "1 start", "3 starts".
 func count(n int, thing string) string {

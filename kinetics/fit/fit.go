@@ -35,6 +35,8 @@ type Settings struct {
 	Step          float64      // finite-difference step in ln x (default 0.01)
 	MaxIterations int          // Newton iterations per start (default 30)
 	MaxSpread     float64      // a 95 % interval wider than this factor is not a determination (default 10)
+	// Progress, when set, is called after each start with its number (from 1) and outcome.
+	Progress func(start int, s Start)
 }
 
 // Limits of a fit's size: the cost of a fit grows with points × free keys × iterations.
@@ -162,6 +164,9 @@ func Fit(ctx context.Context, base *design.Design, data *measured.Set, free []Fr
 	for i, u0 := range starts {
 		st := p.minimise(u0, set.MaxIterations)
 		res.Starts = append(res.Starts, st)
+		if set.Progress != nil {
+			set.Progress(i+1, st)
+		}
 		if st.Err == "" && (best < 0 || st.ChiSquare < res.Starts[best].ChiSquare) {
 			best = i
 		}
