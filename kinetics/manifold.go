@@ -12,7 +12,8 @@ import (
 //
 // The manifold of N₂ as one reservoir R [m⁻³]. Electrons
 // excite it far more than B(0) directly (X → B(v>0) takes 1 − f_B of the B excitation, and W
-// and B′ come on top); collisions relax it. A share η of its relaxation by N₂ ends in B(0)
+// and B′ come on top), and C(0) and C(v=1) feed it as they decay into the B state (see
+// upperShadow); collisions relax it. A share η of its relaxation by N₂ ends in B(0)
 // (vibrational relaxation down the B ladder and W ⇄ B transfer), the rest (transfer to A³Σu⁺,
 // and every removal by O₂ and radiation) leaves the laser levels:
 //
@@ -62,4 +63,26 @@ func (m *reservoir) step(p float64) float64 {
 	m.given += m.into * mean * m.dt
 	m.lost += (m.decay - m.into) * mean * m.dt
 	return m.into * mean
+}
+
+// upperShadow is the population of C(0) [m⁻³] that the pump and the collisional and radiative
+// losses alone would leave, without stimulated emission: what a cell of a simultaneous
+// discharge holds until the light comes. Its flow into the B state feeds the manifold:
+// N₂(C) + N₂ → N₂(B) + N₂ (J. Appl. Phys. 125, 243301 (2019), Table I, R26), the spontaneous
+// C(0) → B(v>0) bands, and the electrons' superelastic C(0) → B(v>0) part. Taking it without
+// the light overstates that flow once the pulse extracts C(0); the molecules the light takes
+// go into B(0) directly and outnumber it there.
+type upperShadow struct {
+	dt, c float64 // step [s], population [m⁻³]
+}
+
+// step advances the population over one step with pump p [m⁻³ s⁻¹] and total loss rate
+// gamma [s⁻¹] held constant, and returns its mean over the step [m⁻³].
+func (u *upperShadow) step(p, gamma float64) float64 {
+	em1 := math.Expm1(-gamma * u.dt)
+	w := -em1 / gamma
+	eq := p / gamma
+	mean := eq + (u.c-eq)*w/u.dt
+	u.c = u.c*(1+em1) + p*w
+	return mean
 }

@@ -111,3 +111,26 @@ func TestManifoldConservation(t *testing.T) {
 		t.Errorf("leaving C(v=1) out raised the pulse energy: %g → %g J", base.Summary.EnergyTotal, off.Summary.EnergyTotal)
 	}
 }
+
+// TestUpperShadowExact: from C = 0 with a constant pump p and loss Γ, C(t) = (p/Γ)(1 − e^(−Γt))
+// and ∫C dt = (p/Γ)(t − (1 − e^(−Γt))/Γ) (hand integration); the steps and the sum of their
+// means reproduce both to 1e-12.
+func TestUpperShadowExact(t *testing.T) {
+	t.Parallel()
+	const p, gamma, dt = 1e32, 2.7e8, 3e-12
+	u := &upperShadow{dt: dt}
+	steps := 4000
+	integral := 0.0
+	for range steps {
+		integral += u.step(p, gamma) * dt
+	}
+	tEnd := float64(steps) * dt
+	wantC := p / gamma * -math.Expm1(-gamma*tEnd)
+	wantI := p / gamma * (tEnd + math.Expm1(-gamma*tEnd)/gamma)
+	if !scalar.EqualWithinAbsOrRel(u.c, wantC, 0, 1e-12) {
+		t.Errorf("C = %.12g m⁻³, want %.12g", u.c, wantC)
+	}
+	if !scalar.EqualWithinAbsOrRel(integral, wantI, 0, 1e-12) {
+		t.Errorf("∫C dt = %.12g m⁻³ s, want %.12g", integral, wantI)
+	}
+}

@@ -13,7 +13,7 @@ import (
 // waveforms are the circuit and discharge quantities sampled at the middle of every optical
 // step, (k+½)·Δt.
 type waveforms struct {
-	voltage, current, field, density []float64                  // V_ch [V], channel current [A], E/N [V m²], n_e [m⁻³]
+	voltage, current, field, density []float64                  // V_ch [V], channel current [A], E/N [V m²], n_e [m⁻³]; current and field nil unless the run keeps its series
 	pumpC, pumpB                     []float64                  // excitation rates into C(0) and B(0) [m⁻³ s⁻¹]
 	lossC                            []float64                  // loss rate of C(0) by electron collisions (Born–Bethe and Lotz estimate) [s⁻¹]
 	mixB                             []float64                  // the part of lossC that lands in B(0): superelastic C(0) → B(0) [s⁻¹]
@@ -31,7 +31,9 @@ type waveforms struct {
 }
 
 // solveCircuit integrates the circuit and discharge from closure to steps·dt and samples them.
-func solveCircuit(c *circuit, d *design.Design, par *Parameters, steps int) (*waveforms, Stats, error) {
+// The channel current and E/N are kept as series only when series (for the Result's
+// waveforms); their peaks are taken either way.
+func solveCircuit(c *circuit, d *design.Design, par *Parameters, steps int, series bool) (*waveforms, Stats, error) {
 	dt := par.TimeStep
 	y0, stored := c.initial(d.Circuit.ChargeVoltage, d.Discharge.SeedDensity)
 	v0 := d.Circuit.ChargeVoltage
@@ -56,11 +58,13 @@ func solveCircuit(c *circuit, d *design.Design, par *Parameters, steps int) (*wa
 		return nil, Stats{}, fmt.Errorf("kinetics: circuit: %w", err)
 	}
 	w := &waveforms{
-		voltage: make([]float64, steps), current: make([]float64, steps),
-		field: make([]float64, steps), density: make([]float64, steps),
+		voltage: make([]float64, steps), density: make([]float64, steps),
 		pumpC: make([]float64, steps), pumpB: make([]float64, steps),
 		plasmaPower: make([]float64, steps), lossC: make([]float64, steps), mixB: make([]float64, steps),
 		stored: stored,
+	}
+	if series {
+		w.current, w.field = make([]float64, steps), make([]float64, steps)
 	}
 	_, hi := c.table.Range()
 	nX := c.density * d.Gas.Nitrogen
@@ -68,6 +72,11 @@ func solveCircuit(c *circuit, d *design.Design, par *Parameters, steps int) (*wa
 	man := newManifold(d.Levels, d.Gas, c.density, dt)
 	v1 := newUpperV1(d.Levels, d.Gas, c.density, par.UpperLifetime, dt)
 	shareC1 := par.UpperShare1 * nX
+	shadow := &upperShadow{dt: dt}
+	// C(0) → B: quenching by N₂ and spontaneous emission into B(v>0); C(v=1) → B: quenching
+	// by N₂ and all of its spontaneous emission [s⁻¹].
+	toB := nX*d.Levels.UpperQuenchingNitrogen + (1/par.UpperLifetime - par.EinsteinA00)
+	toBv1 := nX*d.Levels.UpperV1QuenchingNitrogen + 1/par.UpperLifetime
 	eScale := d.Levels.UpperElectronScale
 	y := make([]float64, nState)
 	k := 0
@@ -88,19 +97,26 @@ func solveCircuit(c *circuit, d *design.Design, par *Parameters, steps int) (*wa
 			ne := math.Exp(y[iLnNe])
 			smp := c.sample(y[iVg], ne)
 			kB, kC, kW, kBp, mean := smp.kB, smp.kC, smp.kW, smp.kBp, smp.mean
+			field := c.reducedField(y[iVg])
 			w.voltage[k] = y[iVg]
-			w.current[k] = y[iIc]
-			w.field[k] = c.reducedField(y[iVg])
+			if series {
+				w.current[k], w.field[k] = y[iIc], field
+			}
 			w.density[k] = ne
+			var sup float64 // the electrons' superelastic C(0) → B rate [s⁻¹]
 			if eScale > 0 {
-				sup, ion := upperElectronRates(mean, par.UpperLifetime, par.PhotonEnergy, par.UpperEnergy)
-				w.lossC[k] = eScale * (sup + ion) * ne
+				s, ion := upperElectronRates(mean, par.UpperLifetime, par.PhotonEnergy, par.UpperEnergy)
+				sup = eScale * s * ne
+				w.lossC[k] = eScale * (s + ion) * ne
 				// Superelastic C(0) → B(v) ends in B(0) with the (0,0) band's share of the C → B
-				// transition strength, A₀₀·τ_C; the rest lands in B(v>0) (not followed here).
-				w.mixB[k] = eScale * sup * ne * par.EinsteinA00 * par.UpperLifetime
+				// transition strength, A₀₀·τ_C; the rest lands in B(v>0), the manifold.
+				w.mixB[k] = sup * par.EinsteinA00 * par.UpperLifetime
 			}
 			w.pumpC[k] = kC*ne*shareC + v1.step(kC*ne*shareC1)
-			w.pumpB[k] = kB*ne*shareB + man.step(((1-par.LowerShare)*kB+kW+kBp)*ne*nX)
+			// What leaves C(0) and C(v=1) for the B state feeds the manifold (see upperShadow).
+			cMean := shadow.step(w.pumpC[k], par.UpperDecayRate+d.Levels.UpperElectronMixing*ne+w.lossC[k])
+			fromC := cMean*(toB+sup*(1-par.EinsteinA00*par.UpperLifetime)) + v1.r*toBv1
+			w.pumpB[k] = kB*ne*shareB + man.step(((1-par.LowerShare)*kB+kW+kBp)*ne*nX+fromC)
 			if share, ok := smp.share, smp.split; ok {
 				pw := y[iVg] * smp.current * dt
 				w.plasmaPower[k] = pw / dt
@@ -110,10 +126,10 @@ func solveCircuit(c *circuit, d *design.Design, par *Parameters, steps int) (*wa
 					w.plasmaSplit[j] += f * pw
 				}
 			}
-			w.peakField = math.Max(w.peakField, w.field[k])
+			w.peakField = math.Max(w.peakField, field)
 			w.peakCurrent = math.Max(w.peakCurrent, math.Abs(y[iIc]))
 			w.peakDensity = math.Max(w.peakDensity, ne)
-			if w.field[k] > hi {
+			if field > hi {
 				w.fieldAbove = true
 			}
 		}
