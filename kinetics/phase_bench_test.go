@@ -40,7 +40,7 @@ func BenchmarkCircuit(b *testing.B) {
 	b.ResetTimer()
 	accepted := 0
 	for i := 0; i < b.N; i++ {
-		_, st, err := solveCircuit(circ, d, par, steps)
+		_, st, err := solveCircuit(circ, d, par, steps, true)
 		if err != nil {
 			b.Fatal(err)
 		}
@@ -53,7 +53,7 @@ func BenchmarkCircuit(b *testing.B) {
 // cells), on waveforms solved once, and reports the optical cell updates per second.
 func BenchmarkOptics(b *testing.B) {
 	d, circ, par, steps := phaseSetup(b)
-	wf, _, err := solveCircuit(circ, d, par, steps)
+	wf, _, err := solveCircuit(circ, d, par, steps, true)
 	if err != nil {
 		b.Fatal(err)
 	}

@@ -138,7 +138,7 @@ func followPulse(d *design.Design, table *swarm.Table, par *Parameters, s *RunSe
 		steps := int(math.Ceil(end / par.TimeStep))
 		circ := newCircuit(d, table)
 		par.GapCapacitance = circ.cg
-		wf, stats, err := solveCircuit(circ, d, par, steps)
+		wf, stats, err := solveCircuit(circ, d, par, steps, !s.Light && !s.SummaryOnly)
 		if err != nil {
 			return nil, nil, nil, nil, 0, err
 		}

@@ -38,6 +38,9 @@ type shot struct {
 	uniform  bool    // a simultaneous discharge: every cell has the same pump
 	pumpPeak float64 // highest C pump rate at mid-channel [m⁻³ s⁻¹]
 	lit      int     // optical steps propagated (between dawn and dark)
+	// spare holds the arrays of pumpToCome (steps+1 values each), dead once run is done;
+	// summarise reuses them as scratch (shot.scratch) rather than allocate more.
+	spare [2][]float64
 }
 
 func newShot(d *design.Design, p *Parameters, wf *waveforms, steps int, s *RunSettings) *shot {
@@ -144,23 +147,33 @@ func (sh *shot) run(res *Result) {
 		sh.record(res, k, sum, lit, colEvery)
 	}
 	res.Stats.OpticalSteps = sh.lit
+	sh.spare = [2][]float64{rest.inv, rest.upper}
 	res.Stats.Cells = n
 }
 
 // upperDecay returns the decay factor e^(−Γ_C Δt) and the pump weight (1 − e^(−Γ_C Δt))/Γ_C of
-// C(0) for every step: they depend on time only through n_e (electron mixing).
+// C(0) for every step, for the cells of a travelling excitation, which read them at their own
+// delays; a simultaneous discharge takes each step's from decay as it goes (nil, nil here).
 func (sh *shot) upperDecay() (eC, wC []float64) {
-	dt, gamma0, kE := sh.p.TimeStep, sh.p.UpperDecayRate, sh.d.Levels.UpperElectronMixing
+	if sh.uniform {
+		return nil, nil
+	}
 	eC, wC = make([]float64, sh.steps), make([]float64, sh.steps)
 	for k := range eC {
-		g := gamma0 + kE*sh.wf.density[k]
-		if sh.wf.lossC != nil {
-			g += sh.wf.lossC[k] // the Born–Bethe/Lotz estimate of electron collisions
-		}
-		em1 := math.Expm1(-g * dt)
-		eC[k], wC[k] = 1+em1, -em1/g
+		eC[k], wC[k] = sh.decay(k)
 	}
 	return eC, wC
+}
+
+// decay is the decay factor and pump weight of C(0) at step k: they depend on time only
+// through n_e (electron mixing and collisions).
+func (sh *shot) decay(k int) (e, w float64) {
+	g := sh.p.UpperDecayRate + sh.d.Levels.UpperElectronMixing*sh.wf.density[k]
+	if sh.wf.lossC != nil {
+		g += sh.wf.lossC[k] // the Born–Bethe/Lotz estimate of electron collisions
+	}
+	em1 := math.Expm1(-g * sh.p.TimeStep)
+	return 1 + em1, -em1 / g
 }
 
 // pumpAhead is the pump still to come from each step on, which bounds how much inversion can
@@ -316,7 +329,8 @@ func (sh *shot) fillPump(ps *pumpStep, k int, eC, wC []float64) {
 	if sh.uniform {
 		c, b := sh.wf.pumpC[k], sh.wf.pumpB[k]
 		sh.pumpPeak = max(sh.pumpPeak, c)
-		ps.e, ps.cp, ps.bp = eC[k], c*wC[k], b*sh.wB
+		e, w := sh.decay(k)
+		ps.e, ps.cp, ps.bp = e, c*w, b*sh.wB
 		ps.wBh = 0.5 * (sh.p.EinsteinA00 + sh.mixB(k, 0, 0)) * sh.wB
 		return
 	}
@@ -431,7 +445,8 @@ func (sh *shot) summarise(res *Result) {
 // [m⁻²] over the run: Σ_cells Δz·Σ_k P_C(k)·Δt with each cell's pump delayed as in the run.
 func (sh *shot) pumpedUpper() float64 {
 	dt, n := sh.p.TimeStep, sh.d.Numerics.Cells
-	cum := make([]float64, sh.steps+1) // cum[k] = Σ_{j<k} P_C(j)·Δt
+	cum := sh.scratch(0, sh.steps+1) // cum[k] = Σ_{j<k} P_C(j)·Δt
+	cum[0] = 0
 	for k, pc := range sh.wf.pumpC {
 		cum[k+1] = cum[k] + pc*dt
 	}
@@ -450,7 +465,7 @@ func (sh *shot) pumpedUpper() float64 {
 func (sh *shot) termination(s *Summary) {
 	p := sh.p
 	g := p.DegeneracyRatio
-	gain := make([]float64, sh.steps)
+	gain := sh.scratch(1, sh.steps)
 	for k := range gain {
 		gain[k] = p.CrossSection * (sh.midC[k] - g*sh.midB[k])
 	}
@@ -497,6 +512,15 @@ func (sh *shot) termination(s *Summary) {
 		s.TerminationCause = "quenching"
 	}
 	_ = upper
+}
+
+// scratch returns n values of the i-th spare array, or new ones when run has not left one
+// that long; the values are whatever was there.
+func (sh *shot) scratch(i, n int) []float64 {
+	if len(sh.spare[i]) >= n {
+		return sh.spare[i][:n]
+	}
+	return make([]float64, n)
 }
 
 // peak returns the largest value of x and its index.

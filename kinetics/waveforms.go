@@ -13,7 +13,7 @@ import (
 // waveforms are the circuit and discharge quantities sampled at the middle of every optical
 // step, (k+½)·Δt.
 type waveforms struct {
-	voltage, current, field, density []float64                  // V_ch [V], channel current [A], E/N [V m²], n_e [m⁻³]
+	voltage, current, field, density []float64                  // V_ch [V], channel current [A], E/N [V m²], n_e [m⁻³]; current and field nil unless the run keeps its series
 	pumpC, pumpB                     []float64                  // excitation rates into C(0) and B(0) [m⁻³ s⁻¹]
 	lossC                            []float64                  // loss rate of C(0) by electron collisions (Born–Bethe and Lotz estimate) [s⁻¹]
 	mixB                             []float64                  // the part of lossC that lands in B(0): superelastic C(0) → B(0) [s⁻¹]
@@ -31,7 +31,9 @@ type waveforms struct {
 }
 
 // solveCircuit integrates the circuit and discharge from closure to steps·dt and samples them.
-func solveCircuit(c *circuit, d *design.Design, par *Parameters, steps int) (*waveforms, Stats, error) {
+// The channel current and E/N are kept as series only when series (for the Result's
+// waveforms); their peaks are taken either way.
+func solveCircuit(c *circuit, d *design.Design, par *Parameters, steps int, series bool) (*waveforms, Stats, error) {
 	dt := par.TimeStep
 	y0, stored := c.initial(d.Circuit.ChargeVoltage, d.Discharge.SeedDensity)
 	v0 := d.Circuit.ChargeVoltage
@@ -56,11 +58,13 @@ func solveCircuit(c *circuit, d *design.Design, par *Parameters, steps int) (*wa
 		return nil, Stats{}, fmt.Errorf("kinetics: circuit: %w", err)
 	}
 	w := &waveforms{
-		voltage: make([]float64, steps), current: make([]float64, steps),
-		field: make([]float64, steps), density: make([]float64, steps),
+		voltage: make([]float64, steps), density: make([]float64, steps),
 		pumpC: make([]float64, steps), pumpB: make([]float64, steps),
 		plasmaPower: make([]float64, steps), lossC: make([]float64, steps), mixB: make([]float64, steps),
 		stored: stored,
+	}
+	if series {
+		w.current, w.field = make([]float64, steps), make([]float64, steps)
 	}
 	_, hi := c.table.Range()
 	nX := c.density * d.Gas.Nitrogen
@@ -93,9 +97,11 @@ func solveCircuit(c *circuit, d *design.Design, par *Parameters, steps int) (*wa
 			ne := math.Exp(y[iLnNe])
 			smp := c.sample(y[iVg], ne)
 			kB, kC, kW, kBp, mean := smp.kB, smp.kC, smp.kW, smp.kBp, smp.mean
+			field := c.reducedField(y[iVg])
 			w.voltage[k] = y[iVg]
-			w.current[k] = y[iIc]
-			w.field[k] = c.reducedField(y[iVg])
+			if series {
+				w.current[k], w.field[k] = y[iIc], field
+			}
 			w.density[k] = ne
 			var sup float64 // the electrons' superelastic C(0) → B rate [s⁻¹]
 			if eScale > 0 {
@@ -120,10 +126,10 @@ func solveCircuit(c *circuit, d *design.Design, par *Parameters, steps int) (*wa
 					w.plasmaSplit[j] += f * pw
 				}
 			}
-			w.peakField = math.Max(w.peakField, w.field[k])
+			w.peakField = math.Max(w.peakField, field)
 			w.peakCurrent = math.Max(w.peakCurrent, math.Abs(y[iIc]))
 			w.peakDensity = math.Max(w.peakDensity, ne)
-			if w.field[k] > hi {
+			if field > hi {
 				w.fieldAbove = true
 			}
 		}

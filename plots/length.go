@@ -72,6 +72,27 @@ func LengthFigure(r *study.LengthResult, base string) ([]string, error) {
 		}
 		printStyle(p)
 		top := 0.0
+		if r.Samples > 0 {
+			for c, cur := range r.Curves {
+				x, lo, hi := make([]float64, len(cur.Points)), make([]float64, len(cur.Points)), make([]float64, len(cur.Points))
+				for i, pt := range cur.Points {
+					x[i], lo[i], hi[i] = 100*pt.Length, math.NaN(), math.NaN()
+					if pt.Band != nil {
+						if b, ok := pt.Band.Metric(pan.key); ok {
+							lo[i], hi[i] = scale*b.P05, scale*b.P95
+							top = math.Max(top, hi[i])
+						}
+					}
+				}
+				polys := fillBetween(x, lo, hi, faint(lengthColors[c%2]))
+				for _, poly := range polys {
+					p.Add(poly)
+				}
+				if k == 0 && len(polys) > 0 {
+					key.Legend.Add(fmt.Sprintf("5–95 %% over %d samples (%s)", r.Samples, velocityName(cur.Velocity)), polys[0])
+				}
+			}
+		}
 		for c, cur := range r.Curves {
 			var xy plotter.XYs
 			for _, pt := range cur.Points {
@@ -141,7 +162,11 @@ func LengthFigure(r *study.LengthResult, base string) ([]string, error) {
 		rows[k] = []*plot.Plot{p}
 	}
 	printStyle(key)
-	strip := vg.Length(3*len(r.Curves))*0.36*vg.Centimeter + 1.1*vg.Centimeter
+	entries := 3 * len(r.Curves)
+	if r.Samples > 0 {
+		entries += len(r.Curves)
+	}
+	strip := vg.Length(entries)*0.36*vg.Centimeter + 1.1*vg.Centimeter
 	w, h := 16*vg.Centimeter, 22*vg.Centimeter+strip
 	return studySave(base, w, h, func(c draw.Canvas) {
 		key.Draw(draw.Crop(c, 0, 0, h-strip, 0))

@@ -159,6 +159,17 @@ func sweepCurve(t *study.Table, a study.Axis, metric string, base string) ([]str
 	}
 	printStyle(p)
 	line := color.RGBA{B: 160, A: 255}
+	if lo, hi := t.Column(metric+study.BandSuffixes[0]), t.Column(metric+study.BandSuffixes[2]); lo >= 0 && hi >= 0 {
+		// A sweep with uncertainty samples: the 5–95 % band under the curve.
+		bl, bh := make([]float64, len(t.Rows)), make([]float64, len(t.Rows))
+		for r := range t.Rows {
+			bl[r], bh[r] = f*t.Float(r, lo), f*t.Float(r, hi)
+		}
+		for _, poly := range fillBetween(x, bl, bh, faint(line)) {
+			p.Add(poly)
+		}
+		p.Title.Text += "\nshaded: 5–95 % over the uncertainty samples of each point"
+	}
 	var seg plotter.XYs
 	var masked plotter.XYs
 	flush := func() error {

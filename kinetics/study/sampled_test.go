@@ -342,3 +342,30 @@ func TestSweepBandsResumeAndShards(t *testing.T) {
 		t.Errorf("merged shards: same table %v, manifest samples %d seed %d; want the whole table, 20, 3", bytes.Equal(merged.CSV(), full.CSV()), m.Samples, m.Seed)
 	}
 }
+
+// TestBandNoteTruncated: samples cut short at the longest run are counted and named in the
+// row's note (11 samples of the B(0) lifetime, uniform 7.5–13 µs: exactly the two strata above
+// 12 µs are truncated), and a point whose design uses none of the uncertain constants says it
+// has no band.
+func TestBandNoteTruncated(t *testing.T) {
+	t.Parallel()
+	d := design.ExampleDesign()
+	a, err := ParseAxis("gas.pressure=100Torr:100Torr:1", d)
+	if err != nil {
+		t.Fatal(err)
+	}
+	run := func(d *design.Design) (kinetics.Summary, error) {
+		return kinetics.Summary{EnergyFront: 1e-4, Lases: true, Truncated: d.Levels.LowerLifetime > 12e-6}, nil
+	}
+	s := &Sweep{Design: d, Axes: []Axis{a}, Runner: run, Workers: 2, Dir: t.TempDir(), Samples: 11, Seed: 9}
+	tab, err := s.Run(context.Background())
+	if err != nil {
+		t.Fatal(err)
+	}
+	if note := tab.Rows[0][tab.Column(BandNoteColumn)]; !strings.Contains(note, "2 samples truncated") {
+		t.Errorf("note %q, want the 2 truncated samples named", note)
+	}
+	if bandNote(sampledPoint{bandErr: errors.New("study: the design uses none of the uncertain constants")}) != "no band: the design uses none of the uncertain constants" {
+		t.Errorf("no band: note %q", bandNote(sampledPoint{bandErr: errors.New("study: the design uses none of the uncertain constants")}))
+	}
+}

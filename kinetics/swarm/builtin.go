@@ -271,7 +271,7 @@ func BuiltinSet(gas, set string) (*Table, error) {
 	if err != nil {
 		return nil, fmt.Errorf("swarm: %w", err)
 	}
-	t, err := ReadCSV(bytes.NewReader(b), "data/"+file)
+	t, err := parseCSV(b, "data/"+file)
 	if err != nil {
 		return nil, err
 	}
@@ -366,7 +366,7 @@ func solveOrLoad(mix []Component, key, cacheDir, name string) (*Table, error) {
 	if cacheDir != "" {
 		path = filepath.Join(cacheDir, name)
 		if b, err := os.ReadFile(path); err == nil {
-			if t, err := ReadCSV(bytes.NewReader(b), path); err == nil {
+			if t, err := parseCSV(b, path); err == nil {
 				return t, nil
 			}
 			// a damaged cache file is recomputed and replaced
@@ -380,7 +380,7 @@ func solveOrLoad(mix []Component, key, cacheDir, name string) (*Table, error) {
 	if err := WriteResultsCSV(&buf, append(TableComments(mix, nil), "cache key: "+key), res); err != nil {
 		return nil, err
 	}
-	t, err := ReadCSV(bytes.NewReader(buf.Bytes()), "solved table")
+	t, err := parseCSV(buf.Bytes(), "solved table")
 	if err != nil {
 		return nil, err
 	}

@@ -78,6 +78,12 @@ func ReadCSV(r io.Reader, name string) (*Table, error) {
 	if err != nil {
 		return nil, fmt.Errorf("swarm: %s: %w", name, err)
 	}
+	return parseCSV(b, name)
+}
+
+// parseCSV is ReadCSV of text already in memory (a shipped, solved or cached table): no copy
+// through a reader.
+func parseCSV(b []byte, name string) (*Table, error) {
 	if len(b) > MaxCSVBytes {
 		return nil, fmt.Errorf("swarm: %s: file larger than %d MiB, the limit of a swarm table", name, MaxCSVBytes>>20)
 	}
