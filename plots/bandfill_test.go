@@ -87,3 +87,42 @@ func TestBandFigures(t *testing.T) {
 		}
 	}
 }
+
+// TestMapMayNotLase draws a banded two-key sweep whose samples lase only below a quenching
+// constant of 1.25e-17 at pressures above 150 Torr: the map's title explains the triangles
+// that mark those cells, and a sweep without bands has no such line.
+func TestMapMayNotLase(t *testing.T) {
+	t.Parallel()
+	d := design.ExampleDesign()
+	var axes []study.Axis
+	for _, v := range []string{"gas.pressure=50Torr:300Torr:4", "circuit.charge_voltage=8kV:12kV:3"} {
+		a, err := study.ParseAxis(v, d)
+		if err != nil {
+			t.Fatal(err)
+		}
+		axes = append(axes, a)
+	}
+	run := func(d *design.Design) (kinetics.Summary, error) {
+		p := d.Gas.Pressure / units.Torr
+		return kinetics.Summary{EnergyTotal: 1e-6 * p * d.Circuit.ChargeVoltage / 1e3, Lases: p < 150 || d.Levels.UpperQuenchingNitrogen < 1.25e-17}, nil
+	}
+	const line = "triangles: may not lase"
+	for _, samples := range []int{10, 0} {
+		s := &study.Sweep{Design: d, Axes: axes, Runner: run, Workers: 2, Dir: t.TempDir(), Samples: samples, Seed: 1}
+		tab, err := s.Run(context.Background())
+		if err != nil {
+			t.Fatal(err)
+		}
+		dir := t.TempDir()
+		if _, err := SweepFigures(tab, axes, []string{"energy_total_J"}, dir); err != nil {
+			t.Fatal(err)
+		}
+		svg, err := os.ReadFile(filepath.Join(dir, "map-energy_total_J.svg"))
+		if err != nil {
+			t.Fatal(err)
+		}
+		if got := strings.Contains(string(svg), line); got != (samples > 0) {
+			t.Errorf("%d samples: map names the may-not-lase marks %v, want %v", samples, got, samples > 0)
+		}
+	}
+}

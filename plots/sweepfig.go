@@ -360,6 +360,12 @@ func sweepMap(t *study.Table, axes []study.Axis, metric string, base string) ([]
 	if err := drawContours(p, g, ms.levels(), cmap); err != nil {
 		return nil, err
 	}
+	if marks, err := mayNotLaseMarks(t, axes[1].N, g); err != nil {
+		return nil, err
+	} else if marks != nil {
+		p.Add(marks...)
+		p.Title.Text += "\ntriangles: may not lase (the uncertainty band straddles the threshold)"
+	}
 	if b.Row >= 0 {
 		c, r := b.Row/axes[1].N, b.Row%axes[1].N
 		if err := markOptimum(p, g.x[c], g.y[r], ""); err != nil {
@@ -479,4 +485,51 @@ func contourSegments(g sweepGrid, z float64) [][2]plotter.XY {
 func luminance(c color.Color) float64 {
 	r, g, b, _ := c.RGBA()
 	return (0.2126*float64(r) + 0.7152*float64(g) + 0.0722*float64(b)) / 65535
+}
+
+// mayNotLaseMarks is a triangle on every cell of a banded sweep whose samples straddle the
+// lasing threshold (column study.MayNotLaseColumn "true"), black over a white halo so that it
+// reads on any colour; nil when there is none. n is the number of values of the fastest key.
+func mayNotLaseMarks(t *study.Table, n int, g sweepGrid) ([]plot.Plotter, error) {
+	c := t.Column(study.MayNotLaseColumn)
+	if c < 0 {
+		return nil, nil
+	}
+	var pts plotter.XYs
+	for r, row := range t.Rows {
+		if row[c] == "true" {
+			pts = append(pts, plotter.XY{X: g.x[r/n], Y: g.y[r%n]})
+		}
+	}
+	if len(pts) == 0 {
+		return nil, nil
+	}
+	var out []plot.Plotter
+	for _, st := range []struct {
+		col   color.Color
+		width vg.Length
+	}{{color.White, 3}, {color.Black, 1}} {
+		s, err := plotter.NewScatter(pts)
+		if err != nil {
+			return nil, fmt.Errorf("plots: %w", err)
+		}
+		s.GlyphStyle = draw.GlyphStyle{Shape: lineTriangle{width: st.width}, Radius: vg.Points(3.5), Color: st.col}
+		out = append(out, s)
+	}
+	return out, nil
+}
+
+// lineTriangle is an open triangle drawn with a line of the given width.
+type lineTriangle struct{ width vg.Length }
+
+// DrawGlyph implements draw.GlyphDrawer.
+func (g lineTriangle) DrawGlyph(c *draw.Canvas, sty draw.GlyphStyle, pt vg.Point) {
+	r := sty.Radius
+	var p vg.Path
+	p.Move(vg.Point{X: pt.X, Y: pt.Y + r})
+	p.Line(vg.Point{X: pt.X - 0.866*r, Y: pt.Y - 0.5*r})
+	p.Line(vg.Point{X: pt.X + 0.866*r, Y: pt.Y - 0.5*r})
+	p.Close()
+	c.SetLineStyle(draw.LineStyle{Color: sty.Color, Width: g.width})
+	c.Stroke(p)
 }
