@@ -7,6 +7,7 @@ import (
 	"gonum.org/v1/gonum/floats/scalar"
 
 	"n2pulse/kinetics/design"
+	"n2pulse/kinetics/spectro"
 	"n2pulse/units"
 )
 
@@ -49,8 +50,8 @@ func TestManifoldExact(t *testing.T) {
 
 // TestManifoldDefaults: the manifold's constants are those of their sources: N₂(B) + N₂ →
 // N₂(A) + N₂ 1.2e-11 cm³/s (J. Appl. Phys. 125, 243301 (2019), Table I, R25) and N₂(B) + O₂
-// 3e-10 cm³/s (Kossyi et al., Plasma Sources Sci. Technol. 1, 207 (1992)); the share is off
-// by default until it changes together with the cross-section set.
+// 3e-10 cm³/s (Kossyi et al., Plasma Sources Sci. Technol. 1, 207 (1992)); the share is the
+// derived 0.25 (TestManifoldShareDerived).
 func TestManifoldDefaults(t *testing.T) {
 	t.Parallel()
 	l := design.ExampleDesign().Levels
@@ -65,8 +66,54 @@ func TestManifoldDefaults(t *testing.T) {
 	if !scalar.EqualWithinAbsOrRel(l.UpperRelaxationNitrogen, 1.5e-17, 0, 1e-12) || !scalar.EqualWithinAbsOrRel(l.UpperV1QuenchingNitrogen, 1.5e-17, 0, 1e-12) {
 		t.Errorf("C(v=1) constants %g, %g m³/s, want 1.5e-17 each", l.UpperRelaxationNitrogen, l.UpperV1QuenchingNitrogen)
 	}
-	if !(l.ManifoldShare >= 0 && l.ManifoldShare <= 1) {
-		t.Errorf("manifold share %g outside 0–1", l.ManifoldShare)
+	if l.ManifoldShare != 0.25 {
+		t.Errorf("manifold share %g, want the derived 0.25", l.ManifoldShare)
+	}
+}
+
+// TestManifoldShareDerived recomputes the derivation of levels.manifold_share written in
+// kinetics/design/levels.go: the Franck–Condon factors X(0) → B(v) of package spectro weight the
+// chance p^v of stepping down v levels of the B ladder, p = k_VR/(k_VR + k_BA) with k_VR = 2e-11
+// cm³/s (from memory) and k_BA the default B → A transfer (1.2e-11, J. Appl. Phys. 125, 243301
+// (2019) Table I R25): the ladder keeps 0.27; with a tenth of the manifold (B′) keeping p⁵ the
+// whole gives the default 0.25; k_VR 1–3e-11 and k_BA 1.2–3e-11 span 0.05–0.37 (the range in
+// design.Spreads).
+func TestManifoldShareDerived(t *testing.T) {
+	t.Parallel()
+	m, err := spectro.DefaultModel()
+	if err != nil {
+		t.Fatal(err)
+	}
+	q := make([]float64, 14)
+	for v := range q {
+		if q[v], _, err = m.FranckCondon("X", 0, "B", v); err != nil {
+			t.Fatal(err)
+		}
+	}
+	ladder := func(kVR, kBA float64) float64 {
+		p := kVR / (kVR + kBA)
+		var num, den float64
+		for v := 1; v < len(q); v++ {
+			num += q[v] * math.Pow(p, float64(v))
+			den += q[v]
+		}
+		return num / den
+	}
+	l := design.ExampleDesign().Levels
+	kBA := l.ManifoldRelaxationNitrogen
+	y := ladder(2e-17, kBA)
+	if !scalar.EqualWithinAbsOrRel(y, 0.27, 0.005, 0) {
+		t.Errorf("ladder yield %.4f, want 0.27", y)
+	}
+	p := 2e-17 / (2e-17 + kBA)
+	whole := 0.9*y + 0.1*math.Pow(p, 5)
+	if !scalar.EqualWithinAbsOrRel(whole, l.ManifoldShare, 0.01, 0) {
+		t.Errorf("whole manifold %.4f, default share %g", whole, l.ManifoldShare)
+	}
+	lo, hi := 0.9*ladder(1e-17, 3e-17)+0.1*math.Pow(0.25, 5), ladder(3e-17, 1.2e-17)
+	s, ok := design.KeySpread("levels.manifold_share")
+	if !ok || !scalar.EqualWithinAbsOrRel(s.Low, lo, 0.005, 0) || !scalar.EqualWithinAbsOrRel(s.High, hi, 0.005, 0) {
+		t.Errorf("range %.3f–%.3f from the rates, spread %+v", lo, hi, s)
 	}
 }
 

@@ -102,6 +102,9 @@ func swarmChecks() ([]Check, error) {
 		return nil, err
 	}
 	cs := transportChecks(n2, air)
+	for i := range cs {
+		cs[i].Known = setKnown(swarm.DefaultSet, cs[i])
+	}
 	hes, err := heliumChecks()
 	if err != nil {
 		return nil, err

@@ -24,11 +24,11 @@ func TestInitExamples(t *testing.T) {
 		set        []string
 		rearBelow  float64 // rear-end energy below this share of the output end (0: not checked)
 	}{
-		{"blumlein", "example.toml", 380e-6, nil, 0},
-		{"board", "board.toml", 147e-6, nil, 0},
-		{"tube", "tube.toml", 96.1e-6, nil, 0},
-		{"tube", "tube.toml", 616e-6, []string{"--set", "optics.rear_reflectivity=0.9"}, 0.01},
-		{"tea-transfer", "tea-transfer.toml", 109e-6, nil, 0},
+		{"blumlein", "example.toml", 317e-6, nil, 0},
+		{"board", "board.toml", 349e-6, nil, 0},
+		{"tube", "tube.toml", 420e-6, nil, 0},
+		{"tube", "tube.toml", 1250e-6, []string{"--set", "optics.rear_reflectivity=0.9"}, 0.01},
+		{"tea-transfer", "tea-transfer.toml", 152e-6, nil, 0},
 	} {
 		t.Run(c.name, func(t *testing.T) {
 			t.Parallel()

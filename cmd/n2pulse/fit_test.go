@@ -150,13 +150,13 @@ func TestFitUsage(t *testing.T) {
 	}
 }
 
-// TestFitNoScatter: one point, one free key, no uncertainty: nothing is left to estimate the
-// scatter, so --json carries null intervals and residuals and the key is not determined.
+// TestFitNoScatter: one point, one free key, no uncertainty (150 µJ, which the demo design
+// reaches inside the width range, at about 3.5 mm): nothing is left to estimate the scatter, so --json carries null intervals and residuals and the key is not determined.
 func TestFitNoScatter(t *testing.T) {
 	t.Parallel()
 	dir := t.TempDir()
 	data := filepath.Join(dir, "one.csv")
-	if err := os.WriteFile(data, []byte("channel.gap [mm], energy_front [uJ]\n1.8, 60\n"), 0o644); err != nil {
+	if err := os.WriteFile(data, []byte("channel.gap [mm], energy_front [uJ]\n1.8, 150\n"), 0o644); err != nil {
 		t.Fatal(err)
 	}
 	var o, e bytes.Buffer

@@ -23,7 +23,7 @@ func TestRunUncertainty(t *testing.T) {
 	if !ok {
 		t.Fatalf("no uncertainty section in:\n%s", out1.String())
 	}
-	for _, want := range []string{"seed 4", "pulse energy, output end", "pulse energy, both ends", "peak power, output end", "FWHM", "upper_quenching_nitrogen", "samples reach the lasing threshold"} {
+	for _, want := range []string{"seed 4", "pulse energy, output end", "pulse energy, both ends", "peak power, output end", "FWHM", "manifold_share", "samples reach the lasing threshold"} {
 		if !strings.Contains(table, want) {
 			t.Errorf("uncertainty section lacks %q:\n%s", want, table)
 		}

@@ -54,12 +54,20 @@ func defaultLevels() Levels {
 		// the output, the opposite of what builders see (found against the experiment cases
 		// in validation/testdata/experiments). Zero until a measured value is found.
 		LowerRemovalOxygen: 0,
-		// The share of the B/W/B′ manifold's relaxation that ends in B(0) is not published: an
-		// estimate, range 0.2–1 (a cascade of about three vibrational steps, each competing
-		// with transfer to A³Σu⁺, gives ~0.2; W(0) lies 75 cm⁻¹ above B(0), so the W and B
-		// populations mix in collisions and most of the manifold can end in B(0)). Zero
-		// (feeding off) until the default cross-section set changes with it (issue note).
-		ManifoldShare: 0,
+		// The share of the B/W/B′ manifold's relaxation that ends in B(0): no measured value
+		// was found, so it is derived. A molecule in B(v) relaxes to B(v−1) by N₂ at k_VR ≈
+		// 2e-11 cm³/s (from memory of laser-induced-fluorescence work; range 1–3e-11) or leaves
+		// for A³Σu⁺ at k_BA = 1.2e-11 (J. Appl. Phys. 125, 243301 (2019), Table I, R25, seen;
+		// 3e-11 in Kossyi et al. 1992): each step down keeps it with p = k_VR/(k_VR + k_BA) =
+		// 0.625, and the electrons put it in B(v) with the Franck–Condon factors of X(0) → B(v)
+		// (package spectro: 0.148, 0.197, 0.192, 0.153, 0.106, 0.066, … for v = 1…6), so the
+		// ladder's yield is Σq_v·p^v / Σq_v = 0.27 (TestManifoldShareDerived). W³Δu lies among
+		// the same B levels and mixes with them in collisions (Bachmann et al., J. Chem. Phys.
+		// 96, 5151 (1992), abstract seen): taken alike. B′³Σu⁻ starts near B(v=4–5) (about a
+		// tenth of the manifold's excitation at 200–1000 Td) and keeps p⁵ ≈ 0.1: the whole
+		// manifold 0.25. Range 0.05–0.37 from the ranges of k_VR and k_BA. What C(0) and C(v=1)
+		// pass to the B state joins the manifold (kinetics.upperShadow) with the same share.
+		ManifoldShare: 0.25,
 		// N2(B) + N2 → N2(A) + N2(v): 1.2e-11 cm³/s, J. Appl. Phys. 125, 243301 (2019), Table I,
 		// R25 (seen); 3e-11 cm³/s in Kossyi et al. 1992 (seen, secondary): range 1.2–3e-11.
 		ManifoldRelaxationNitrogen: 1.2e-17,

@@ -30,8 +30,10 @@ type Spread struct {
 // Every range contains the default of Defaults (TestSpreadsHoldDefaults); the defaults
 // themselves and their sources are in levels.go. Keys whose default has no range anywhere in
 // the project (switch.spark_constant, discharge.recombination, levels.lower_removal_*,
-// levels.manifold_relaxation_oxygen) are not listed; levels.manifold_share is not listed while
-// its default is 0 (feeding off) outside its estimated range 0.2–1.
+// levels.manifold_relaxation_oxygen) are not listed. levels.manifold_share and
+// levels.manifold_relaxation_nitrogen are sampled independently, though the derivation of the
+// share (levels.go) lowers it as the B → A transfer grows: the share sets how much of the
+// manifold reaches B(0), the relaxation constant how fast.
 var spreads = []Spread{
 	{Key: "levels.upper_quenching_nitrogen", Low: 1.0e-17, High: 1.5e-17, Distribution: Uniform,
 		Source: "1.0–1.5e-11 cm³/s: Kossyi, Kostinsky, Matveyev & Silakov, Plasma Sources Sci. Technol. 1, 207 (1992) (seen, secondary) to Pancheshnyi et al., Chem. Phys. Lett. 294, 523 (1998) (from memory) and older measurements near 1.1–1.5e-11 (from memory)"},
@@ -45,6 +47,8 @@ var spreads = []Spread{
 		Source: "1–2e-11 cm³/s: Dilecce, Ambrico & De Benedictis, Chem. Phys. Lett. 431, 241 (2006) (abstract seen, values from memory)"},
 	{Key: "levels.lower_lifetime", Low: 7.5e-6, High: 13e-6, Distribution: Uniform,
 		Source: "7.5 µs band average of Capitelli et al., Plasma Kinetics in Atmospheric Gases (Springer 2000) (seen, secondary) to 8–13 µs for B(v=0) of Eyler & Pipkin (1983) (from memory)"},
+	{Key: "levels.manifold_share", Low: 0.05, High: 0.37, Distribution: Uniform,
+		Source: "derived, range 0.05–0.37 (levels.go): Franck–Condon-weighted yield Σq_v·p^v of the B(v>0) ladder with p = k_VR/(k_VR + k_BA), k_VR = 1–3e-11 cm³/s (from memory) and k_BA = 1.2–3e-11 cm³/s (J. Appl. Phys. 125, 243301 (2019) Table I R25, seen; Kossyi et al. 1992, seen, secondary)"},
 	{Key: "levels.manifold_relaxation_nitrogen", Low: 1.2e-17, High: 3e-17, Distribution: LogUniform,
 		Source: "1.2–3e-11 cm³/s: J. Appl. Phys. 125, 243301 (2019), Table I, R25, 1.2e-11 (seen) to Kossyi et al., Plasma Sources Sci. Technol. 1, 207 (1992), 3e-11 (seen, secondary)"},
 }

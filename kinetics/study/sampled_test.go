@@ -268,8 +268,11 @@ func TestUncertaintyEnvelope(t *testing.T) {
 	}
 	e, _ := u.Metric("energy_front_J")
 	t.Logf("∫ median power dt = %.4g J, median output-end energy %.4g J", integral, e.P50)
-	if !scalar.EqualWithinAbsOrRel(integral, e.P50, 0, 0.05) {
-		t.Errorf("∫ median power dt = %g J, median energy %g J; want within 5 %%", integral, e.P50)
+	// The pointwise median of the traces is not the trace of the median sample, so the two
+	// agree only as far as the samples are alike: within 5 % when this was written, 5.7 % once
+	// the unpublished manifold share (sampled 0.05–0.37) widened the band to about ×15.
+	if !scalar.EqualWithinAbsOrRel(integral, e.P50, 0, 0.10) {
+		t.Errorf("∫ median power dt = %g J, median energy %g J; want within 10 %%", integral, e.P50)
 	}
 	if _, _, err := UncertaintyEnvelope(context.Background(), d, 10, 7, 2, 0, []float64{1e-9, 1e-9}); err == nil {
 		t.Error("a grid that does not increase: no error")
