@@ -41,3 +41,21 @@ func BenchmarkRunFull(b *testing.B) {
 	}
 	b.ReportMetric(float64(b.N)/b.Elapsed().Seconds(), "shots/s")
 }
+
+// BenchmarkRunSummaryOnly times one shot of the example design as `n2pulse run` without
+// --out takes it (RunSettings.SummaryOnly: the full shot, no series kept). Reported with
+// shots/s and allocations.
+func BenchmarkRunSummaryOnly(b *testing.B) {
+	d := design.ExampleDesign()
+	set := &RunSettings{SummaryOnly: true}
+	if _, err := Run(d, set); err != nil { // warm the tables
+		b.Fatal(err)
+	}
+	b.ReportAllocs()
+	for b.Loop() {
+		if _, err := Run(d, set); err != nil {
+			b.Fatal(err)
+		}
+	}
+	b.ReportMetric(float64(b.N)/b.Elapsed().Seconds(), "shots/s")
+}

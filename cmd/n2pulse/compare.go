@@ -262,14 +262,7 @@ func printComparison(w io.Writer, c *comparison) {
 	}
 	fmt.Fprintln(w)
 	tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
-	head := "\t"
-	for i := range c.Designs {
-		head += letter(i) + "\t"
-	}
-	for i := range c.Designs[1:] {
-		head += letter(i+1) + " / A\t"
-	}
-	fmt.Fprintln(tw, head)
+	fmt.Fprintln(tw, "\t"+strings.Join(designColumns(len(c.Designs)), "\t")+"\t")
 	pad := strings.Repeat("\t", 2*len(c.Designs)-1)
 	if len(c.Differ) == 0 {
 		fmt.Fprintln(tw, "keys that differ: none\t"+pad)
@@ -307,6 +300,18 @@ func printComparison(w io.Writer, c *comparison) {
 			fmt.Fprintf(w, "   what to change: %s\n", d.Summary.Advice)
 		}
 	}
+}
+
+// designColumns are the column heads of a comparison's tables: A, B, … then B / A, C / A, ….
+func designColumns(n int) []string {
+	var head []string
+	for i := range n {
+		head = append(head, letter(i))
+	}
+	for i := 1; i < n; i++ {
+		head = append(head, letter(i)+" / A")
+	}
+	return head
 }
 
 // letter names the i-th design of a comparison: A, B, … Z, then 27, 28, ….

@@ -46,14 +46,7 @@ func compareBandRows(c *comparison) [][]string {
 func printCompareBands(w io.Writer, c *comparison) {
 	fmt.Fprintf(w, "\nuncertainty: %d samples of the uncertain constants, the same for every design (Latin hypercube, seed %d)\n", c.Samples, c.Seed)
 	tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
-	head := "figure: 5 % / median / 95 %\t"
-	for i := range c.Designs {
-		head += letter(i) + "\t"
-	}
-	for i := range c.Designs[1:] {
-		head += letter(i+1) + " / A\t"
-	}
-	fmt.Fprintln(tw, head)
+	fmt.Fprintln(tw, "figure: 5 % / median / 95 %\t"+strings.Join(designColumns(len(c.Designs)), "\t")+"\t")
 	for _, m := range c.Metrics {
 		if !isHeadline(m.Metric) {
 			continue
@@ -85,12 +78,7 @@ func printCompareBands(w io.Writer, c *comparison) {
 		if u.Truncated > 0 {
 			state += fmt.Sprintf("; %d samples truncated (figures cut short)", u.Truncated)
 		}
-		var drv []study.RankedDriver
-		if b, ok := u.Metric("energy_front_J"); ok {
-			for _, x := range b.Drivers {
-				drv = append(drv, study.RankedDriver{Key: x.Key, MedianRankCorrelation: x.RankCorrelation, Points: 1})
-			}
-		}
+		drv := energyDrivers(u)
 		fmt.Fprintf(w, "%s: %s; output-end energy driven most by %s\n", letter(i), state, driverLine(drv))
 	}
 	fmt.Fprintln(w, "  a ratio's band pairs sample i of each design (the same constants in both), so it is narrower than the two bands side by side when the designs answer the constants alike")
@@ -138,12 +126,7 @@ func compareBandSection(c *comparison, head []string) report.Section {
 	sec.Table = t
 	for i, d := range c.Designs {
 		u := d.band
-		var drv []study.RankedDriver
-		if b, ok := u.Metric("energy_front_J"); ok {
-			for _, x := range b.Drivers {
-				drv = append(drv, study.RankedDriver{Key: x.Key, MedianRankCorrelation: x.RankCorrelation, Points: 1})
-			}
-		}
+		drv := energyDrivers(u)
 		line := fmt.Sprintf("%d of %d samples lase; output-end energy driven most by %s", u.Lasing, u.Samples-u.Failed, driverLine(drv))
 		if u.MayNotLase() {
 			sec.Warn = true
@@ -156,4 +139,15 @@ func compareBandSection(c *comparison, head []string) report.Section {
 		sec.List = append(sec.List, line)
 	}
 	return sec
+}
+
+// energyDrivers are the drivers of a study's output-end energy band, as a ranking of one point.
+func energyDrivers(u *study.UncertaintyResult) []study.RankedDriver {
+	var drv []study.RankedDriver
+	if b, ok := u.Metric("energy_front_J"); ok {
+		for _, x := range b.Drivers {
+			drv = append(drv, study.RankedDriver{Key: x.Key, MedianRankCorrelation: x.RankCorrelation, Points: 1})
+		}
+	}
+	return drv
 }

@@ -276,13 +276,7 @@ func writeCompareReport(dir string, c *comparison) error {
 		names = append(names, d.Name)
 	}
 	p := report.Page{Title: "n2pulse comparison: " + strings.Join(names, ", "), Caution: safetyNotice}
-	head := []string{""}
-	for i := range c.Designs {
-		head = append(head, letter(i))
-	}
-	for i := range c.Designs[1:] {
-		head = append(head, letter(i+1)+" / A")
-	}
+	head := append([]string{""}, designColumns(len(c.Designs))...)
 	var who []string
 	for i, d := range c.Designs {
 		who = append(who, fmt.Sprintf("%s: %s (%s) — %s", letter(i), d.Name, d.File, d.Summary.Verdict))

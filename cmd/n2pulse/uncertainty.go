@@ -52,12 +52,8 @@ func printUncertainty(w io.Writer, r *study.UncertaintyResult) {
 			fmt.Fprintf(tw, "%s\t–\t–\t–\tundefined in most samples\n", m.label)
 			continue
 		}
-		var drv []string
-		for _, d := range b.Drivers[:min(3, len(b.Drivers))] {
-			drv = append(drv, fmt.Sprintf("%s %+.2f", strings.TrimPrefix(d.Key, "levels."), d.RankCorrelation))
-		}
 		fmt.Fprintf(tw, "%s\t%s\t%s\t%s\t%s\n", m.label, units.Format(b.P05, m.unit), units.Format(b.P50, m.unit),
-			units.Format(b.P95, m.unit), strings.Join(drv, ", "))
+			units.Format(b.P95, m.unit), topDrivers(b.Drivers))
 	}
 	tw.Flush()
 	fmt.Fprintln(w, "  the constants, their ranges and sources: package kinetics/design, Spreads (level constants with a published spread or an estimate's range)")
@@ -143,12 +139,18 @@ func uncertaintySection(u *study.UncertaintyResult, env *study.Envelope) report.
 			t.Rows = append(t.Rows, []string{m.label, "–", "–", "–", "undefined in most samples"})
 			continue
 		}
-		var drv []string
-		for _, x := range b.Drivers[:min(3, len(b.Drivers))] {
-			drv = append(drv, fmt.Sprintf("%s %+.2f", strings.TrimPrefix(x.Key, "levels."), x.RankCorrelation))
-		}
-		t.Rows = append(t.Rows, []string{m.label, units.Format(b.P05, m.unit), units.Format(b.P50, m.unit), units.Format(b.P95, m.unit), strings.Join(drv, ", ")})
+		t.Rows = append(t.Rows, []string{m.label, units.Format(b.P05, m.unit), units.Format(b.P50, m.unit), units.Format(b.P95, m.unit), topDrivers(b.Drivers)})
 	}
 	sec.Table = t
 	return sec
+}
+
+// topDrivers writes the three constants that drive a band most, "constant ρ, …", without the
+// "levels." prefix.
+func topDrivers(ds []study.Driver) string {
+	var drv []string
+	for _, d := range ds[:min(3, len(ds))] {
+		drv = append(drv, fmt.Sprintf("%s %+.2f", strings.TrimPrefix(d.Key, "levels."), d.RankCorrelation))
+	}
+	return strings.Join(drv, ", ")
 }
