@@ -147,8 +147,8 @@ func (sh *shot) run(res *Result) {
 		sh.record(res, k, sum, lit, colEvery)
 	}
 	res.Stats.OpticalSteps = sh.lit
-	sh.spare = [2][]float64{rest.inv, rest.upper}
 	res.Stats.Cells = n
+	sh.spare = [2][]float64{rest.inv, rest.upper}
 }
 
 // upperDecay returns the decay factor e^(−Γ_C Δt) and the pump weight (1 − e^(−Γ_C Δt))/Γ_C of
@@ -239,12 +239,10 @@ func (sh *shot) stepUnlit(pump *pumpStep, k int, eC, wC []float64, lit, dark boo
 			}
 		}
 	}
-	// The gain factors matter only while the optics run: at dawn they start from the
-	// populations; after dark nothing passes through the cells again.
 	if lit && !dark {
+		// The gain factors start from the populations at dawn; after dark nothing passes
+		// through the cells again, and they are left as they are.
 		m.resync()
-	}
-	if lit && !dark {
 		sh.lit++
 		front, rear := m.propagate(k)
 		sh.powerFront[k] = hv * front
