@@ -84,7 +84,7 @@ func laserChecks() ([]Check, error) {
 	checks = append(checks, Check{ID: "laser.trend.length_saturates", Unit: "",
 		Quantity: fmt.Sprintf("energy rises with length (capacitors ∝ length) and the relative gain from more length falls (10→20 cm ×%.3g, 40→60 cm ×%.3g)", gainShort, gainLong),
 		Computed: b2f(rising && gainLong < gainShort), Mode: True, Kind: CommonPractice,
-		Source: "common practice, no source: past the length light travels during the gain, more channel buys little"})
+		Source: "common practice, no source: past the length light travels during the gain, or once the larger capacitors slow the current rise (the switch inductance stays), more channel buys little"})
 	return checks, nil
 }
 

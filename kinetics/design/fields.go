@@ -83,7 +83,7 @@ var fieldList = []field{
 	{key: "levels.lower_lifetime", dim: units.Time, unit: "s", num: func(d *Design) *float64 { return &d.Levels.LowerLifetime }, min: 1e-9, max: 1e-3, help: "radiative lifetime of B(0)"},
 	{key: "levels.lower_removal_nitrogen", dim: units.RateConstant, unit: "m³/s", num: func(d *Design) *float64 { return &d.Levels.LowerRemovalNitrogen }, min: 0, max: 1e-14, help: "removal of B(0) by N₂"},
 	{key: "levels.lower_removal_oxygen", dim: units.RateConstant, unit: "m³/s", num: func(d *Design) *float64 { return &d.Levels.LowerRemovalOxygen }, min: 0, max: 1e-14, help: "removal of B(0) by O₂"},
-	{key: "levels.manifold_share", dim: units.Dimensionless, num: func(d *Design) *float64 { return &d.Levels.ManifoldShare }, min: 0, max: 1, help: "share of the B(v>0)/W/B′ manifold's relaxation by N₂ that ends in B(0) (not published; estimate 0.2–1)"},
+	{key: "levels.manifold_share", dim: units.Dimensionless, num: func(d *Design) *float64 { return &d.Levels.ManifoldShare }, min: 0, max: 1, help: "share of the B(v>0)/W/B′ manifold's relaxation by N₂ that ends in B(0) (no measured value; derived 0.25, range 0.05–0.37)"},
 	{key: "levels.manifold_relaxation_nitrogen", dim: units.RateConstant, unit: "m³/s", num: func(d *Design) *float64 { return &d.Levels.ManifoldRelaxationNitrogen }, min: 0, max: 1e-14, help: "collisional relaxation of the B(v>0)/W/B′ manifold by N₂"},
 	{key: "levels.manifold_relaxation_oxygen", dim: units.RateConstant, unit: "m³/s", num: func(d *Design) *float64 { return &d.Levels.ManifoldRelaxationOxygen }, min: 0, max: 1e-14, help: "removal of the B(v>0)/W/B′ manifold by O₂"},
 
