@@ -14,28 +14,46 @@ import (
 // ionisation instability, an energy per molecule below what constricts the glow, and a
 // deposition shorter than the time the glow takes to contract. Outside them the discharge
 // contracts into filaments or an arc: less of the gas is pumped and the model's output is an
-// upper bound. Only the preionisation limit has a source we could read; the others are
-// estimates, each with the range within which a published value would be unsurprising; the
-// central value is the flag.
+// upper bound. Only the preionisation limit has a source we could read that states it; for
+// the others the abstracts we could read (named below) bracket the range but give no limit
+// for a nitrogen glow, so the central values stay estimates, each with the range within which
+// a published value would be unsurprising; the central value is the flag.
 const (
 	// minSeedDensity is the preionisation needed for a uniform start [m⁻³]: ~1e4 cm⁻³ for a
 	// typical CO₂ TEA discharge, A. J. Palmer, Appl. Phys. Lett. 25, 138 (1974) (abstract
-	// seen); higher for fast-rising or strongly attaching mixtures (up to ~1e8 cm⁻³, from
-	// memory of later work on rare-gas halide discharges).
+	// seen); a TEA CO₂ laser "will tend to arc" below ~1e6 cm⁻³ (CLEO 1984, paper TuB7,
+	// Optical Society of America abstract, seen); higher for fast-rising or strongly attaching
+	// mixtures (up to ~1e8 cm⁻³, from memory of later work on rare-gas halide discharges).
 	minSeedDensity = 1e10
 	// maxIonisationDegree is the n_e/N above which the glow is taken as unstable to stepwise
 	// ionisation: estimate 3e-4, range 1e-4–1e-3 (from memory: electron–electron collisions
 	// begin to shape the energy distribution near n_e/N ~ 1e-4, and ionisation out of excited
-	// states makes the growth explosive towards 1e-3; no readable source found).
+	// states makes the growth explosive towards 1e-3). No readable source states the limit.
+	// Readable bounds: a self-sustained volume discharge in N₂ at 9.3 atm ran stably with
+	// n_e = 4e12 cm⁻³ (n_e/N ≈ 2e-8 at 300 K) and negligible stepwise ionisation
+	// (Apollonov et al., Atmos. Oceanic Opt. 1(11), 15 (1988), abstract seen); a nanosecond
+	// spark channel in atmospheric air reached n_e ≈ 7.5e15 cm⁻³ (n_e/N ≈ 3e-4 at room
+	// density) after it had contracted (Wang, Patel, Bane & Shashurin, arXiv:2106.09061
+	// (2021), abstract seen); the limit lies between the two.
 	maxIonisationDegree = 3e-4
 	// maxEnergyPerMolecule is the energy per molecule above which the glow is taken as
-	// constricting within the pulse [J]: estimate 0.5 eV, range 0.2–1 eV (nanosecond diffuse
-	// discharges in atmospheric air are reported near 1 J/cm³ ≈ 0.25 eV per molecule, seen
-	// in a secondary summary; no readable primary source).
+	// constricting within the pulse [J]: estimate 0.5 eV, range 0.2–1 eV. Readable values:
+	// nanosecond volume discharges in atmospheric air reach ~1 J/cm³ ≈ 0.25 eV per molecule
+	// before a brighter central channel appears with longer pulses (a summary of that group's
+	// work, seen; primary papers not readable); a coaxial N₂ laser pumped by a fast ionisation
+	// wave at 5–120 Torr took up to 2.1 J/cm³ in ~10 ns and lased (Quantum Electron.
+	// abstract, mathnet.ru qe558, seen), ≥ 3 eV per molecule at any of those pressures: not
+	// a uniform glow, but a warning that a nanosecond pulse can carry more than this limit
+	// before it contracts.
 	maxEnergyPerMolecule = 0.5 * units.ElectronVolt
 	// constrictionTime1atm is the time a pulsed glow in N₂ at one atmosphere takes to
-	// contract [s], scaled as 1/N to other densities: estimate 100 ns, range 30–300 ns (from
-	// memory; no readable source found).
+	// contract [s], scaled as 1/N to other densities: estimate 100 ns, range 30–300 ns. No
+	// readable source gives it for a preionised N₂ glow. Readable bounds: without
+	// preionisation, between pins in atmospheric air, a cathode spot and arc followed
+	// breakdown by 30–70 ns (Wang, Patel, Bane & Shashurin, arXiv:2106.09061 (2021),
+	// abstract seen: the short end); an electron-beam-sustained KrF laser discharge became
+	// unstable after 0.1–1 µs, sooner at higher E/N (Scilit abstract "Instability onset in
+	// electron-beam-sustained KrF* laser discharges", seen: the long end).
 	constrictionTime1atm = 100e-9
 )
 
