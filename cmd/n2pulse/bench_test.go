@@ -14,6 +14,7 @@ import (
 var benchBoard = string(data.BoardDesign())
 
 func TestBenchCommand(t *testing.T) {
+	t.Parallel()
 	path := filepath.Join(t.TempDir(), "board.toml")
 	if err := os.WriteFile(path, []byte(benchBoard), 0o644); err != nil {
 		t.Fatal(err)

@@ -40,6 +40,7 @@ func fr4Plate(t *testing.T, w float64) float64 {
 // run --set build.… re-derives the circuit: the stored energy is ½(C₁ + C₂)V₀² (a Blumlein
 // both of whose capacitors charge to V₀, analytic) with the new plate width.
 func TestRunSetBuildKey(t *testing.T) {
+	t.Parallel()
 	path := writeBoard(t)
 	var out, errb bytes.Buffer
 	args := []string{"run", path, "--json", "--set", "build.switch_plate_width=12 cm", "--set", "numerics.cells=16"}
@@ -83,6 +84,7 @@ func TestRunSetBuildKey(t *testing.T) {
 
 // bench --set build.… reports the plates as changed.
 func TestBenchSetBuildKey(t *testing.T) {
+	t.Parallel()
 	path := writeBoard(t)
 	var out, errb bytes.Buffer
 	if code := run([]string{"bench", path, "--json", "--set", "build.switch_plate_width=10 cm"}, &out, &errb); code != 0 {
@@ -108,6 +110,7 @@ func TestBenchSetBuildKey(t *testing.T) {
 
 // sweep --vary build.… writes the plate width as an axis and the stored energy follows it.
 func TestSweepVaryBuildKey(t *testing.T) {
+	t.Parallel()
 	path := writeBoard(t)
 	dir := filepath.Join(t.TempDir(), "sw")
 	var out, errb bytes.Buffer

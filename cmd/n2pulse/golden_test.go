@@ -33,6 +33,7 @@ var goldenSweep = []string{"sweep", "data/designs/example.toml",
 //
 // and commit them together with the change and its before/after table.
 func TestGolden(t *testing.T) {
+	t.Parallel()
 	root := filepath.Join("..", "..")
 	var designs []string
 	for _, pattern := range []string{"data/designs/*.toml", "validation/testdata/experiments/*.toml"} {

@@ -11,6 +11,7 @@ import (
 )
 
 func TestLinesJSON(t *testing.T) {
+	t.Parallel()
 	var out, errb bytes.Buffer
 	if code := run([]string{"lines", "--json", "--pressure", "40 Torr", "--temperature", "300 K"}, &out, &errb); code != 0 {
 		t.Fatalf("exit %d: %s", code, errb.String())
@@ -40,6 +41,7 @@ func TestLinesJSON(t *testing.T) {
 }
 
 func TestLinesTableAndPlot(t *testing.T) {
+	t.Parallel()
 	dir := t.TempDir()
 	fig := filepath.Join(dir, "band.svg")
 	var out, errb bytes.Buffer
@@ -55,6 +57,7 @@ func TestLinesTableAndPlot(t *testing.T) {
 }
 
 func TestLinesBadInput(t *testing.T) {
+	t.Parallel()
 	for _, args := range [][]string{
 		{"lines", "--pressure", "40 K"},
 		{"lines", "--temperature", "-5 K"},

@@ -8,6 +8,7 @@ import (
 )
 
 func TestExitCodes(t *testing.T) {
+	t.Parallel()
 	var out, errb bytes.Buffer
 	if code := run([]string{"nosuch"}, &out, &errb); code != 2 {
 		t.Errorf("unknown command: exit %d, want 2", code)

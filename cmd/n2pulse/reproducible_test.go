@@ -17,6 +17,7 @@ import (
 // digits). Separate processes, so that nothing is shared in memory; the cache is
 // $XDG_CACHE_HOME/n2pulse.
 func TestHeliumSweepReproducible(t *testing.T) {
+	t.Parallel()
 	if testing.Short() {
 		t.Skip("builds the command and runs 12 model points")
 	}

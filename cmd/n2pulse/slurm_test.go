@@ -16,7 +16,8 @@ import (
 // submits scripts/slurm/sweep-array.sh as a 4-task job array running the built binary on a
 // small sweep, merges the four shards and checks the merge is byte-identical to the same sweep
 // on one machine. It runs only with N2PULSE_SLURM=1 (it needs root and installs packages);
-// where the cluster cannot start it skips and says why.
+// where the cluster cannot start it skips and says why. Not parallel: it starts and stops a
+// machine-wide cluster.
 func TestSlurmJobArray(t *testing.T) {
 	if os.Getenv("N2PULSE_SLURM") != "1" {
 		t.Skip("set N2PULSE_SLURM=1 to run the Slurm job-array test (needs root; installs slurm-wlm and munge)")

@@ -41,7 +41,9 @@ func journalLines(path string) int {
 }
 
 // TestSweepSurvivesKill kills a sweep with SIGKILL after some points are journaled, resumes
-// it, and checks that results.csv is byte-identical to an uninterrupted sweep.
+// it, and checks that results.csv is byte-identical to an uninterrupted sweep. Not parallel:
+// the kill lands by polling the journal of another process, so the test keeps the machine to
+// itself rather than let other tests' load move that moment.
 func TestSweepSurvivesKill(t *testing.T) {
 	if testing.Short() {
 		t.Skip("builds the binary and runs 60 model points")
@@ -95,6 +97,7 @@ func TestSweepSurvivesKill(t *testing.T) {
 }
 
 func TestSweepCommandErrors(t *testing.T) {
+	t.Parallel()
 	dir := t.TempDir()
 	for _, c := range []struct {
 		args []string
@@ -122,6 +125,7 @@ func TestSweepCommandErrors(t *testing.T) {
 // TestShardedSweepMerges runs a sweep as three shards in-process, merges them and compares
 // with the unsharded sweep; merging two of three shards names the missing points.
 func TestShardedSweepMerges(t *testing.T) {
+	t.Parallel()
 	if testing.Short() {
 		t.Skip("runs 24 model points")
 	}

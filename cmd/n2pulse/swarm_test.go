@@ -11,6 +11,7 @@ import (
 )
 
 func TestSwarmCommand(t *testing.T) {
+	t.Parallel()
 	dir := t.TempDir()
 	out := filepath.Join(dir, "air.csv")
 	png := filepath.Join(dir, "air.png")
