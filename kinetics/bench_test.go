@@ -59,3 +59,21 @@ func BenchmarkRunSummaryOnly(b *testing.B) {
 	}
 	b.ReportMetric(float64(b.N)/b.Elapsed().Seconds(), "shots/s")
 }
+
+// BenchmarkRunOverlap times the shot of BenchmarkRunSummaryOnly with its circuit solved on a
+// goroutine of its own while the shot follows it (RunSettings.Overlap, as `n2pulse run`
+// takes it): on two idle cores it takes about the longer of the two instead of their sum.
+func BenchmarkRunOverlap(b *testing.B) {
+	d := design.ExampleDesign()
+	set := &RunSettings{SummaryOnly: true, Overlap: true}
+	if _, err := Run(d, set); err != nil { // warm the tables
+		b.Fatal(err)
+	}
+	b.ReportAllocs()
+	for b.Loop() {
+		if _, err := Run(d, set); err != nil {
+			b.Fatal(err)
+		}
+	}
+	b.ReportMetric(float64(b.N)/b.Elapsed().Seconds(), "shots/s")
+}

@@ -179,4 +179,12 @@ type RunSettings struct {
 	// so is the memory a run may take (MemoryLimit is checked as for a full run). For
 	// callers that print only the figures of merit.
 	SummaryOnly bool
+	// Overlap solves the circuit on a goroutine of its own while the shot follows it step
+	// by step, so that one run uses two cores; the results are the same bit for bit. For a
+	// caller that runs a single shot: callers that already run shots in parallel (sweeps,
+	// uncertainty samples) leave it off so as not to ask for more cores than there are.
+	// Without a second processor (GOMAXPROCS 1) it is ignored.
+	Overlap bool
+	// overlapAlways makes Overlap work with one processor too (for tests).
+	overlapAlways bool
 }

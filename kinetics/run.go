@@ -138,13 +138,10 @@ func followPulse(d *design.Design, table *swarm.Table, par *Parameters, s *RunSe
 		steps := int(math.Ceil(end / par.TimeStep))
 		circ := newCircuit(d, table)
 		par.GapCapacitance = circ.cg
-		wf, stats, err := solveCircuit(circ, d, par, steps, !s.Light && !s.SummaryOnly)
+		wf, res, sh, err := circuitAndShot(circ, d, par, steps, s)
 		if err != nil {
 			return nil, nil, nil, nil, 0, err
 		}
-		res := &Result{Parameters: *par, Stats: stats}
-		sh := newShot(d, &res.Parameters, wf, steps, s)
-		sh.run(res)
 		if !sh.unfinished() || end >= endCap {
 			return circ, wf, sh, res, end, nil
 		}
@@ -158,6 +155,35 @@ func followPulse(d *design.Design, table *swarm.Table, par *Parameters, s *RunSe
 		}
 		end = next
 	}
+}
+
+// circuitAndShot solves the circuit and takes the shot through steps. With
+// RunSettings.Overlap the two run at once (circuitFeed), else one after the other; the
+// results are the same bit for bit, and so is the error of a circuit that fails.
+func circuitAndShot(circ *circuit, d *design.Design, par *Parameters, steps int, s *RunSettings) (*waveforms, *Result, *shot, error) {
+	series := !s.Light && !s.SummaryOnly
+	if !overlapWanted(s) {
+		wf, stats, err := solveCircuit(circ, d, par, steps, series)
+		if err != nil {
+			return nil, nil, nil, err
+		}
+		res := &Result{Parameters: *par, Stats: stats}
+		sh := newShot(d, &res.Parameters, wf, steps, s)
+		sh.run(res)
+		return wf, res, sh, nil
+	}
+	res := &Result{Parameters: *par}
+	feed := startCircuit(circ, d, par, steps, series)
+	sh := newShot(d, &res.Parameters, feed.wf, steps, s)
+	sh.feed = feed
+	sh.run(res)
+	stats, err := feed.wait()
+	sh.feed = nil
+	if err != nil {
+		return nil, nil, nil, err
+	}
+	res.Stats.Circuit = stats.Circuit
+	return feed.wf, res, sh, nil
 }
 
 // dischargeSummary copies the figures of the circuit and discharge into the summary: stored

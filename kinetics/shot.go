@@ -38,9 +38,16 @@ type shot struct {
 	uniform  bool    // a simultaneous discharge: every cell has the same pump
 	pumpPeak float64 // highest C pump rate at mid-channel [m⁻³ s⁻¹]
 	lit      int     // optical steps propagated (between dawn and dark)
+	// ahead is the pump still to come (pumpToCome), made when shot.dark first needs it.
+	ahead *pumpAhead
 	// spare holds the arrays of pumpToCome (steps+1 values each), dead once run is done;
 	// summarise reuses them as scratch (shot.scratch) rather than allocate more.
 	spare [2][]float64
+	// feed, when not nil, is the circuit still being solved on another goroutine: step k
+	// waits for sample k (RunSettings.Overlap).
+	feed *circuitFeed
+	// decayed is how many steps of a travelling excitation's eC and wC are filled.
+	decayed int
 }
 
 func newShot(d *design.Design, p *Parameters, wf *waveforms, steps int, s *RunSettings) *shot {
@@ -116,7 +123,6 @@ func (sh *shot) run(res *Result) {
 		res.GainTime = make([]float64, 0, cols)
 	}
 	eC, wC := sh.upperDecay()
-	rest := sh.pumpToCome()
 	// Before the discharge the channel neither amplifies nor holds an upper level worth its
 	// spontaneous emission; the optics start ("dawn") once any cell's inversion would amplify
 	// by 1e-3 over the channel length. Spontaneous photons not emitted before then would have
@@ -135,6 +141,10 @@ func (sh *shot) run(res *Result) {
 			}
 			break
 		}
+		if sh.feed != nil && !sh.feed.await(k, sh.steps) {
+			return // the circuit failed: followPulse returns its error
+		}
+		sh.fillDecay(eC, wC, k)
 		var sum, maxInv float64
 		if lit && !dark {
 			sum, maxInv = sh.stepLit(pump, k, eC, wC)
@@ -142,27 +152,36 @@ func (sh *shot) run(res *Result) {
 			lit, sum, maxInv = sh.stepUnlit(pump, k, eC, wC, lit, dark, dawn)
 		}
 		if lit && !dark {
-			dark = sh.dark(rest, k, maxInv)
+			dark = sh.dark(k, maxInv)
 		}
 		sh.record(res, k, sum, lit, colEvery)
 	}
 	res.Stats.OpticalSteps = sh.lit
 	res.Stats.Cells = n
-	sh.spare = [2][]float64{rest.inv, rest.upper}
+	if sh.ahead != nil {
+		sh.spare = [2][]float64{sh.ahead.inv, sh.ahead.upper}
+	}
 }
 
 // upperDecay returns the decay factor e^(−Γ_C Δt) and the pump weight (1 − e^(−Γ_C Δt))/Γ_C of
 // C(0) for every step, for the cells of a travelling excitation, which read them at their own
-// delays; a simultaneous discharge takes each step's from decay as it goes (nil, nil here).
+// delays (up to the current step; shot.fillDecay fills them as the run goes); a simultaneous
+// discharge takes each step's from decay as it goes (nil, nil here).
 func (sh *shot) upperDecay() (eC, wC []float64) {
 	if sh.uniform {
 		return nil, nil
 	}
-	eC, wC = make([]float64, sh.steps), make([]float64, sh.steps)
-	for k := range eC {
-		eC[k], wC[k] = sh.decay(k)
+	return make([]float64, sh.steps), make([]float64, sh.steps)
+}
+
+// fillDecay fills eC and wC (upperDecay) up to step k, whose sample is final.
+func (sh *shot) fillDecay(eC, wC []float64, k int) {
+	if eC == nil {
+		return
 	}
-	return eC, wC
+	for ; sh.decayed <= k; sh.decayed++ {
+		eC[sh.decayed], wC[sh.decayed] = sh.decay(sh.decayed)
+	}
 }
 
 // decay is the decay factor and pump weight of C(0) at step k: they depend on time only
@@ -182,22 +201,82 @@ type pumpAhead struct {
 	inv      []float64 // ∫ max(0, P_C − g·P_B) dt from step k on [m⁻³]
 	upper    []float64 // ∫ P_C dt from step k on [m⁻³]
 	maxDelay int       // the longest excitation delay of a cell, in whole steps plus one
+	// top is where inv was started from zero: the whole run (steps) once the circuit is
+	// done; below it, inv holds lower bounds made while the circuit is still being solved
+	// (shot.surelyLit), and upper nothing yet.
+	top int
 }
 
 // at returns the index into the integrals for step k, early by the longest delay.
 func (a *pumpAhead) at(k int) int { return max(0, k-a.maxDelay) }
 
+// pumpToCome fills sh.ahead with the pump still to come over the whole run; every sample of
+// the discharge must be final.
 func (sh *shot) pumpToCome() *pumpAhead {
-	dt, g := sh.p.TimeStep, sh.p.DegeneracyRatio
-	a := &pumpAhead{inv: make([]float64, sh.steps+1), upper: make([]float64, sh.steps+1)}
-	for _, w := range sh.delayWhole {
-		a.maxDelay = max(a.maxDelay, w+1)
-	}
+	dt := sh.p.TimeStep
+	a := sh.aheadArrays()
+	a.inv[sh.steps], a.upper[sh.steps] = 0, 0
 	for k := sh.steps - 1; k >= 0; k-- {
-		a.inv[k] = a.inv[k+1] + max(0, sh.wf.pumpC[k]-g*sh.wf.pumpB[k])*dt
+		a.inv[k] = sh.invAhead(a.inv[k+1], k)
 		a.upper[k] = a.upper[k+1] + sh.wf.pumpC[k]*dt
 	}
+	a.top = sh.steps
 	return a
+}
+
+// aheadArrays returns sh.ahead, made (with its arrays of steps+1 values) the first time.
+func (sh *shot) aheadArrays() *pumpAhead {
+	if sh.ahead == nil {
+		a := &pumpAhead{inv: make([]float64, sh.steps+1), upper: make([]float64, sh.steps+1)}
+		for _, w := range sh.delayWhole {
+			a.maxDelay = max(a.maxDelay, w+1)
+		}
+		sh.ahead = a
+	}
+	return sh.ahead
+}
+
+// invAhead is pumpAhead.inv at step k given its value next at step k+1. The whole integral
+// and the partial ones of surelyLit both take it, so that they add the same terms.
+func (sh *shot) invAhead(next float64, k int) float64 {
+	return next + max(0, sh.wf.pumpC[k]-sh.p.DegeneracyRatio*sh.wf.pumpB[k])*sh.p.TimeStep
+}
+
+// surelyLit reports whether the channel at step k, with largest inversion maxInv, is surely
+// not dark while the circuit is still being solved (shot.feed), from the samples published so
+// far. The inversion still to come, summed from the last published sample down to step k
+// as pumpToCome sums it from the end of the run, is at most the whole sum: every term is
+// ≥ 0 (or NaN, which would make the whole sum NaN and the channel not dark either), and a
+// rounded sum does not fall when an addend grows. It is taken a part in 10⁹ lower still, so
+// that no rounding can make it exceed the whole. When the bound cannot decide, surelyLit
+// waits for more samples; it returns false once all are in (pumpToCome then decides) or
+// when the circuit failed.
+func (sh *shot) surelyLit(k int, maxInv, darkInversion float64) bool {
+	if !(maxInv < darkInversion) {
+		return true
+	}
+	a := sh.aheadArrays()
+	j := a.at(k)
+	for {
+		if j < a.top && !(maxInv+a.inv[j]*(1-1e-9) < darkInversion) {
+			return true
+		}
+		ready := int(sh.feed.ready.Load())
+		if ready >= sh.steps {
+			return false
+		}
+		if ready > a.top {
+			a.inv[ready] = 0
+			for i := ready - 1; i >= j; i-- {
+				a.inv[i] = sh.invAhead(a.inv[i+1], i)
+			}
+			a.top = ready
+			continue
+		}
+		if !sh.feed.await(ready, sh.steps) {
+			return false
+		}
+	}
 }
 
 // stepLit is one step while the optics run: pump, decay and both passes of every cell in one
@@ -270,11 +349,30 @@ func (sh *shot) stepUnlit(pump *pumpStep, k int, eC, wC []float64, lit, dark boo
 // (amplified by at most 10 %) and the light in flight; when those are below 1e-6 of the light
 // already out, the channel is dark: the optics stop, and a sweep's run ends. Photons in flight
 // stay counted as such, so the photon balance stays exact.
-func (sh *shot) dark(rest *pumpAhead, k int, maxInv float64) bool {
+//
+// The pump still to come needs the whole discharge: while the circuit is still being solved
+// (shot.feed), dark first asks surelyLit, which decides most steps from the samples in so
+// far, and waits for the rest of the circuit only when it cannot.
+func (sh *shot) dark(k int, maxInv float64) bool {
 	p, m, n := sh.p, sh.med, sh.d.Numerics.Cells
 	darkInversion := 0.1 / (p.CrossSection * sh.d.Channel.Length)
+	if !(p.UpperDecayRate >= p.LowerDecayRate) {
+		return false
+	}
+	if sh.ahead == nil || sh.ahead.top < sh.steps {
+		if sh.feed != nil {
+			if sh.surelyLit(k, maxInv, darkInversion) {
+				return false
+			}
+			if int(sh.feed.ready.Load()) < sh.steps {
+				return false // the circuit failed: followPulse returns its error
+			}
+		}
+		sh.pumpToCome()
+	}
+	rest := sh.ahead
 	j := rest.at(k)
-	if !(p.UpperDecayRate >= p.LowerDecayRate) || !(maxInv+rest.inv[j] < darkInversion) {
+	if !(maxInv+rest.inv[j] < darkInversion) {
 		return false
 	}
 	sumC := 0.0

@@ -34,6 +34,32 @@ type waveforms struct {
 // The channel current and E/N are kept as series only when series (for the Result's
 // waveforms); their peaks are taken either way.
 func solveCircuit(c *circuit, d *design.Design, par *Parameters, steps int, series bool) (*waveforms, Stats, error) {
+	w := newWaveforms(steps, series)
+	stats, err := fillCircuit(w, c, d, par, steps, series, nil)
+	if err != nil {
+		return nil, Stats{}, err
+	}
+	return w, stats, nil
+}
+
+// newWaveforms allocates the per-step arrays of a run of steps samples; the channel current
+// and E/N only when series.
+func newWaveforms(steps int, series bool) *waveforms {
+	w := &waveforms{
+		voltage: make([]float64, steps), density: make([]float64, steps),
+		pumpC: make([]float64, steps), pumpB: make([]float64, steps),
+		plasmaPower: make([]float64, steps), lossC: make([]float64, steps), mixB: make([]float64, steps),
+	}
+	if series {
+		w.current, w.field = make([]float64, steps), make([]float64, steps)
+	}
+	return w
+}
+
+// fillCircuit integrates the circuit into w (see solveCircuit). When feed is not nil it
+// publishes the samples to it as the integrator takes them: after each integrator step,
+// every sample up to that step's time is final.
+func fillCircuit(w *waveforms, c *circuit, d *design.Design, par *Parameters, steps int, series bool, feed *circuitFeed) (Stats, error) {
 	dt := par.TimeStep
 	y0, stored := c.initial(d.Circuit.ChargeVoltage, d.Discharge.SeedDensity)
 	v0 := d.Circuit.ChargeVoltage
@@ -55,17 +81,9 @@ func solveCircuit(c *circuit, d *design.Design, par *Parameters, steps int, seri
 	end := float64(steps) * dt
 	set := &ode.Settings{RelTol: d.Numerics.Tolerance, AbsTol: atol, MaxStep: end / 50, MaxSteps: 200000, Stops: []float64{end}}
 	if err := integ.Init(c, 0, y0, set); err != nil {
-		return nil, Stats{}, fmt.Errorf("kinetics: circuit: %w", err)
+		return Stats{}, fmt.Errorf("kinetics: circuit: %w", err)
 	}
-	w := &waveforms{
-		voltage: make([]float64, steps), density: make([]float64, steps),
-		pumpC: make([]float64, steps), pumpB: make([]float64, steps),
-		plasmaPower: make([]float64, steps), lossC: make([]float64, steps), mixB: make([]float64, steps),
-		stored: stored,
-	}
-	if series {
-		w.current, w.field = make([]float64, steps), make([]float64, steps)
-	}
+	w.stored = stored
 	_, hi := c.table.Range()
 	nX := c.density * d.Gas.Nitrogen
 	shareC, shareB := par.UpperShare*nX, par.LowerShare*nX
@@ -85,14 +103,14 @@ func solveCircuit(c *circuit, d *design.Design, par *Parameters, steps int, seri
 		if err != nil {
 			var se *ode.StepError
 			if errors.As(err, &se) {
-				return nil, Stats{}, fmt.Errorf("kinetics: circuit did not converge (tighten or loosen numerics.tolerance, check the circuit values): %w", err)
+				return Stats{}, fmt.Errorf("kinetics: circuit did not converge (tighten or loosen numerics.tolerance, check the circuit values): %w", err)
 			}
-			return nil, Stats{}, fmt.Errorf("kinetics: circuit: %w", err)
+			return Stats{}, fmt.Errorf("kinetics: circuit: %w", err)
 		}
 		for ; k < steps && (float64(k)+0.5)*dt <= t; k++ {
 			tk := (float64(k) + 0.5) * dt
 			if err := integ.Interpolate(tk, y); err != nil {
-				return nil, Stats{}, fmt.Errorf("kinetics: circuit: %w", err)
+				return Stats{}, fmt.Errorf("kinetics: circuit: %w", err)
 			}
 			ne := math.Exp(y[iLnNe])
 			smp := c.sample(y[iVg], ne)
@@ -133,6 +151,9 @@ func solveCircuit(c *circuit, d *design.Design, par *Parameters, steps int, seri
 				w.fieldAbove = true
 			}
 		}
+		if feed != nil {
+			feed.publish(k)
+		}
 	}
 	w.manifold, w.upperV1 = man, v1
 	_, yEnd := integ.State()
@@ -140,5 +161,5 @@ func solveCircuit(c *circuit, d *design.Design, par *Parameters, steps int, seri
 	left := c.storedEnergy(yEnd)
 	w.switchLoss, w.shuntLoss, w.left = yEnd[iESwitch], yEnd[iEShunt], left
 	w.energyResidual = math.Abs(stored-(left+yEnd[iESwitch]+yEnd[iEPlasma]+yEnd[iEShunt])) / stored
-	return w, Stats{Circuit: integ.Stats()}, nil
+	return Stats{Circuit: integ.Stats()}, nil
 }

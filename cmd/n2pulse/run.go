@@ -105,7 +105,9 @@ func runRun(args []string, stdout, stderr io.Writer) error {
 	}
 	// Without --out nothing draws the waveforms or the gain map: the run keeps only what the
 	// summary needs (the same summary, less memory to fill).
-	rs := &kinetics.RunSettings{SummaryOnly: *out == ""}
+	// The nominal run is a single shot: its circuit and optics share the two cores
+	// (RunSettings.Overlap). The --uncertainty samples run on the worker pool without it.
+	rs := &kinetics.RunSettings{SummaryOnly: *out == "", Overlap: true}
 	if *memLimit != "" {
 		b, err := sysmem.ParseBytes(*memLimit)
 		if err != nil {
