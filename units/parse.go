@@ -360,8 +360,12 @@ func parseFactor(t string) (baseUnit, int, int, error) {
 func Format(v float64, unit string) string { return FormatDigits(v, unit, 3) }
 
 // FormatDigits writes v (in the SI unit unit) with an SI prefix and the given number of
-// significant figures: FormatDigits(2666.4473684210525, "Pa", 6) is "2.66645 kPa".
+// significant figures: FormatDigits(2666.4473684210525, "Pa", 6) is "2.66645 kPa". A pure
+// number (unit "") gets no prefix: 0.25 is "0.25", never "250 m", which reads as metres.
 func FormatDigits(v float64, unit string, digits int) string {
+	if unit == "" {
+		return fmt.Sprintf("%.*g", digits, v)
+	}
 	if v == 0 || math.IsNaN(v) || math.IsInf(v, 0) {
 		return fmt.Sprintf("%.*g %s", digits, v, unit)
 	}

@@ -139,6 +139,12 @@ func TestFormat(t *testing.T) {
 			t.Errorf("Format(%g) = %q, want %q", v, got, want)
 		}
 	}
+	// A pure number takes no SI prefix (a share of 0.25 once printed as "250 m").
+	for v, want := range map[float64]string{0.25: "0.25", 1.5e-3: "0.0015", 200: "200", 3e5: "3e+05"} {
+		if got := Format(v, ""); got != want {
+			t.Errorf("Format(%g, \"\") = %q, want %q", v, got, want)
+		}
+	}
 }
 
 func TestUnitOf(t *testing.T) {

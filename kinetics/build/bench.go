@@ -325,7 +325,7 @@ func (b *Bench) rateSwitchGap(s Spec, c Conditions) error {
 		if vb, err := sg.Breakdown(ReducedPD(c.SwitchPressure, b.SwitchGap, 293.15)); err == nil {
 			b.SwitchBreakdown = vb
 			if vb < v0 {
-				b.stressf("the %s spark gap breaks down at %s (static, %s gas), below the charge voltage %s: self-breaking, the laser fires at about %s (a pressurised gap holds more)",
+				b.stressf("the %s spark gap breaks down at %s (static, %s gas), below the charge voltage %s: as described it self-breaks and the laser fires at about %s; the model still closes it at the full charge voltage, as a triggered or pressurised gap that holds would, so a run's results are for a switch this design does not describe",
 					units.Format(b.SwitchGap, "m"), units.Format(vb, "V"), sg.Name, units.Format(v0, "V"), units.Format(vb, "V"))
 			}
 		}

@@ -22,6 +22,8 @@ usage: python3 scripts/xsec/n2_sets.py N2_Phelps.txt data/
 """
 import sys
 
+from xsec_common import block
+
 PP85 = "A.V. Phelps & L.C. Pitchford, Phys. Rev. A 31, 2932 (1985)"
 CARTWRIGHT = "D.C. Cartwright, A. Chutjian, S. Trajmar & W. Williams, Phys. Rev. A 16, 1013 (1977)"
 SCHULZ = "G.J. Schulz, Phys. Rev. 135, A988 (1964)"
@@ -97,16 +99,6 @@ def parse(path):
     return out
 
 
-def block(kind, name, label, threshold, source, data):
-    s = ["process", "kind " + kind, "name " + name]
-    if label:
-        s.append("label " + label)
-    s.append("threshold_eV %g" % threshold)
-    s.append("source " + source)
-    s.append("data")
-    s += ["%.7g %.6g" % (e, x) for e, x in data]
-    s.append("end")
-    return "\n".join(s) + "\n"
 
 
 def tail(phelps, itikawa_si):

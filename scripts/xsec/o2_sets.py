@@ -31,6 +31,8 @@ usage: python3 scripts/xsec/o2_sets.py data/
 """
 import sys
 
+from xsec_common import block, elastic_from_effective, parse_community
+
 PHELPS = ("compilation of A.V. Phelps (the O2 set of S.A. Lawton & A.V. Phelps, J. Chem. Phys. 69, "
           "1055 (1978); the file read names only the compilation), read in the community-format "
           "copy in the public repository seth303/ArrheniusRates, bolsigdb.dat")
@@ -627,55 +629,10 @@ O2 -> O^- + O
 """
 
 
-def parse(text):
-    """Return the processes of the transcript as dicts (kind, product, param, data)."""
-    lines = text.split("\n")
-    out, i = [], 0
-    while i < len(lines):
-        kind = lines[i].strip()
-        if kind not in ("EFFECTIVE", "EXCITATION", "IONIZATION", "ATTACHMENT"):
-            i += 1
-            continue
-        product = lines[i + 1].split("->")[-1].strip()
-        j = i + 2
-        param = 0.0
-        if not lines[j].startswith("-----"):
-            param = float(lines[j].split()[0])
-            j += 1
-        assert lines[j].startswith("-----"), lines[j]
-        j += 1
-        data = []
-        while not lines[j].startswith("-----"):
-            e, s = lines[j].split()
-            data.append((float(e), float(s)))
-            j += 1
-        es = [e for e, _ in data]
-        assert es == sorted(es) and len(set(es)) == len(es), product
-        out.append({"kind": kind, "product": product, "param": param, "data": data})
-        i = j + 1
-    return out
 
 
-def interp(data, e):
-    """The solver's interpolation: zero below the first point, linear inside, last value beyond."""
-    if e < data[0][0]:
-        return 0.0
-    for (e0, s0), (e1, s1) in zip(data, data[1:]):
-        if e0 <= e <= e1:
-            return s0 + (s1 - s0) * (e - e0) / (e1 - e0)
-    return data[-1][1]
 
 
-def block(kind, name, label, threshold, source, data):
-    s = ["process", "kind " + kind, "name " + name]
-    if label:
-        s.append("label " + label)
-    s.append("threshold_eV %g" % threshold)
-    s.append("source " + source)
-    s.append("data")
-    s += ["%.7g %.6g" % (e, x) for e, x in data]
-    s.append("end")
-    return "\n".join(s) + "\n"
 
 
 HEADER = """# n2pulse electron-impact cross-section set: O2 (Phelps compilation)
@@ -696,17 +653,12 @@ mass_amu 31.9988
 
 def main():
     outdir = sys.argv[1].rstrip("/")
-    procs = parse(TRANSCRIPT)
+    procs = parse_community(TRANSCRIPT)
     assert len(procs) == 16, len(procs)
     eff = procs[0]
     assert eff["kind"] == "EFFECTIVE"
     inel = procs[1:]
-    grid = sorted({e for p in procs for e, _ in p["data"]})
-    elastic = []
-    for e in grid:
-        s = interp(eff["data"], e) - sum(interp(p["data"], e) for p in inel)
-        assert s > 0, (e, s)
-        elastic.append((e, s))
+    elastic = elastic_from_effective(eff, inel)
     body = [HEADER]
     for p in procs:
         kind, name, label, source = SOURCES[p["product"]]
