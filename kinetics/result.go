@@ -51,6 +51,8 @@ type Summary struct {
 	Energy                  EnergyAccount `json:"energy_account"`            // where the stored energy went
 	UniformGlow             bool          `json:"uniform_glow"`              // every limit of the uniform-glow regime is kept (see Regime); if not, the prediction is an upper bound
 	Regime                  []RegimeCheck `json:"regime_checks"`             // the shot against each limit of a uniform glow
+	SwitchHoldsCharge       bool          `json:"switch_holds_charge"`       // the spark gap as described holds the charge voltage (its static breakdown is above it, or unknown); if not, the shot is for a gap that holds, not the one described
+	SwitchBreakdown         float64       `json:"switch_breakdown_V"`        // static breakdown of the spark gap as described [V]; 0 when the design does not describe the gap
 	EnergyBalanceResidual   float64       `json:"energy_balance_residual"`   // |stored − (left + dissipated)| / stored
 	PhotonBalanceResidual   float64       `json:"photon_balance_residual"`   // |created − (emitted + lost + left)| / created
 	Lases                   bool          `json:"lases"`                     // the lasing threshold of the channel's optics is reached: open channel gL ≥ 10, one mirror 2gL + ln R ≥ 10, two mirrors building up e^10 within the gain (see Verdict)

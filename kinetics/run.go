@@ -78,10 +78,13 @@ func Run(d *design.Design, s *RunSettings) (*Result, error) {
 	}
 	// The apparatus as `bench` rates it: a run repeats its stress warnings when the design has
 	// the data (a [build] section, a spark gap).
+	res.Summary.SwitchHoldsCharge = true
 	if b, err := Bench(d, d.Build); err == nil {
 		for _, w := range b.Stresses {
 			res.Warnings = append(res.Warnings, "apparatus: "+w)
 		}
+		res.Summary.SwitchBreakdown = b.SwitchBreakdown
+		res.Summary.SwitchHoldsCharge = b.SwitchBreakdown == 0 || b.SwitchBreakdown >= d.Circuit.ChargeVoltage
 	}
 	if d.Gas.Helium > 0 {
 		res.Summary.Validity = HeliumNote
@@ -96,10 +99,21 @@ func Run(d *design.Design, s *RunSettings) (*Result, error) {
 		res.Summary.UniformGlow = false
 		res.Summary.Verdict += "; " + note
 	}
+	if !res.Summary.SwitchHoldsCharge {
+		res.Summary.Verdict += "; " + switchNote(res.Summary.SwitchBreakdown, d.Circuit.ChargeVoltage)
+	}
 	if s.Light || s.SummaryOnly {
 		res.dropSeries()
 	}
 	return res, nil
+}
+
+// switchNote is the verdict's clause for a spark gap that self-breaks below the charge
+// voltage: the shot was computed as if the gap held until closure, which the design as
+// described cannot do.
+func switchNote(breakdown, charge float64) string {
+	return fmt.Sprintf("the spark gap as described self-breaks at %s, below the %s charge: this result is for a triggered or pressurised gap that holds the full charge, not for the gap described",
+		units.Format(breakdown, "V"), units.Format(charge, "V"))
 }
 
 // HeliumNote is the validity note of a design with helium: the model has no helium kinetics,
