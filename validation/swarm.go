@@ -81,23 +81,31 @@ func crossing(f func(en float64) (float64, error), lo, hi float64) (float64, err
 	return math.Sqrt(lo * hi), nil
 }
 
+// pureAndAirSolvers returns two-term Boltzmann solvers for pure N₂ and for dry air made of the
+// named cross-section set.
+func pureAndAirSolvers(set string) (n2, air *swarm.Solver, err error) {
+	n2mix, err := swarm.SetMixture(set, 1, 0, 0)
+	if err != nil {
+		return nil, nil, err
+	}
+	airmix, err := swarm.SetMixture(set, swarm.AirNitrogen, swarm.AirOxygen, 0)
+	if err != nil {
+		return nil, nil, err
+	}
+	if n2, err = swarm.NewSolver(n2mix, nil); err != nil {
+		return nil, nil, err
+	}
+	if air, err = swarm.NewSolver(airmix, nil); err != nil {
+		return nil, nil, err
+	}
+	return n2, air, nil
+}
+
 // swarmChecks compare the two-term Boltzmann solutions for N₂ and air with published swarm
 // data, the shipped cross sections with published totals, and the solver with its analytic
 // limits and conservation laws.
 func swarmChecks() ([]Check, error) {
-	n2mix, err := swarm.Mixture(1, 0, 0)
-	if err != nil {
-		return nil, err
-	}
-	airmix, err := swarm.Mixture(swarm.AirNitrogen, swarm.AirOxygen, 0)
-	if err != nil {
-		return nil, err
-	}
-	n2, err := swarm.NewSolver(n2mix, nil)
-	if err != nil {
-		return nil, err
-	}
-	air, err := swarm.NewSolver(airmix, nil)
+	n2, air, err := pureAndAirSolvers(swarm.DefaultSet)
 	if err != nil {
 		return nil, err
 	}

@@ -22,19 +22,7 @@ func crossSectionSetChecks() ([]Check, error) {
 		if set == swarm.DefaultSet {
 			continue // checked in swarmChecks
 		}
-		n2mix, err := swarm.SetMixture(set, 1, 0, 0)
-		if err != nil {
-			return nil, err
-		}
-		airmix, err := swarm.SetMixture(set, swarm.AirNitrogen, swarm.AirOxygen, 0)
-		if err != nil {
-			return nil, err
-		}
-		n2, err := swarm.NewSolver(n2mix, nil)
-		if err != nil {
-			return nil, err
-		}
-		air, err := swarm.NewSolver(airmix, nil)
+		n2, air, err := pureAndAirSolvers(set)
 		if err != nil {
 			return nil, err
 		}
