@@ -15,7 +15,7 @@ usage: python3 scripts/xsec/he_set.py data/
 """
 import sys
 
-from xsec_common import block, elastic_from_effective, parse_community
+from xsec_common import write_from_effective
 
 PHELPS = ("compilation of A.V. Phelps, read in the community-format copy in the public repository "
           "seth303/ArrheniusRates, bolsigdb.dat")
@@ -170,19 +170,7 @@ mass_amu 4.002602
 
 def main():
     outdir = sys.argv[1].rstrip("/")
-    procs = parse_community(TRANSCRIPT)
-    assert len(procs) == 3, len(procs)
-    eff, inel = procs[0], procs[1:]
-    elastic = elastic_from_effective(eff, inel)
-    body = [HEADER]
-    for p in procs:
-        kind, name, label, source = SOURCES[p["product"]]
-        if p["kind"] == "EFFECTIVE":
-            body.append(block(kind, name, label, 0, source, elastic))
-        else:
-            body.append(block(kind, name, label, p["param"], source, p["data"]))
-    with open(outdir + "/xsec-he.txt", "w") as fh:
-        fh.write("\n".join(body))
+    write_from_effective(outdir + "/xsec-he.txt", HEADER, TRANSCRIPT, 3, SOURCES)
 
 
 if __name__ == "__main__":

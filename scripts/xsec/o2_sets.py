@@ -31,7 +31,7 @@ usage: python3 scripts/xsec/o2_sets.py data/
 """
 import sys
 
-from xsec_common import block, elastic_from_effective, parse_community
+from xsec_common import write_from_effective
 
 PHELPS = ("compilation of A.V. Phelps (the O2 set of S.A. Lawton & A.V. Phelps, J. Chem. Phys. 69, "
           "1055 (1978); the file read names only the compilation), read in the community-format "
@@ -653,24 +653,7 @@ mass_amu 31.9988
 
 def main():
     outdir = sys.argv[1].rstrip("/")
-    procs = parse_community(TRANSCRIPT)
-    assert len(procs) == 16, len(procs)
-    eff = procs[0]
-    assert eff["kind"] == "EFFECTIVE"
-    inel = procs[1:]
-    elastic = elastic_from_effective(eff, inel)
-    body = [HEADER]
-    for p in procs:
-        kind, name, label, source = SOURCES[p["product"]]
-        if p["kind"] == "EFFECTIVE":
-            body.append(block(kind, name, label, 0, source, elastic))
-            continue
-        thr = p["param"]
-        if p["kind"] == "ATTACHMENT":
-            thr = 0  # the community format gives attachment no energy loss
-        body.append(block(kind, name, label, thr, source, p["data"]))
-    with open(outdir + "/xsec-o2-phelps.txt", "w") as fh:
-        fh.write("\n".join(body))
+    write_from_effective(outdir + "/xsec-o2-phelps.txt", HEADER, TRANSCRIPT, 16, SOURCES)
 
 
 if __name__ == "__main__":

@@ -81,3 +81,26 @@ def block(kind, name, label, threshold, source, data):
     s += ["%.7g %.6g" % (e, x) for e, x in data]
     s.append("end")
     return "\n".join(s) + "\n"
+
+
+def write_from_effective(path, header, text, count, sources):
+    """Write a set distributed with a total (effective) momentum-transfer cross section as
+    n2pulse's format: the first process of the community-format text must be the effective
+    one, turned into elastic momentum transfer (elastic_from_effective); count is the number
+    of processes expected; sources maps each product to (kind, name, label, source). An
+    attachment process gets threshold 0 (the community format gives it no energy loss)."""
+    procs = parse_community(text)
+    assert len(procs) == count, len(procs)
+    eff, inel = procs[0], procs[1:]
+    assert eff["kind"] == "EFFECTIVE"
+    elastic = elastic_from_effective(eff, inel)
+    body = [header]
+    for p in procs:
+        kind, name, label, source = sources[p["product"]]
+        if p["kind"] == "EFFECTIVE":
+            body.append(block(kind, name, label, 0, source, elastic))
+            continue
+        thr = 0 if p["kind"] == "ATTACHMENT" else p["param"]
+        body.append(block(kind, name, label, thr, source, p["data"]))
+    with open(path, "w") as fh:
+        fh.write("\n".join(body))
