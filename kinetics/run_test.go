@@ -67,14 +67,8 @@ func TestSternVolmer(t *testing.T) {
 	d.Gas.Temperature = 293
 	d.Spectroscopy.UpperLifetime = 40.8e-9
 	d.Spectroscopy.EinsteinA00 = 1e7
-	par, _, err := laserParameters(d)
-	if err != nil {
-		t.Fatal(err)
-	}
+	par := faintParameters(t, d)
 	n := d.Numerics.Cells
-	par.CellLength = d.Channel.Length / float64(n)
-	par.TimeStep = par.CellLength / 299792458.0
-	par.OpticalArea = 1e-12 // no photons to speak of
 	steps := 3000
 	wf := &waveforms{pumpC: make([]float64, steps), pumpB: make([]float64, steps), density: make([]float64, steps)}
 	sh := newShot(d, &par, wf, steps, &RunSettings{})
@@ -130,4 +124,19 @@ func TestApertureSolidAngle(t *testing.T) {
 	if got, want := apertureSolidAngle(a, r), 2*math.Pi*(1-1/math.Sqrt2); math.Abs(got-want) > 1e-12 {
 		t.Errorf("L = r: %g sr, want %g", got, want)
 	}
+}
+
+// faintParameters returns the laser parameters of d on its cell grid (one cell per optical
+// time step) with an optical area so small that no photons to speak of are made: a shot that
+// follows the level populations alone.
+func faintParameters(t *testing.T, d *design.Design) Parameters {
+	t.Helper()
+	par, _, err := laserParameters(d)
+	if err != nil {
+		t.Fatal(err)
+	}
+	par.CellLength = d.Channel.Length / float64(d.Numerics.Cells)
+	par.TimeStep = par.CellLength / 299792458.0
+	par.OpticalArea = 1e-12
+	return par
 }

@@ -97,14 +97,8 @@ func TestSuperelasticIntoLower(t *testing.T) {
 	for _, v := range []float64{math.Inf(1), 2e8} {
 		d := design.ExampleDesign()
 		d.Optics.ExcitationVelocity = v
-		par, _, err := laserParameters(d)
-		if err != nil {
-			t.Fatal(err)
-		}
+		par := faintParameters(t, d)
 		n := d.Numerics.Cells
-		par.CellLength = d.Channel.Length / float64(n)
-		par.TimeStep = par.CellLength / 299792458.0
-		par.OpticalArea = 1e-12 // no photons to speak of
 		steps := 3000
 		const loss, mix = 4e7, 1.5e7 // electrons' loss of C(0) and the part into B(0) [s⁻¹]
 		wf := &waveforms{pumpC: make([]float64, steps), pumpB: make([]float64, steps), density: make([]float64, steps),
