@@ -79,8 +79,8 @@ func newSamplePlan(base *design.Design, hold []string, n int, seed uint64) (*sam
 	for _, k := range hold {
 		used[k] = false
 	}
-	// The plan keeps its own copy: a caller may run the base (and running validates it, which
-	// rewrites some of its strings in place) while other workers make samples from the plan.
+	// The plan keeps its own copy, so that a caller may change the base (a sweep point's
+	// design, say) while other workers make samples from the plan.
 	p := &samplePlan{base: base.Clone()}
 	for _, s := range design.Spreads() {
 		if used[s.Key] {
