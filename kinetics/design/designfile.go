@@ -207,6 +207,10 @@ func (d *Design) Validate() error {
 		return &KeyError{Key: "switch.off_resistance", Value: fmt.Sprintf("%g Ω", d.Switch.OffResistance),
 			Problem: fmt.Sprintf("must exceed switch.on_resistance (%g Ω)", d.Switch.OnResistance)}
 	}
+	if l := d.Levels; l.RecombinationUpperShare+l.RecombinationLowerShare > 1+1e-12 {
+		return &KeyError{Key: "levels.recombination_lower_share", Value: fmt.Sprintf("%g", l.RecombinationLowerShare),
+			Problem: fmt.Sprintf("with levels.recombination_upper_share (%g) the shares sum above 1", l.RecombinationUpperShare)}
+	}
 	if d.Numerics.Cells < 4 {
 		return &KeyError{Key: "numerics.cells", Value: strconv.Itoa(d.Numerics.Cells), Problem: "allowed 4 to 20000"}
 	}
