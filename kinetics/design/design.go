@@ -35,6 +35,9 @@ type Design struct {
 
 	// given holds the keys given in the file or by Set; nil for a design made in code.
 	given map[string]bool
+	// assigned holds the keys assigned by Set (the command line's --set, a sweep's grid
+	// value): always pinned (see Pinned).
+	assigned map[string]bool
 }
 
 // Channel is the laser channel between the two electrode rails.

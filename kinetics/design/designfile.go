@@ -244,6 +244,7 @@ func (d *Design) Clone() *Design {
 	c := *d
 	c.Derived = append([]string(nil), d.Derived...)
 	c.given = maps.Clone(d.given)
+	c.assigned = maps.Clone(d.assigned)
 	return &c
 }
 

@@ -202,6 +202,10 @@ func (d *Design) Set(key, value string) error {
 		d.given = map[string]bool{}
 	}
 	d.given[key] = true
+	if d.assigned == nil {
+		d.assigned = map[string]bool{}
+	}
+	d.assigned[key] = true
 	if i := slices.Index(d.Derived, key); i >= 0 {
 		d.Derived = slices.Delete(slices.Clone(d.Derived), i, i+1)
 	}
@@ -209,6 +213,33 @@ func (d *Design) Set(key, value string) error {
 		_ = d.rederive() // an inconsistent build is reported by Validate
 	}
 	return nil
+}
+
+// Pinned reports whether the user fixed the value of key, so that an uncertainty study holds
+// it instead of sampling it. The rule: a key assigned by Set (as run's --set does, or a
+// sweep's grid) is pinned, whatever its value; a key written in the design file is pinned when
+// its value differs from the default of Defaults. So a file that lists every key at its
+// default, as `n2pulse init` writes one, pins nothing, and a constant written at its default
+// value in a file is sampled: to hold a constant at its default, give it with --set.
+func (d *Design) Pinned(key string) bool {
+	if d.assigned[key] {
+		return true
+	}
+	if !d.given[key] {
+		return false
+	}
+	f, ok := fieldIndex[key]
+	if !ok {
+		return false
+	}
+	def := Defaults()
+	switch {
+	case f.str != nil:
+		return *f.str(d) != *f.str(def)
+	case f.integer:
+		return d.Numerics.Cells != def.Numerics.Cells
+	}
+	return *f.num(d) != *f.num(def)
 }
 
 // set assigns one key from text without the bookkeeping of Set.
