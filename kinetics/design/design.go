@@ -130,6 +130,11 @@ type Levels struct {
 	ManifoldShare              float64 // share of the manifold's relaxation by N₂ that ends in B(0)
 	ManifoldRelaxationNitrogen float64 // total collisional relaxation of the manifold by N₂ [m³/s]
 	ManifoldRelaxationOxygen   float64 // total collisional removal of the manifold by O₂ (none into B(0)) [m³/s]
+
+	// FastHeatingShare is the share of the energy the electrons put into electronic states,
+	// dissociation and ionisation that heats the gas within the shot ("fast gas heating");
+	// the gas temperature it raises lowers the gain cross section.
+	FastHeatingShare float64
 }
 
 // Optics holds the ends of the channel, the distributed loss and the excitation front.

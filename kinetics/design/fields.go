@@ -86,6 +86,7 @@ var fieldList = []field{
 	{key: "levels.manifold_share", dim: units.Dimensionless, num: func(d *Design) *float64 { return &d.Levels.ManifoldShare }, min: 0, max: 1, help: "share of the B(v>0)/W/B′ manifold's relaxation by N₂ that ends in B(0) (no measured value; derived 0.25, range 0.05–0.37)"},
 	{key: "levels.manifold_relaxation_nitrogen", dim: units.RateConstant, unit: "m³/s", num: func(d *Design) *float64 { return &d.Levels.ManifoldRelaxationNitrogen }, min: 0, max: 1e-14, help: "collisional relaxation of the B(v>0)/W/B′ manifold by N₂"},
 	{key: "levels.manifold_relaxation_oxygen", dim: units.RateConstant, unit: "m³/s", num: func(d *Design) *float64 { return &d.Levels.ManifoldRelaxationOxygen }, min: 0, max: 1e-14, help: "removal of the B(v>0)/W/B′ manifold by O₂"},
+	{key: "levels.fast_heating_share", dim: units.Dimensionless, num: func(d *Design) *float64 { return &d.Levels.FastHeatingShare }, min: 0, max: 1, help: "share of the electrons' electronic, dissociation and ionisation energy that heats the gas within the shot (estimate 0.1, range 0–0.3); the gas temperature lowers the gain cross section"},
 
 	{key: "optics.rear_reflectivity", dim: units.Dimensionless, num: func(d *Design) *float64 { return &d.Optics.RearReflectivity }, min: 0, max: 1, help: "power reflectivity at the rear end (z = 0)"},
 	{key: "optics.front_reflectivity", dim: units.Dimensionless, num: func(d *Design) *float64 { return &d.Optics.FrontReflectivity }, min: 0, max: 0.999, help: "power reflectivity at the output end (z = L)"},
