@@ -139,11 +139,12 @@ func (c *circuit) plasmaCurrent(vg, ne float64) (current, net float64) {
 // dischargeSample is what the waveforms take of the discharge at one sample of channel voltage vg [V]
 // and electron density ne [m⁻³], from one lookup of the swarm table (counted once; circuit.sample): the rate
 // coefficients for X → B³Πg, X → C³Πu, X → W³Δu and X → B′³Σu⁻ [m³/s] (W and B′ zero for a
-// table without them), the mean electron energy [J], the plasma current e·n_e·v_d·A with the
+// table without them) and for ionisation, the mean electron energy [J], the plasma current e·n_e·v_d·A with the
 // sign of vg [A], and the share of the plasma power taken by each channel of the swarm's power
 // split (split false when the table has none).
 type dischargeSample struct {
 	kB, kC, kW, kBp, mean float64
+	kIon                  float64 // ionisation rate coefficient [m³/s]
 	current               float64
 	share                 [swarm.NumChannels]float64
 	split                 bool
@@ -154,7 +155,7 @@ func (c *circuit) sample(vg, ne float64) dischargeSample {
 	c.count(en)
 	var k [nRates]float64
 	c.rates.at(en, rateDrift, nRates, &k, nil)
-	s := dischargeSample{kB: k[rateExcB], kC: k[rateExcC], kW: k[rateExcW], kBp: k[rateExcBp], mean: k[rateMean],
+	s := dischargeSample{kB: k[rateExcB], kC: k[rateExcC], kW: k[rateExcW], kBp: k[rateExcBp], mean: k[rateMean], kIon: k[rateIon],
 		current: math.Copysign(units.ElementaryCharge*ne*k[rateDrift]*c.area, vg)}
 	sum := 0.0
 	for _, p := range k[ratePower:] {

@@ -12,7 +12,13 @@ import (
 // the circuit and the optics of one shot can be timed apart.
 func phaseSetup(b *testing.B) (*design.Design, *circuit, *Parameters, int) {
 	b.Helper()
-	d := design.ExampleDesign()
+	return circuitSetup(b, design.ExampleDesign())
+}
+
+// circuitSetup prepares the circuit, the parameters and the number of optical steps of design
+// d as Run does.
+func circuitSetup(b testing.TB, d *design.Design) (*design.Design, *circuit, *Parameters, int) {
+	b.Helper()
 	table, err := swarmTable(d, "")
 	if err != nil {
 		b.Fatal(err)

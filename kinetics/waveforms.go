@@ -23,6 +23,7 @@ type waveforms struct {
 	plasmaSampled                    float64                    // Σ plasma power × Δt over the samples [J]
 	plasmaPower                      []float64                  // plasma power at each sample [W]
 	manifold, upperV1                *reservoir                 // the B(v>0)/W/B′ and C(v=1) reservoirs over the run
+	recombined                       float64                    // ∫ β·n_e²·x(N₄⁺) dt over the samples: electron–N₄⁺ recombinations [m⁻³]
 	gasT                             []float64                  // gas temperature of the discharge volume at the end of each step [K]
 	heating                          *gasHeating                // the heat put into the gas over the run
 	split                            bool                       // the swarm table has a power split
@@ -100,6 +101,10 @@ func fillCircuit(w *waveforms, c *circuit, d *design.Design, par *Parameters, st
 	toB := nX*d.Levels.UpperQuenchingNitrogen + (1/par.UpperLifetime - par.EinsteinA00)
 	toBv1 := nX*d.Levels.UpperV1QuenchingNitrogen + 1/par.UpperLifetime
 	eScale := d.Levels.UpperElectronScale
+	// Electron–N₄⁺ recombination leaves N₂(C) and N₂(B) (design.Levels.RecombinationUpperShare,
+	// RecombinationLowerShare); the N₄⁺ share of the ions is followed by ionShares.
+	ions := newIonShares(d.Gas, c.density, dt)
+	recC, recB := d.Levels.RecombinationUpperShare, d.Levels.RecombinationLowerShare
 	y := make([]float64, nState)
 	k := 0
 	for k < steps {
@@ -134,11 +139,16 @@ func fillCircuit(w *waveforms, c *circuit, d *design.Design, par *Parameters, st
 				// transition strength, A₀₀·τ_C; the rest lands in B(v>0), the manifold.
 				w.mixB[k] = sup * par.EinsteinA00 * par.UpperLifetime
 			}
-			w.pumpC[k] = kC*ne*shareC + v1.step(kC*ne*shareC1)
+			var rec float64 // recombinations of electrons with N₄⁺ [m⁻³ s⁻¹]
+			if x4 := ions.step(smp.kIon * c.density); !c.fixed {
+				rec = c.beta * ne * ne * x4
+			}
+			w.recombined += rec * dt
+			w.pumpC[k] = kC*ne*shareC + v1.step(kC*ne*shareC1) + recC*rec
 			// What leaves C(0) and C(v=1) for the B state feeds the manifold (see upperShadow).
 			cMean := shadow.step(w.pumpC[k], par.UpperDecayRate+d.Levels.UpperElectronMixing*ne+w.lossC[k])
 			fromC := cMean*(toB+sup*(1-par.EinsteinA00*par.UpperLifetime)) + v1.r*toBv1
-			w.pumpB[k] = kB*ne*shareB + man.step(((1-par.LowerShare)*kB+kW+kBp)*ne*nX+fromC)
+			w.pumpB[k] = kB*ne*shareB + man.step(((1-par.LowerShare)*kB+kW+kBp)*ne*nX+fromC+recB*rec)
 			if share, ok := smp.share, smp.split; ok {
 				pw := y[iVg] * smp.current * dt
 				w.plasmaPower[k] = pw / dt

@@ -77,7 +77,7 @@ func runCompare(args []string, stdout, stderr io.Writer) error {
 	sets := fs.StringArray("set", nil, `override a design key in every design, e.g. --set gas.pressure="40 Torr" (repeatable)`)
 	out := fs.String("out", "compare", `directory for compare.csv, the figure compare.png/.svg and report.html ("" writes none)`)
 	asJSON := fs.Bool("json", false, "print the comparison as JSON on stdout (SI units)")
-	samples := fs.Int("uncertainty", 0, fmt.Sprintf("also run every design over the same N samples of the uncertain constants (Latin hypercube, %d…%d): each figure's 5–95 %% band and the band of each ratio to the first design", study.MinSamples, study.MaxSamples))
+	samples := fs.Int("uncertainty", 0, fmt.Sprintf("also run every design over the same N samples of the uncertain constants (Latin hypercube, %d…%d; a constant a design gives at a value other than its default is held in that design): each figure's 5–95 %% band and the band of each ratio to the first design", study.MinSamples, study.MaxSamples))
 	seed := fs.Uint64("seed", 1, "seed of the --uncertainty samples (the same seed gives the same bands on any machine and worker count)")
 	if help, err := parseFlags(fs, args); help || err != nil {
 		return err

@@ -41,7 +41,7 @@ func runLength(args []string, stdout, stderr io.Writer) error {
 	memLimit := fs.String("memory-limit", "", `largest memory all lengths computed at once may take, e.g. "8 GB" (default: half the machine's memory); each length gets its share`)
 	asJSON := fs.Bool("json", false, "print the scan as JSON on stdout (SI units) instead of a table")
 	scale := fs.Bool("scale-capacitors", true, "grow both capacitors in proportion to the channel length (Blumlein plates running along the channel); --scale-capacitors=false keeps the design's circuit at every length")
-	samples := fs.Int("uncertainty", 0, fmt.Sprintf("also run every length over N samples of the uncertain constants (Latin hypercube, %d…%d): the 5–95 %% band of every figure and of the useful length, with the constants that drive them", study.MinSamples, study.MaxSamples))
+	samples := fs.Int("uncertainty", 0, fmt.Sprintf("also run every length over N samples of the uncertain constants (Latin hypercube, %d…%d; a constant given with --set or in the design file at a value other than its default is held): the 5–95 %% band of every figure and of the useful length, with the constants that drive them", study.MinSamples, study.MaxSamples))
 	seed := fs.Uint64("seed", 1, "seed of the --uncertainty samples (the same seed gives the same scan on any machine and worker count)")
 	if help, err := parseFlags(fs, args); help || err != nil {
 		return err

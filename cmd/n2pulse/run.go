@@ -91,7 +91,7 @@ func runRun(args []string, stdout, stderr io.Writer) error {
 	memLimit := fs.String("memory-limit", "", `largest memory the run's arrays may take, e.g. "8 GB" (default: half the machine's memory)`)
 	detector := fs.String("detector", "", `time constant of the detector for the FWHM, e.g. "300 ps" (default: an ideal detector)`)
 	sensitivity := fs.Bool("sensitivity", false, "rank the design keys, and apart from them the uncertain physical constants, by d ln E / d ln x (re-runs the design twice per key)")
-	samples := fs.Int("uncertainty", 0, "also run N samples of the uncertain constants (Latin hypercube) and print the 5–95 % band of the pulse energy, peak power and FWHM with the constants that drive them")
+	samples := fs.Int("uncertainty", 0, "also run N samples of the uncertain constants (Latin hypercube) and print the 5–95 % band of the pulse energy, peak power and FWHM with the constants that drive them; a constant given with --set, or in the design file at a value other than its default, is held, not sampled")
 	seed := fs.Uint64("seed", 1, "seed of the --uncertainty samples (the same seed gives the same samples on any machine and worker count)")
 	if help, err := parseFlags(fs, args); help || err != nil {
 		return err

@@ -43,7 +43,7 @@ func runSweep(args []string, stdout, stderr io.Writer) error {
 	shardText := fs.String("shard", "", "compute only shard K of N (point i belongs to shard i mod N + 1); default from SLURM_ARRAY_TASK_ID when set")
 	quiet := fs.Bool("quiet", false, "no progress line")
 	asJSON := fs.Bool("json", false, "print the optimum of each metric as JSON on stdout instead of a table")
-	samples := fs.Int("uncertainty", 0, fmt.Sprintf("also run every point over N samples of the uncertain constants (Latin hypercube, %d…%d; the varied keys keep their grid values): results.csv gains <figure>_p05/_p50/_p95 columns, the drivers and a note per point", study.MinSamples, study.MaxSamples))
+	samples := fs.Int("uncertainty", 0, fmt.Sprintf("also run every point over N samples of the uncertain constants (Latin hypercube, %d…%d; the varied keys keep their grid values, and so does a constant given with --set or in the design file at a value other than its default): results.csv gains <figure>_p05/_p50/_p95 columns, the drivers and a note per point", study.MinSamples, study.MaxSamples))
 	seed := fs.Uint64("seed", 1, "seed of the --uncertainty samples (the same seed gives the same table on any machine and worker count)")
 	if help, err := parseFlags(fs, args); help || err != nil {
 		return err

@@ -35,6 +35,9 @@ func printUncertainty(w io.Writer, r *study.UncertaintyResult) {
 		fmt.Fprintf(w, "; %d truncated (pulse outlasted the run)", r.Truncated)
 	}
 	fmt.Fprintln(w)
+	if len(r.Held) > 0 {
+		fmt.Fprintf(w, "  held at the design's values, not sampled: %s\n", heldText(r.Held))
+	}
 	ok := r.Samples - r.Failed
 	switch {
 	case r.MayNotLase():
@@ -60,7 +63,7 @@ func printUncertainty(w io.Writer, r *study.UncertaintyResult) {
 }
 
 // uncertaintyJSON is the "uncertainty" block of run --json: samples, seed, the sampled
-// constants, failed, truncated and lasing counts, may_not_lase (the samples straddle the
+// constants, "held" (the constants the design pins, held at its values: study.HeldConstants), failed, truncated and lasing counts, may_not_lase (the samples straddle the
 // threshold), "<figure>_p05", "<figure>_p50" and "<figure>_p95" for
 // every numeric figure of merit with a band, and "drivers": per figure, the constants by
 // decreasing |rank correlation|. nil gives nil (no block).
@@ -68,7 +71,11 @@ func uncertaintyJSON(r *study.UncertaintyResult) map[string]any {
 	if r == nil {
 		return nil
 	}
-	out := map[string]any{"samples": r.Samples, "seed": r.Seed, "constants": r.Keys,
+	held := r.Held
+	if held == nil {
+		held = []string{}
+	}
+	out := map[string]any{"samples": r.Samples, "seed": r.Seed, "constants": r.Keys, "held": held,
 		"failed": r.Failed, "truncated": r.Truncated, "lasing": r.Lasing, "may_not_lase": r.MayNotLase()}
 	drivers := map[string][]study.Driver{}
 	for _, m := range r.Metrics {
@@ -115,6 +122,9 @@ func uncertaintySection(u *study.UncertaintyResult, env *study.Envelope) report.
 	sec := report.Section{Heading: "Uncertainty bands"}
 	sec.Paragraphs = append(sec.Paragraphs, fmt.Sprintf("%d samples of the uncertain constants (Latin hypercube, seed %d): %s. The constants, their ranges and sources are listed in package kinetics/design (Spreads).",
 		u.Samples, u.Seed, strings.Join(u.Keys, ", ")))
+	if len(u.Held) > 0 {
+		sec.Paragraphs = append(sec.Paragraphs, "Held at the design's values, not sampled: "+heldText(u.Held)+".")
+	}
 	switch {
 	case u.MayNotLase():
 		sec.Warn = true
@@ -153,4 +163,13 @@ func topDrivers(ds []study.Driver) string {
 		drv = append(drv, fmt.Sprintf("%s %+.2f", strings.TrimPrefix(d.Key, "levels."), d.RankCorrelation))
 	}
 	return strings.Join(drv, ", ")
+}
+
+// heldText lists the held constants without the "levels." prefix and says why they are held.
+func heldText(held []string) string {
+	var ks []string
+	for _, k := range held {
+		ks = append(ks, strings.TrimPrefix(k, "levels."))
+	}
+	return strings.Join(ks, ", ") + " (given with --set, or in the design file at a value other than the default)"
 }

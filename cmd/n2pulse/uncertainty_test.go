@@ -4,6 +4,7 @@ import (
 	"bytes"
 	"encoding/json"
 	"path/filepath"
+	"slices"
 	"strings"
 	"testing"
 )
@@ -110,5 +111,38 @@ func TestRunUncertaintyOut(t *testing.T) {
 	}
 	if html := string(mustRead(t, filepath.Join(dir, "report.html"))); !strings.Contains(html, "Uncertainty bands") || !strings.Contains(html, "5–95 % range over 10 samples") {
 		t.Error("report.html lacks the uncertainty section or the band's caption")
+	}
+}
+
+// TestRunUncertaintyHeld: a constant given with --set, even at its default value, is held: the
+// text says so, --json lists it under "held" and not among the sampled "constants", and it
+// drives nothing.
+func TestRunUncertaintyHeld(t *testing.T) {
+	t.Parallel()
+	args := []string{"run", "../../data/designs/example.toml", "--set", "numerics.cells=20", "--set", "levels.manifold_share=0.25",
+		"--uncertainty", "10", "--seed", "4"}
+	var out, errb bytes.Buffer
+	if code := run(args, &out, &errb); code != 0 {
+		t.Fatalf("exit %d: %s", code, errb.String())
+	}
+	if !strings.Contains(out.String(), "held at the design's values, not sampled: manifold_share (given with --set") {
+		t.Errorf("no held line in:\n%s", out.String())
+	}
+	var js bytes.Buffer
+	if code := run(append(args, "--json"), &js, &errb); code != 0 {
+		t.Fatalf("--json: exit %d: %s", code, errb.String())
+	}
+	var got struct {
+		Uncertainty struct {
+			Constants []string `json:"constants"`
+			Held      []string `json:"held"`
+		} `json:"uncertainty"`
+	}
+	if err := json.Unmarshal(js.Bytes(), &got); err != nil {
+		t.Fatal(err)
+	}
+	u := got.Uncertainty
+	if len(u.Held) != 1 || u.Held[0] != "levels.manifold_share" || len(u.Constants) == 0 || slices.Contains(u.Constants, "levels.manifold_share") {
+		t.Errorf("constants %v, held %v; want manifold_share held only", u.Constants, u.Held)
 	}
 }

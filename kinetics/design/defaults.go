@@ -21,8 +21,11 @@ func Defaults() *Design {
 			SparkConstant: 101325 * 1e-4, // a = 1 atm cm² V⁻² s⁻¹ for air, from memory (see Levels doc)
 		},
 		Discharge: Discharge{
-			SeedDensity:   1e14,  // 1e8 cm⁻³ preionisation, common practice, no source
-			Recombination: 2e-13, // 2e-7 cm³/s, from memory: order of N₂⁺/N₄⁺ dissociative recombination
+			SeedDensity: 1e14, // 1e8 cm⁻³ preionisation, common practice, no source
+			// 2e-7 cm³/s, from memory: order of N₂⁺/N₄⁺ dissociative recombination. Consistent
+			// with e + N₄⁺ (the main ion at 1 atm) at 2.4e-6·(300/T_e)^0.5 cm³/s (J. Appl. Phys.
+			// 125, 243301 (2019), Table I, R7a–R9a, seen): 2.4e-7 at T_e = ⅔·4 eV, 3.3e-7 at ⅔·2 eV.
+			Recombination: 2e-13,
 		},
 		Levels: defaultLevels(),
 		Optics: Optics{

@@ -35,6 +35,9 @@ type Design struct {
 
 	// given holds the keys given in the file or by Set; nil for a design made in code.
 	given map[string]bool
+	// assigned holds the keys assigned by Set (the command line's --set, a sweep's grid
+	// value): always pinned (see Pinned).
+	assigned map[string]bool
 }
 
 // Channel is the laser channel between the two electrode rails.
@@ -131,6 +134,11 @@ type Levels struct {
 	ManifoldRelaxationNitrogen float64 // total collisional relaxation of the manifold by N₂ [m³/s]
 	ManifoldRelaxationOxygen   float64 // total collisional removal of the manifold by O₂ (none into B(0)) [m³/s]
 
+	// Products of electron–ion recombination: the shares of the dissociative recombination
+	// of N₄⁺ that leave one N₂ molecule in C³Πu (taken into C(0)) and in B³Πg (taken into the
+	// B(v>0)/W/B′ manifold). Recombination of N₂⁺ and O₂⁺/O₄⁺ gives neither.
+	RecombinationUpperShare float64 // share of e + N₄⁺ into N₂(C) + N₂
+	RecombinationLowerShare float64 // share of e + N₄⁺ into N₂(B) + N₂
 	// FastHeatingShare is the share of the energy the electrons put into electronic states,
 	// dissociation and ionisation that heats the gas within the shot ("fast gas heating");
 	// the gas temperature it raises lowers the gain cross section.

@@ -187,7 +187,8 @@ func (d *Design) setValue(key string, v any) error {
 
 // Validate checks the relations between keys that no single range can: mole fractions that
 // sum to one, the parameters each switch model needs, and a [build] section the bench can
-// evaluate.
+// evaluate. It only reads the design, so any number of goroutines may validate (and run) one
+// design at once.
 func (d *Design) Validate() error {
 	g := d.Gas
 	if s := g.Nitrogen + g.Oxygen + g.Helium; math.Abs(s-1) > 1e-6 {
@@ -198,14 +199,17 @@ func (d *Design) Validate() error {
 		return &KeyError{Key: "gas.nitrogen", Value: fmt.Sprintf("%g", g.Nitrogen), Problem: "a nitrogen laser needs nitrogen: allowed above 0 to 1"}
 	}
 	for _, k := range []string{"circuit.topology", "switch.model"} {
-		s := *fieldIndex[k].str(d)
-		if err := fieldIndex[k].setString(d, s); err != nil {
+		if err := checkChoice(fieldIndex[k], *fieldIndex[k].str(d)); err != nil {
 			return err
 		}
 	}
 	if d.Switch.Model != IdealSwitch && d.Switch.OffResistance <= d.Switch.OnResistance {
 		return &KeyError{Key: "switch.off_resistance", Value: fmt.Sprintf("%g Ω", d.Switch.OffResistance),
 			Problem: fmt.Sprintf("must exceed switch.on_resistance (%g Ω)", d.Switch.OnResistance)}
+	}
+	if l := d.Levels; l.RecombinationUpperShare+l.RecombinationLowerShare > 1+1e-12 {
+		return &KeyError{Key: "levels.recombination_lower_share", Value: fmt.Sprintf("%g", l.RecombinationLowerShare),
+			Problem: fmt.Sprintf("with levels.recombination_upper_share (%g) the shares sum above 1", l.RecombinationUpperShare)}
 	}
 	if d.Numerics.Cells < 4 {
 		return &KeyError{Key: "numerics.cells", Value: strconv.Itoa(d.Numerics.Cells), Problem: "allowed 4 to 20000"}
@@ -221,11 +225,26 @@ func (d *Design) Validate() error {
 	return nil
 }
 
+// checkChoice checks that the text key f holds one of its choices exactly as listed: a file
+// and Set store the listed spelling, so another spelling can come only from a design filled in
+// code, and the error says how to write it (Validate reports, never rewrites).
+func checkChoice(f *field, v string) error {
+	c, err := choose(f.key, v, f.choices())
+	if err != nil {
+		return err
+	}
+	if c != v {
+		return &KeyError{Key: f.key, Value: strconv.Quote(v), Problem: fmt.Sprintf("write it as %q", c)}
+	}
+	return nil
+}
+
 // Clone returns an independent copy of the design.
 func (d *Design) Clone() *Design {
 	c := *d
 	c.Derived = append([]string(nil), d.Derived...)
 	c.given = maps.Clone(d.given)
+	c.assigned = maps.Clone(d.assigned)
 	return &c
 }
 

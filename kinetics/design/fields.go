@@ -86,6 +86,8 @@ var fieldList = []field{
 	{key: "levels.manifold_share", dim: units.Dimensionless, num: func(d *Design) *float64 { return &d.Levels.ManifoldShare }, min: 0, max: 1, help: "share of the B(v>0)/W/B′ manifold's relaxation by N₂ that ends in B(0) (no measured value; derived 0.25, range 0.05–0.37)"},
 	{key: "levels.manifold_relaxation_nitrogen", dim: units.RateConstant, unit: "m³/s", num: func(d *Design) *float64 { return &d.Levels.ManifoldRelaxationNitrogen }, min: 0, max: 1e-14, help: "collisional relaxation of the B(v>0)/W/B′ manifold by N₂"},
 	{key: "levels.manifold_relaxation_oxygen", dim: units.RateConstant, unit: "m³/s", num: func(d *Design) *float64 { return &d.Levels.ManifoldRelaxationOxygen }, min: 0, max: 1e-14, help: "removal of the B(v>0)/W/B′ manifold by O₂"},
+	{key: "levels.recombination_upper_share", dim: units.Dimensionless, num: func(d *Design) *float64 { return &d.Levels.RecombinationUpperShare }, min: 0, max: 1, help: "share of electron–N₄⁺ recombination that leaves N₂(C), taken into C(0) (0: no recombination products)"},
+	{key: "levels.recombination_lower_share", dim: units.Dimensionless, num: func(d *Design) *float64 { return &d.Levels.RecombinationLowerShare }, min: 0, max: 1, help: "share of electron–N₄⁺ recombination that leaves N₂(B), taken into the B(v>0)/W/B′ manifold"},
 	{key: "levels.fast_heating_share", dim: units.Dimensionless, num: func(d *Design) *float64 { return &d.Levels.FastHeatingShare }, min: 0, max: 1, help: "share of the electrons' electronic, dissociation and ionisation energy that heats the gas within the shot (estimate 0.1, range 0–0.3); the gas temperature lowers the gain cross section"},
 
 	{key: "optics.rear_reflectivity", dim: units.Dimensionless, num: func(d *Design) *float64 { return &d.Optics.RearReflectivity }, min: 0, max: 1, help: "power reflectivity at the rear end (z = 0)"},
@@ -201,6 +203,10 @@ func (d *Design) Set(key, value string) error {
 		d.given = map[string]bool{}
 	}
 	d.given[key] = true
+	if d.assigned == nil {
+		d.assigned = map[string]bool{}
+	}
+	d.assigned[key] = true
 	if i := slices.Index(d.Derived, key); i >= 0 {
 		d.Derived = slices.Delete(slices.Clone(d.Derived), i, i+1)
 	}
@@ -208,6 +214,33 @@ func (d *Design) Set(key, value string) error {
 		_ = d.rederive() // an inconsistent build is reported by Validate
 	}
 	return nil
+}
+
+// Pinned reports whether the user fixed the value of key, so that an uncertainty study holds
+// it instead of sampling it. The rule: a key assigned by Set (as run's --set does, or a
+// sweep's grid) is pinned, whatever its value; a key written in the design file is pinned when
+// its value differs from the default of Defaults. So a file that lists every key at its
+// default, as `n2pulse init` writes one, pins nothing, and a constant written at its default
+// value in a file is sampled: to hold a constant at its default, give it with --set.
+func (d *Design) Pinned(key string) bool {
+	if d.assigned[key] {
+		return true
+	}
+	if !d.given[key] {
+		return false
+	}
+	f, ok := fieldIndex[key]
+	if !ok {
+		return false
+	}
+	def := Defaults()
+	switch {
+	case f.str != nil:
+		return *f.str(d) != *f.str(def)
+	case f.integer:
+		return d.Numerics.Cells != def.Numerics.Cells
+	}
+	return *f.num(d) != *f.num(def)
 }
 
 // set assigns one key from text without the bookkeeping of Set.

@@ -74,6 +74,18 @@ func defaultLevels() Levels {
 		// N2(B) + O2 → N2 + O + O: 3e-10 cm³/s, Kossyi et al. 1992 (seen, secondary); none of it
 		// ends in B(0).
 		ManifoldRelaxationOxygen: 3e-16,
+		// Dissociative recombination e + N₄⁺ → N₂(B) + N₂ 87 %, → N₂(C) + N₂ 11 % (and
+		// → N₂(A) + N₂ 2.5 %) of 2.4e-6·(300/T_e)^0.5 cm³/s: J. Appl. Phys. 125, 243301 (2019),
+		// Table I, R7a–R9a (seen, in the author manuscript's table; the exponent of the
+		// temperature factor did not survive the transcription, 0.5 as in Kossyi et al. 1992's
+		// 2e-6·(300/T_e)^0.5 for N₄⁺ + e → 2N₂, seen, secondary). The vibrational levels of the
+		// products are not given: C is taken into C(0) (an upper bound for the laser level; what
+		// lands in C(v≥1) would partly relax into it), B into the manifold (the ion's
+		// recombination energy, 15.6 eV less its bond of about 1 eV (from memory), leaves about
+		// 7 eV above B(0), so B is born high in its ladder). The total rate is the
+		// circuit's discharge.recombination; the N₄⁺ share of the ions is kinetics.ionShares.
+		RecombinationUpperShare: 0.11,
+		RecombinationLowerShare: 0.87,
 		// Fast gas heating: the share of the energy the electrons put into electronic states,
 		// dissociation and ionisation that becomes heat within nanoseconds (quenching of the
 		// excited states, fast fragments of dissociation, recombination). No readable value

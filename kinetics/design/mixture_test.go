@@ -46,3 +46,21 @@ func TestMixtureRuleBalance(t *testing.T) {
 		t.Errorf("oxygen 0.6 + helium 0.5: error %v, want a KeyError naming gas.oxygen and gas.helium", err)
 	}
 }
+
+// TestRecombinationSharesValidated: the two shares of electron–N₄⁺ recombination that leave
+// excited N₂ may not sum above 1 (the defaults, 0.11 + 0.87, do not); the error names the key.
+func TestRecombinationSharesValidated(t *testing.T) {
+	t.Parallel()
+	d := ExampleDesign()
+	if err := d.Validate(); err != nil {
+		t.Fatalf("defaults: %v", err)
+	}
+	if s := d.Levels.RecombinationUpperShare + d.Levels.RecombinationLowerShare; !(s <= 1) {
+		t.Errorf("default shares sum to %g", s)
+	}
+	d.Levels.RecombinationUpperShare = 0.2
+	err := d.Validate()
+	if err == nil || !strings.Contains(err.Error(), "levels.recombination_lower_share") {
+		t.Errorf("shares 0.2 + 0.87: error %v, want one naming levels.recombination_lower_share", err)
+	}
+}

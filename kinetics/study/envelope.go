@@ -67,6 +67,7 @@ func UncertaintyEnvelope(ctx context.Context, base *design.Design, n int, seed u
 	if err != nil {
 		return nil, nil, err
 	}
+	res.Held = HeldConstants(base)
 	env := &Envelope{Time: append([]float64(nil), grid...)}
 	col := make([]float64, 0, kept)
 	for k := range grid {

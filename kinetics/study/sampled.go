@@ -162,6 +162,7 @@ func sampledEvaluate(ctx context.Context, idx []int, n int, seed uint64, hold []
 			if a.p.band, err = bandsOf(seed, p.samples.keys, a.values, a.p.figs); err != nil {
 				return err
 			}
+			a.p.band.Held = p.samples.held
 			if a.p.band.Failed == n {
 				a.p.bandErr = fmt.Errorf("every sample failed; sample %d: %w", a.firstBad+1, a.firstErr)
 			} else if a.firstErr != nil {

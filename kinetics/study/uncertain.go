@@ -3,6 +3,7 @@ package study
 import (
 	"fmt"
 	"math/rand/v2"
+	"strings"
 
 	"n2pulse/kinetics/design"
 )
@@ -38,7 +39,8 @@ func LatinHypercube(n, k int, seed uint64) ([][]float64, error) {
 }
 
 // UncertainDesigns returns n copies of base in which every constant of design.Spreads that
-// base uses is drawn from its range and distribution by a Latin hypercube of the given seed,
+// base uses and does not pin (HeldConstants) is drawn from its range and distribution by a
+// Latin hypercube of the given seed,
 // set through design.Design.Set as a user would set it. A constant base does not use (an O₂
 // constant in a gas without O₂, a process switched off by a zero) is left alone: sampling it
 // would switch a process on or add noise to the ranking. keys are the sampled keys (in
@@ -66,22 +68,55 @@ type samplePlan struct {
 	base    *design.Design
 	spreads []design.Spread
 	keys    []string
+	held    []string // HeldConstants(base)
 	u       [][]float64
 }
 
-// newSamplePlan plans n samples of the constants of design.Spreads that base uses, leaving out
-// the keys in hold (a sweep's varied keys, which keep their grid values).
-func newSamplePlan(base *design.Design, hold []string, n int, seed uint64) (*samplePlan, error) {
+// HeldConstants returns the constants of design.Spreads that base uses but that an
+// uncertainty study of base holds at base's values instead of sampling: the ones base pins
+// (design.Design.Pinned: given with --set, or written in the design file at a value other
+// than the default), in design.Spreads order. A sweep also holds its varied keys.
+func HeldConstants(base *design.Design) []string {
+	var held []string
+	for _, k := range usedSpreadKeys(base) {
+		if base.Pinned(k) {
+			held = append(held, k)
+		}
+	}
+	return held
+}
+
+// usedSpreadKeys returns the keys of design.Spreads that base uses (SensitivityKeys), in
+// design.Spreads order.
+func usedSpreadKeys(base *design.Design) []string {
 	used := map[string]bool{}
 	for _, k := range SensitivityKeys(base) {
 		used[k] = true
 	}
-	for _, k := range hold {
+	var keys []string
+	for _, s := range design.Spreads() {
+		if used[s.Key] {
+			keys = append(keys, s.Key)
+		}
+	}
+	return keys
+}
+
+// newSamplePlan plans n samples of the constants of design.Spreads that base uses, leaving out
+// the keys in hold (a sweep's varied keys, which keep their grid values) and the constants
+// base pins (HeldConstants).
+func newSamplePlan(base *design.Design, hold []string, n int, seed uint64) (*samplePlan, error) {
+	used := map[string]bool{}
+	for _, k := range usedSpreadKeys(base) {
+		used[k] = true
+	}
+	held := HeldConstants(base)
+	for _, k := range append(held, hold...) {
 		used[k] = false
 	}
-	// The plan keeps its own copy: a caller may run the base (and running validates it, which
-	// rewrites some of its strings in place) while other workers make samples from the plan.
-	p := &samplePlan{base: base.Clone()}
+	// The plan keeps its own copy, so that a caller may change the base (a sweep point's
+	// design, say) while other workers make samples from the plan.
+	p := &samplePlan{base: base.Clone(), held: held}
 	for _, s := range design.Spreads() {
 		if used[s.Key] {
 			p.spreads = append(p.spreads, s)
@@ -89,6 +124,9 @@ func newSamplePlan(base *design.Design, hold []string, n int, seed uint64) (*sam
 		}
 	}
 	if len(p.spreads) == 0 {
+		if len(held) > 0 {
+			return nil, fmt.Errorf("study: every uncertain constant the design uses is held at the value it was given (%s): nothing left to sample", strings.Join(held, ", "))
+		}
 		return nil, fmt.Errorf("study: the design uses none of the uncertain constants")
 	}
 	var err error

@@ -3,6 +3,8 @@ package study
 import (
 	"math"
 	"reflect"
+	"slices"
+	"strings"
 	"testing"
 
 	"n2pulse/kinetics/design"
@@ -120,5 +122,42 @@ func TestUncertainDesigns(t *testing.T) {
 	}
 	if _, keys, _, err := UncertainDesigns(air, 10, 1); err != nil || len(keys) != len(design.Spreads()) {
 		t.Errorf("air: keys %v (%v), want all %d spreads", keys, err, len(design.Spreads()))
+	}
+}
+
+// TestHeldConstants: a constant the user fixed (here with Set, as --set does) is held at that
+// value in every sample, leaves the sampled keys and is reported as held; the other constants
+// are sampled as before. A design that pins every constant it uses has nothing to sample: an
+// error naming the held constants.
+func TestHeldConstants(t *testing.T) {
+	t.Parallel()
+	base := design.ExampleDesign()
+	if err := base.Set("levels.manifold_share", "0.1"); err != nil {
+		t.Fatal(err)
+	}
+	if got := HeldConstants(base); !reflect.DeepEqual(got, []string{"levels.manifold_share"}) {
+		t.Fatalf("held %v; want [levels.manifold_share]", got)
+	}
+	ds, keys, _, err := UncertainDesigns(base, 10, 3)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if slices.Contains(keys, "levels.manifold_share") || len(keys) != len(usedSpreadKeys(base))-1 {
+		t.Errorf("sampled keys %v; want every used constant but levels.manifold_share", keys)
+	}
+	for i, d := range ds {
+		if x, _ := d.Get("levels.manifold_share"); x != 0.1 {
+			t.Errorf("sample %d: manifold_share %g; want the held 0.1", i, x)
+		}
+	}
+	all := design.ExampleDesign()
+	for _, k := range usedSpreadKeys(all) {
+		s, _ := design.KeySpread(k)
+		if err := all.Set(k, siText(k, s.Low)); err != nil {
+			t.Fatal(err)
+		}
+	}
+	if _, _, _, err := UncertainDesigns(all, 10, 3); err == nil || !strings.Contains(err.Error(), "held") || !strings.Contains(err.Error(), "levels.manifold_share") {
+		t.Errorf("every constant pinned: error %v; want one naming the held constants", err)
 	}
 }

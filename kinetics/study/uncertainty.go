@@ -33,6 +33,7 @@ type UncertaintyResult struct {
 	Samples   int          `json:"samples"`
 	Seed      uint64       `json:"seed"`
 	Keys      []string     `json:"keys"`      // the sampled constants (design.Spreads)
+	Held      []string     `json:"held"`      // constants the design uses but pins, held at its values (HeldConstants)
 	Failed    int          `json:"failed"`    // samples whose run failed; left out of every band
 	Truncated int          `json:"truncated"` // samples whose pulse outlasted the run; kept, and counted here
 	Lasing    int          `json:"lasing"`    // samples that reach the lasing threshold (kinetics.Summary.Lases)
@@ -52,7 +53,12 @@ func Uncertainty(ctx context.Context, base *design.Design, n int, seed uint64, w
 	if err != nil {
 		return nil, err
 	}
-	return uncertaintyOf(ctx, designs, keys, values, seed, workers, run)
+	res, err := uncertaintyOf(ctx, designs, keys, values, seed, workers, run)
+	if err != nil {
+		return nil, err
+	}
+	res.Held = HeldConstants(base)
+	return res, nil
 }
 
 // uncertaintyOf runs the sample designs (made by UncertainDesigns: keys, values) and makes
