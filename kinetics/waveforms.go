@@ -123,7 +123,9 @@ func fillCircuit(w *waveforms, c *circuit, d *design.Design, par *Parameters, st
 			}
 			ne := math.Exp(y[iLnNe])
 			smp := c.sample(y[iVg], ne)
-			kB, kC, kW, kBp, mean := smp.kB, smp.kC, smp.kW, smp.kBp, smp.mean
+			// The excitation scales stand for the cross sections' uncertainty; they scale the
+			// pump only (design.Levels.UpperExcitationScale).
+			kB, kC, kW, kBp, mean := smp.kB*d.Levels.LowerExcitationScale, smp.kC*d.Levels.UpperExcitationScale, smp.kW, smp.kBp, smp.mean
 			field := c.reducedField(y[iVg])
 			w.voltage[k] = y[iVg]
 			if series {

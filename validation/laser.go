@@ -64,7 +64,7 @@ func laserChecks() ([]Check, error) {
 	checks = append(checks, Check{ID: "laser.trend.pressure_shortens", Unit: "",
 		Quantity: fmt.Sprintf("rms-based width falls as pressure rises 500→760→1000 Torr (%.3g, %.3g, %.3g ns)", widths[0]*1e9, widths[1]*1e9, widths[2]*1e9),
 		Computed: b2f(widths[0] > widths[1] && widths[1] > widths[2]), Mode: True, Kind: CommonPractice,
-		Source: "common practice, no source: higher pressure quenches C(0) faster and shortens the pulse"})
+		Source: "common practice, no source: collisions grow with pressure — they fill B(0) from the B/W/B′ manifold and quench C(0) — and end the inversion sooner"})
 
 	// Energy rises with channel length and then saturates. The plates of a Blumlein run along
 	// the channel, so its capacitors grow with the length: scale both with it.

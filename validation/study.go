@@ -83,7 +83,7 @@ var reducedPressure = []string{"channel.length", "50 cm", "channel.gap", "2 cm",
 // pressureOptimum: the pulse energy of a reduced-pressure design peaks at an interior pressure.
 func pressureOptimum() (Check, error) {
 	c := Check{ID: "study.pressure_optimum", Unit: "Torr", Mode: Range, Kind: CommonPractice,
-		Source: "common practice, no source: low-pressure nitrogen lasers have an optimum pressure, with E/N too high below it and too low (and quenching too fast) above it"}
+		Source: "common practice, no source: low-pressure nitrogen lasers have an optimum pressure; below it the discharge burns at too low a voltage to take the circuit's energy, above it the gap breaks late, at too low an E/N, or not at all"}
 	d, err := studyDesign(reducedPressure...)
 	if err != nil {
 		return c, err
@@ -110,7 +110,7 @@ func pressureOptimum() (Check, error) {
 // widthFallsWithPressure: at fixed voltage the rms-based pulse width falls as the pressure rises.
 func widthFallsWithPressure() (Check, error) {
 	c := Check{ID: "study.fwhm_falls_with_pressure", Mode: True, Kind: CommonPractice,
-		Source: "common practice, no source: collisional quenching of C(0) grows with pressure and shortens the pulse"}
+		Source: "common practice, no source: collisions grow with pressure — they fill B(0) from the B/W/B′ manifold and quench C(0) — and end the inversion sooner"}
 	d, err := studyDesign()
 	if err != nil {
 		return c, err

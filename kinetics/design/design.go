@@ -134,6 +134,17 @@ type Levels struct {
 	ManifoldRelaxationNitrogen float64 // total collisional relaxation of the manifold by N₂ [m³/s]
 	ManifoldRelaxationOxygen   float64 // total collisional removal of the manifold by O₂ (none into B(0)) [m³/s]
 
+	// UpperExcitationScale is a factor on the swarm table's electron-impact rate X → C³Πu where
+	// the level kinetics use it (the pump of C(0) and C(v=1)); 1 uses the table as it is. It
+	// stands for the uncertainty of the C³Πu cross section. Only the pump is scaled: the
+	// electron energy distribution, the discharge current and the swarm's power split (the
+	// energy account's plasma split) stay those of the unscaled set; the feedback of this one
+	// channel on the distribution is left out.
+	UpperExcitationScale float64
+	// LowerExcitationScale is the same factor on the electron-impact rate X → B³Πg (both its
+	// share into B(0) and its share into the B(v>0) manifold), with the same limitation.
+	LowerExcitationScale float64
+
 	// Products of electron–ion recombination: the shares of the dissociative recombination
 	// of N₄⁺ that leave one N₂ molecule in C³Πu (taken into C(0)) and in B³Πg (taken into the
 	// B(v>0)/W/B′ manifold). Recombination of N₂⁺ and O₂⁺/O₄⁺ gives neither.

@@ -27,6 +27,15 @@ func defaultLevels() Levels {
 		// the estimate's range is ×0.5–2 (van Regemorter's form for allowed transitions of
 		// neutrals) and up to ×3 if ionisation could leave the ion in its ground state.
 		UpperElectronScale: 1,
+		// Factors on the electron-impact excitation rates of C³Πu and B³Πg taken from the swarm
+		// table: 1, the cross-section set as it is. Their sampled ranges are the uncertainties
+		// Y. Itikawa, J. Phys. Chem. Ref. Data 35, 31 (2006) states for his recommended cross
+		// sections: ±30 % for C³Πu (Table 10) and ±35 % for B³Πg (Table 8) (seen, in the
+		// metadata of that paper's tables transcribed in the public nepc project of the U.S.
+		// Naval Research Laboratory: "the estimated uncertainty indicates the degree of the
+		// concurrence of the individual experimental results"). See design.Spreads.
+		UpperExcitationScale: 1,
+		LowerExcitationScale: 1,
 		// C(v=1) → C(0) by N₂ and the quenching of C(v=1) by N₂: about 1.5e-11 cm³/s each,
 		// from memory, range 1–2e-11 each. The measurement is Dilecce, Ambrico & De Benedictis,
 		// Chem. Phys. Lett. 431, 241 (2006): its first page was seen (title, abstract and

@@ -236,8 +236,14 @@ func TestUncertaintyEnvelope(t *testing.T) {
 		t.Skip("runs the model 20 times")
 	}
 	d := design.ExampleDesign()
-	if err := d.Set("numerics.cells", "20"); err != nil {
-		t.Fatal(err)
+	// The excitation scales (±30 % and ±35 % on the C and B pump) shift the samples' pulses
+	// against each other so much (band ×70) that a pointwise median is no longer close to any
+	// one sample's trace; they are held at 1 here (Set pins them), so that the check below
+	// compares like with like.
+	for _, kv := range [][2]string{{"numerics.cells", "20"}, {"levels.upper_excitation_scale", "1"}, {"levels.lower_excitation_scale", "1"}} {
+		if err := d.Set(kv[0], kv[1]); err != nil {
+			t.Fatal(err)
+		}
 	}
 	grid := make([]float64, 400)
 	for k := range grid {
