@@ -150,6 +150,10 @@ type Levels struct {
 	// B(v>0)/W/B′ manifold). Recombination of N₂⁺ and O₂⁺/O₄⁺ gives neither.
 	RecombinationUpperShare float64 // share of e + N₄⁺ into N₂(C) + N₂
 	RecombinationLowerShare float64 // share of e + N₄⁺ into N₂(B) + N₂
+	// FastHeatingShare is the share of the energy the electrons put into electronic states,
+	// dissociation and ionisation that heats the gas within the shot ("fast gas heating");
+	// the gas temperature it raises lowers the gain cross section.
+	FastHeatingShare float64
 }
 
 // Optics holds the ends of the channel, the distributed loss and the excitation front.
