@@ -139,7 +139,8 @@ type Levels struct {
 	// stands for the uncertainty of the C³Πu cross section. Only the pump is scaled: the
 	// electron energy distribution, the discharge current and the swarm's power split (the
 	// energy account's plasma split) stay those of the unscaled set; the feedback of this one
-	// channel on the distribution is left out.
+	// channel on the distribution is left out (at 200–300 Td, σ_C × 1.3 in the solver raises k_C
+	// by ×1.22–1.24 and lowers k_ion by 9–12 %: kinetics.TestExcitationScaleFeedback).
 	UpperExcitationScale float64
 	// LowerExcitationScale is the same factor on the electron-impact rate X → B³Πg (both its
 	// share into B(0) and its share into the B(v>0) manifold), with the same limitation.
