@@ -186,3 +186,13 @@ func TestSweepUncertaintyHeld(t *testing.T) {
 		t.Errorf("resume without the --set: exit %d, %q; want a refusal naming the held constants", code, e.String())
 	}
 }
+
+// TestCheckUncertaintyUsage: check --uncertainty takes 10…100000 samples; another count is a
+// usage error (exit 2) naming the flag, given before the registry runs.
+func TestCheckUncertaintyUsage(t *testing.T) {
+	t.Parallel()
+	var o, e bytes.Buffer
+	if code := run([]string{"check", "--uncertainty", "5"}, &o, &e); code != 2 || !strings.Contains(e.String(), "--uncertainty 5") {
+		t.Errorf("check --uncertainty 5: exit %d, %q; want 2 naming --uncertainty", code, e.String())
+	}
+}
