@@ -50,6 +50,7 @@ func Run(d *design.Design, s *RunSettings) (*Result, error) {
 	res.Summary.EndTime = float64(sh.steps) * par.TimeStep
 	res.Summary.Truncated = sh.unfinished()
 	sh.summarise(res)
+	warnings = append(warnings, heatingSummary(&res.Summary, d, sh)...)
 	res.Warnings = append(res.Warnings, warnings...)
 	if err := checkFiniteLight(&res.Summary, d, par); err != nil {
 		return nil, err

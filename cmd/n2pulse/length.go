@@ -113,7 +113,7 @@ func runLength(args []string, stdout, stderr io.Writer) error {
 	if !*asJSON {
 		printLength(stdout, r)
 		if r.Samples > 0 {
-			printLengthBands(stdout, r, *seed)
+			printLengthBands(stdout, r, *seed, study.HeldConstants(d))
 		}
 	}
 	if *out == "" {
@@ -272,9 +272,13 @@ func printLengthJSON(w io.Writer, r *study.LengthResult, scaled bool) error {
 }
 
 // printLengthBands writes the band of each length (output-end energy and peak power) with the
-// rows flagged, then each curve's useful-length band and the constants that drive the energy.
-func printLengthBands(w io.Writer, r *study.LengthResult, seed uint64) {
+// rows flagged, then each curve's useful-length band and the constants that drive the energy;
+// held names the constants the design pins (held in every sample).
+func printLengthBands(w io.Writer, r *study.LengthResult, seed uint64, held []string) {
 	fmt.Fprintf(w, "\nuncertainty: %d samples of the uncertain constants at every length (Latin hypercube, seed %d)\n", r.Samples, seed)
+	if len(held) > 0 {
+		fmt.Fprintf(w, "  held at the design's values, not sampled: %s\n", heldText(held))
+	}
 	tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
 	for c, cur := range r.Curves {
 		pre := ""

@@ -106,7 +106,7 @@ func runSweep(args []string, stdout, stderr io.Writer) error {
 		fmt.Fprintf(stdout, "shard %s: wrote %s; join the shards with `n2pulse merge`\n", s.Shard, filepath.Join(*out, study.ResultsFile))
 		return nil
 	}
-	return reportSweep(stdout, tab, s.Axes, *metrics, *out, *asJSON, d.Name, d.String(), sweepBands{*samples, *seed})
+	return reportSweep(stdout, tab, s.Axes, *metrics, *out, *asJSON, d.Name, d.String(), sweepBands{*samples, *seed, heldIf(*samples, d)})
 }
 
 // sweepReport is what `sweep --json` prints: the grid, the counts, the optimum of each metric
