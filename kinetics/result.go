@@ -20,9 +20,25 @@ type Summary struct {
 	DetectorResponse float64 `json:"detector_response_s"`
 	HalfMaxWidth     float64 `json:"half_max_width_s"` // first to last half-maximum crossing of the output-end power itself, with no detector [s]
 	RMSWidth         float64 `json:"rms_fwhm_s"`       // 2·sqrt(2 ln 2) × the rms duration of the output-end pulse: the FWHM of a Gaussian of the same rms width, smooth across spikes [s]
-	PulseCentre      float64 `json:"pulse_centre_s"`   // power-weighted mean time of the output-end pulse [s]
-	Rise             float64 `json:"rise_s"`           // 10–90 % rise time of the output-end pulse [s]
-	Delay            float64 `json:"delay_s"`          // switch closure to the half-maximum of the rising edge [s]
+	// Pulses is the number of separate pulses in the output-end power as FWHM sees it
+	// (through the detector when there is one): maxima that reach half the highest peak,
+	// each two with a dip below DipLevel (a tenth) of the highest peak between them. 0 when
+	// there is no output. When it is 2 or more, FWHM spans them all and the verdict says so.
+	Pulses int `json:"pulses"`
+	// PulseSeparation is the time between the peaks of the first two pulses; 0 for one
+	// pulse [s].
+	PulseSeparation float64 `json:"pulse_separation_s"`
+	// StrongestPulseFWHM is the half-maximum width of the strongest pulse alone, on the same
+	// trace as FWHM: equal to FWHM when there is one pulse [s].
+	StrongestPulseFWHM float64 `json:"strongest_pulse_fwhm_s"`
+	// HalfMaxEnergyShare is the share of the output-end energy inside the window of FWHM
+	// (first to last half-maximum crossing): 0.76 for a Gaussian pulse, 0.5 for a sudden rise
+	// and an exponential decay. Much less means FWHM measures a spike on a longer tail, whose
+	// length RMSWidth follows.
+	HalfMaxEnergyShare float64 `json:"half_max_energy_share"`
+	PulseCentre        float64 `json:"pulse_centre_s"` // power-weighted mean time of the output-end pulse [s]
+	Rise               float64 `json:"rise_s"`         // 10–90 % rise time of the output-end pulse [s]
+	Delay              float64 `json:"delay_s"`        // switch closure to the half-maximum of the rising edge [s]
 	// EndTime is how long after closure the shot was followed: numerics.end_time, or up to
 	// 16 times that (at most 10 µs) when the pulse outlasted it [s].
 	EndTime float64 `json:"end_time_s"`

@@ -158,7 +158,11 @@ func printLength(w io.Writer, r *study.LengthResult) {
 			if s.Truncated {
 				cut = " (truncated)"
 			}
-			line += fmt.Sprintf("%.4g%s\t%.4g\t%.3g\t%.3g\t%.4g\t", 1e6*s.EnergyFront, cut, 1e-3*s.PeakPower, 1e9*s.FWHM,
+			split := ""
+			if s.Pulses >= 2 {
+				split = fmt.Sprintf(" (%d pulses)", s.Pulses)
+			}
+			line += fmt.Sprintf("%.4g%s\t%.4g\t%.3g%s\t%.3g\t%.4g\t", 1e6*s.EnergyFront, cut, 1e-3*s.PeakPower, 1e9*s.FWHM, split,
 				1e9*s.InversionDuration, 100*units.SpeedOfLight*s.InversionDuration)
 		}
 		fmt.Fprintln(tw, line)
@@ -182,6 +186,10 @@ func printLength(w io.Writer, r *study.LengthResult) {
 		} else if p.Summary.Truncated {
 			fmt.Fprintf(w, "length %.4g cm truncated: the pulse was still going at %.4g ns, the longest a run may take; its numbers are cut short\n",
 				100*p.Length, 1e9*p.Summary.EndTime)
+		}
+		if s := p.Summary; p.Err == nil && s.Pulses >= 2 {
+			fmt.Fprintf(w, "length %.4g cm: %d separate pulses, the first two %.3g ns apart: its FWHM spans them (the strongest alone %.3g ns)\n",
+				100*p.Length, s.Pulses, 1e9*s.PulseSeparation, 1e9*s.StrongestPulseFWHM)
 		}
 	}
 }

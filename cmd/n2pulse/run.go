@@ -196,6 +196,15 @@ func printSummary(w io.Writer, d *design.Design, r *kinetics.Result) {
 	} else {
 		row("FWHM (half maximum)", units.Format(s.FWHM, "s"))
 	}
+	if s.Pulses >= 2 {
+		row("SEPARATE PULSES", fmt.Sprintf("%d, the first two %s apart (the output falls below %.0f %% of its peak between them): the FWHM above spans them; the strongest pulse alone is %s wide",
+			s.Pulses, units.Format(s.PulseSeparation, "s"), 100*kinetics.DipLevel, units.Format(s.StrongestPulseFWHM, "s")))
+	} else if s.Pulses == 1 {
+		row("separate pulses", "1")
+	}
+	if s.Pulses > 0 {
+		row("energy inside the FWHM", fmt.Sprintf("%.0f %% of the output-end energy (76 %% for a Gaussian pulse; much less: a spike on a longer tail)", 100*s.HalfMaxEnergyShare))
+	}
 	row("width from the rms duration", units.Format(s.RMSWidth, "s"))
 	row("rise 10–90 %", units.Format(s.Rise, "s"))
 	row("delay from switch closure", units.Format(s.Delay, "s"))
