@@ -19,6 +19,10 @@
 //   - Photons: forward and backward fluxes on characteristics (Δz = c·Δt), seeded by
 //     spontaneous emission A₀₀·N_C·Ω/4π into the solid angle of the channel, reflected at the
 //     ends; each cell sees the discharge delayed by z/v for a travelling excitation front.
+//   - Gas heating: the gas of the discharge volume heats at constant density by the elastic
+//     part of the electron power and a share of its electronic part (levels.fast_heating_share,
+//     released as the excited states are quenched); the effective cross section and g_C/g_B of
+//     the optics follow its temperature (σ(T) tabulated from package spectro).
 //
 // The circuit and discharge do not feel the laser pulse (the energy it carries is a part in
 // 10³ of the stored energy), so they are solved first and sampled on the optical grid.

@@ -14,7 +14,7 @@ import (
 // the optics), plus, unless RunSettings.Light, a gain map of gainMapFloats columns per cell.
 // The counts are those of the code with a margin (common practice, no source).
 const (
-	perStepFloats = 24
+	perStepFloats = 27 // 24 before the gas temperature and the medium's σ and g_C/g_B per step
 	perCellFloats = 24
 )
 

@@ -62,6 +62,20 @@ func (m *medium) resync() {
 	}
 }
 
+// retune gives the medium a new effective cross section sigma [m²] and degeneracy ratio g
+// (a gas that heated): the fluxes, kept in units of the saturation fluence, are rescaled so
+// that the photons in flight stay the same, and every gain factor is recomputed.
+func (m *medium) retune(sigma, g float64) {
+	js := 1 / ((1 + g) * sigma)
+	f := m.js / js
+	for i := range m.fp {
+		m.fp[i] *= f
+		m.fm[i] *= f
+	}
+	m.sigma, m.g, m.js, m.invJs = sigma, g, js, (1+g)*sigma
+	m.resync()
+}
+
 // One Frantz–Nodvik pass through a cell of small-signal gain factor G = e^(σΔN·Δz) with an
 // entering fluence J_in [m⁻²] gives (Frantz & Nodvik, J. Appl. Phys. 34, 2346 (1963))
 //

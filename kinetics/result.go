@@ -20,9 +20,25 @@ type Summary struct {
 	DetectorResponse float64 `json:"detector_response_s"`
 	HalfMaxWidth     float64 `json:"half_max_width_s"` // first to last half-maximum crossing of the output-end power itself, with no detector [s]
 	RMSWidth         float64 `json:"rms_fwhm_s"`       // 2·sqrt(2 ln 2) × the rms duration of the output-end pulse: the FWHM of a Gaussian of the same rms width, smooth across spikes [s]
-	PulseCentre      float64 `json:"pulse_centre_s"`   // power-weighted mean time of the output-end pulse [s]
-	Rise             float64 `json:"rise_s"`           // 10–90 % rise time of the output-end pulse [s]
-	Delay            float64 `json:"delay_s"`          // switch closure to the half-maximum of the rising edge [s]
+	// Pulses is the number of separate pulses in the output-end power as FWHM sees it
+	// (through the detector when there is one): maxima that reach half the highest peak,
+	// each two with a dip below DipLevel (a tenth) of the highest peak between them. 0 when
+	// there is no output. When it is 2 or more, FWHM spans them all and the verdict says so.
+	Pulses int `json:"pulses"`
+	// PulseSeparation is the time between the peaks of the first two pulses; 0 for one
+	// pulse [s].
+	PulseSeparation float64 `json:"pulse_separation_s"`
+	// StrongestPulseFWHM is the half-maximum width of the strongest pulse alone, on the same
+	// trace as FWHM: equal to FWHM when there is one pulse [s].
+	StrongestPulseFWHM float64 `json:"strongest_pulse_fwhm_s"`
+	// HalfMaxEnergyShare is the share of the output-end energy inside the window of FWHM
+	// (first to last half-maximum crossing): 0.76 for a Gaussian pulse, 0.5 for a sudden rise
+	// and an exponential decay. Much less means FWHM measures a spike on a longer tail, whose
+	// length RMSWidth follows.
+	HalfMaxEnergyShare float64 `json:"half_max_energy_share"`
+	PulseCentre        float64 `json:"pulse_centre_s"` // power-weighted mean time of the output-end pulse [s]
+	Rise               float64 `json:"rise_s"`         // 10–90 % rise time of the output-end pulse [s]
+	Delay              float64 `json:"delay_s"`        // switch closure to the half-maximum of the rising edge [s]
 	// EndTime is how long after closure the shot was followed: numerics.end_time, or up to
 	// 16 times that (at most 10 µs) when the pulse outlasted it [s].
 	EndTime float64 `json:"end_time_s"`
@@ -37,30 +53,33 @@ type Summary struct {
 	// each cell's pump delayed as in the run), i.e. the energy put into C(0) × hν/E_C. Run
 	// checks EnergyTotal ≤ it on every shot [J].
 	UpperPumpedPhotonEnergy float64       `json:"upper_pumped_photon_energy_J"`
-	PeakGain                float64       `json:"peak_gain_per_m"`           // highest small-signal gain σ·(N_C − g·N_B) of the mid-channel cell (not the channel mean) [m⁻¹]
-	GainLength              float64       `json:"gain_length"`               // highest channel-mean gain × length, ∫g dz over the channel at one moment: the gain-length of the verdict
-	InversionDuration       float64       `json:"inversion_duration_s"`      // duration of the gain: equivalent width ∫g⁺dt / g_max of the channel-mean gain [s]
-	TerminationTime         float64       `json:"termination_time_s"`        // when the mid-channel gain falls below 10 % of its peak after it [s]
-	TerminationCause        string        `json:"termination_cause"`         // "lower-level bottleneck", "pump collapse", "quenching", "extraction by the pulse" or "no gain"
-	PeakReducedField        float64       `json:"peak_reduced_field_Td"`     // highest |E/N| [Td]
-	PeakCurrent             float64       `json:"peak_current_A"`            // highest |channel current| [A]
-	PeakElectronDensity     float64       `json:"peak_electron_density_m3"`  // [m⁻³]
-	PeakCurrentDensity      float64       `json:"peak_current_density_A_m2"` // highest |channel current| over the discharge footprint L·w [A/m²]
-	SpecificEnergy          float64       `json:"specific_energy_J_m3"`      // energy into the plasma per discharge volume L·w·d [J/m³]
-	EnergyPerMolecule       float64       `json:"energy_per_molecule_eV"`    // energy into the plasma per gas molecule in the discharge volume [eV]
-	Energy                  EnergyAccount `json:"energy_account"`            // where the stored energy went
-	UniformGlow             bool          `json:"uniform_glow"`              // every limit of the uniform-glow regime is kept (see Regime); if not, the prediction is an upper bound
-	Regime                  []RegimeCheck `json:"regime_checks"`             // the shot against each limit of a uniform glow
-	SwitchHoldsCharge       bool          `json:"switch_holds_charge"`       // the spark gap as described holds the charge voltage (its static breakdown is above it, or unknown); if not, the shot is for a gap that holds, not the one described
-	SwitchBreakdown         float64       `json:"switch_breakdown_V"`        // static breakdown of the spark gap as described [V]; 0 when the design does not describe the gap
-	EnergyBalanceResidual   float64       `json:"energy_balance_residual"`   // |stored − (left + dissipated)| / stored
-	PhotonBalanceResidual   float64       `json:"photon_balance_residual"`   // |created − (emitted + lost + left)| / created
-	Lases                   bool          `json:"lases"`                     // the lasing threshold of the channel's optics is reached: open channel gL ≥ 10, one mirror 2gL + ln R ≥ 10, two mirrors building up e^10 within the gain (see Verdict)
-	Verdict                 string        `json:"verdict"`                   // one line: lases, or the limiting cause
-	Advice                  string        `json:"advice,omitempty"`          // what to change when it does not lase, naming design keys
-	StimulatedRatio         float64       `json:"stimulated_to_spontaneous"` // photons from stimulated emission per spontaneous seed photon
-	Derived                 []string      `json:"derived,omitempty"`         // circuit keys computed from the [build] section
-	Overridden              []string      `json:"overridden,omitempty"`      // spectroscopic values taken from the design, not computed
+	PeakGain                float64       `json:"peak_gain_per_m"`             // highest small-signal gain σ·(N_C − g·N_B) of the mid-channel cell (not the channel mean) [m⁻¹]
+	GainLength              float64       `json:"gain_length"`                 // highest channel-mean gain × length, ∫g dz over the channel at one moment: the gain-length of the verdict
+	InversionDuration       float64       `json:"inversion_duration_s"`        // duration of the gain: equivalent width ∫g⁺dt / g_max of the channel-mean gain [s]
+	TerminationTime         float64       `json:"termination_time_s"`          // when the mid-channel gain falls below 10 % of its peak after it [s]
+	TerminationCause        string        `json:"termination_cause"`           // "lower-level bottleneck", "pump collapse", "quenching", "extraction by the pulse" or "no gain"
+	PeakReducedField        float64       `json:"peak_reduced_field_Td"`       // highest |E/N| [Td]
+	PeakCurrent             float64       `json:"peak_current_A"`              // highest |channel current| [A]
+	PeakElectronDensity     float64       `json:"peak_electron_density_m3"`    // [m⁻³]
+	PeakCurrentDensity      float64       `json:"peak_current_density_A_m2"`   // highest |channel current| over the discharge footprint L·w [A/m²]
+	SpecificEnergy          float64       `json:"specific_energy_J_m3"`        // energy into the plasma per discharge volume L·w·d [J/m³]
+	EnergyPerMolecule       float64       `json:"energy_per_molecule_eV"`      // energy into the plasma per gas molecule in the discharge volume [eV]
+	Energy                  EnergyAccount `json:"energy_account"`              // where the stored energy went
+	UniformGlow             bool          `json:"uniform_glow"`                // every limit of the uniform-glow regime is kept (see Regime); if not, the prediction is an upper bound
+	Regime                  []RegimeCheck `json:"regime_checks"`               // the shot against each limit of a uniform glow
+	SwitchHoldsCharge       bool          `json:"switch_holds_charge"`         // the spark gap as described holds the charge voltage (its static breakdown is above it, or unknown); if not, the shot is for a gap that holds, not the one described
+	SwitchBreakdown         float64       `json:"switch_breakdown_V"`          // static breakdown of the spark gap as described [V]; 0 when the design does not describe the gap
+	PeakGasTemperature      float64       `json:"peak_gas_temperature_K"`      // highest gas temperature of the discharge volume over the run (elastic recoil and fast gas heating at constant density) [K]
+	PulseGasTemperature     float64       `json:"pulse_gas_temperature_K"`     // gas temperature of the mid-channel cell when the output-end power peaks (the design's temperature when there is no pulse) [K]
+	GasTemperatureAbove     bool          `json:"gas_temperature_above_range"` // the gas heated above the range of the gain table (spectro's highest temperature): the cross section was held at the top of the range, and the gain is overstated
+	EnergyBalanceResidual   float64       `json:"energy_balance_residual"`     // |stored − (left + dissipated)| / stored
+	PhotonBalanceResidual   float64       `json:"photon_balance_residual"`     // |created − (emitted + lost + left)| / created
+	Lases                   bool          `json:"lases"`                       // the lasing threshold of the channel's optics is reached: open channel gL ≥ 10, one mirror 2gL + ln R ≥ 10, two mirrors building up e^10 within the gain (see Verdict)
+	Verdict                 string        `json:"verdict"`                     // one line: lases, or the limiting cause
+	Advice                  string        `json:"advice,omitempty"`            // what to change when it does not lase, naming design keys
+	StimulatedRatio         float64       `json:"stimulated_to_spontaneous"`   // photons from stimulated emission per spontaneous seed photon
+	Derived                 []string      `json:"derived,omitempty"`           // circuit keys computed from the [build] section
+	Overridden              []string      `json:"overridden,omitempty"`        // spectroscopic values taken from the design, not computed
 	// Validity names the parts of the design the model covers only in part: today helium,
 	// modelled only through the electron energy balance and dilution (see HeliumNote); empty
 	// when the model covers the whole design.

@@ -50,6 +50,7 @@ func Run(d *design.Design, s *RunSettings) (*Result, error) {
 	res.Summary.EndTime = float64(sh.steps) * par.TimeStep
 	res.Summary.Truncated = sh.unfinished()
 	sh.summarise(res)
+	warnings = append(warnings, heatingSummary(&res.Summary, d, sh)...)
 	res.Warnings = append(res.Warnings, warnings...)
 	if err := checkFiniteLight(&res.Summary, d, par); err != nil {
 		return nil, err
@@ -102,6 +103,9 @@ func Run(d *design.Design, s *RunSettings) (*Result, error) {
 	if !res.Summary.SwitchHoldsCharge {
 		res.Summary.Verdict += "; " + switchNote(res.Summary.SwitchBreakdown, d.Circuit.ChargeVoltage)
 	}
+	if note := pulsesNote(&res.Summary); note != "" {
+		res.Summary.Verdict += "; " + note
+	}
 	if s.Light || s.SummaryOnly {
 		res.dropSeries()
 	}
@@ -114,6 +118,16 @@ func Run(d *design.Design, s *RunSettings) (*Result, error) {
 func switchNote(breakdown, charge float64) string {
 	return fmt.Sprintf("the spark gap as described self-breaks at %s, below the %s charge: this result is for a triggered or pressurised gap that holds the full charge, not for the gap described",
 		units.Format(breakdown, "V"), units.Format(charge, "V"))
+}
+
+// pulsesNote is the verdict's clause for an output of separate pulses (Summary.Pulses ≥ 2):
+// the FWHM then spans them all; "" for one pulse or none.
+func pulsesNote(s *Summary) string {
+	if s.Pulses < 2 {
+		return ""
+	}
+	return fmt.Sprintf("the output is %d separate pulses, the first two %s apart (the power falls below %.0f %% of its peak between them): the FWHM of %s spans them, the strongest pulse alone is %s wide",
+		s.Pulses, units.Format(s.PulseSeparation, "s"), 100*DipLevel, units.Format(s.FWHM, "s"), units.Format(s.StrongestPulseFWHM, "s"))
 }
 
 // HeliumNote is the validity note of a design with helium: the model has no helium kinetics,

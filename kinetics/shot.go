@@ -48,6 +48,12 @@ type shot struct {
 	feed *circuitFeed
 	// decayed is how many steps of a travelling excitation's eC and wC are filled.
 	decayed int
+
+	// gains is σ and g_C/g_B against the gas temperature (gasHeating); nil when the design
+	// fixes them (spectroscopy.cross_section or .degeneracy_ratio).
+	gains *gainTable
+	// sigmas and ratios are σ [m²] and g_C/g_B of the medium at each step (nil without gains).
+	sigmas, ratios []float64
 }
 
 func newShot(d *design.Design, p *Parameters, wf *waveforms, steps int, s *RunSettings) *shot {
@@ -82,6 +88,10 @@ func newShot(d *design.Design, p *Parameters, wf *waveforms, steps int, s *RunSe
 	sh.uniform = true
 	for i := range sh.delayWhole {
 		sh.uniform = sh.uniform && sh.delayWhole[i] == 0 && sh.delayFrac[i] == 0
+	}
+	if d.Spectroscopy.CrossSection == 0 && d.Spectroscopy.DegeneracyRatio == 0 {
+		sh.gains = newGainTable(p.GasDensity, d.Gas.Temperature, p.CrossSection, p.DegeneracyRatio)
+		sh.sigmas, sh.ratios = make([]float64, steps), make([]float64, steps)
 	}
 	gb := p.LowerDecayRate
 	sh.eB = math.Exp(-gb * p.TimeStep)
@@ -145,6 +155,7 @@ func (sh *shot) run(res *Result) {
 			return // the circuit failed: followPulse returns its error
 		}
 		sh.fillDecay(eC, wC, k)
+		sh.tune(k)
 		var sum, maxInv float64
 		if lit && !dark {
 			sum, maxInv = sh.stepLit(pump, k, eC, wC)
@@ -394,27 +405,27 @@ func (sh *shot) dark(k int, maxInv float64) bool {
 // record keeps step k of the channel-mean gain, the populations of the middle cell, the peak
 // gain and, every colEvery steps when the Result takes the series, a column of the gain map.
 func (sh *shot) record(res *Result, k int, sum float64, lit bool, colEvery int) {
-	n, m, p := sh.d.Numerics.Cells, sh.med, sh.p
-	g := p.CrossSection * sum / float64(n)
+	n, m := sh.d.Numerics.Cells, sh.med
+	g := m.sigma * sum / float64(n)
 	sh.meanGain[k] = g
 	at := n / 2 // the cell whose populations are recorded
 	if sh.uniform && !lit {
 		at = 0
 	}
 	sh.midC[k], sh.midB[k] = m.c[at], m.b[at]
-	gm := p.CrossSection * (m.c[at] - m.g*m.b[at])
+	gm := m.sigma * (m.c[at] - m.g*m.b[at])
 	if gm > sh.peakGain {
 		sh.peakGain = gm
 	}
 	sh.peakGainLength = max(sh.peakGainLength, g*sh.d.Channel.Length)
 	if sh.series && k%colEvery == 0 {
-		res.GainTime = append(res.GainTime, (float64(k)+1)*p.TimeStep)
+		res.GainTime = append(res.GainTime, (float64(k)+1)*sh.p.TimeStep)
 		for i := 0; i < n; i++ {
 			j := i
 			if sh.uniform && !lit {
 				j = 0
 			}
-			res.Gain[i] = append(res.Gain[i], p.CrossSection*(m.c[j]-m.g*m.b[j]))
+			res.Gain[i] = append(res.Gain[i], m.sigma*(m.c[j]-m.g*m.b[j]))
 		}
 	}
 }
@@ -487,12 +498,17 @@ func (sh *shot) summarise(res *Result) {
 		s.Delay = t(a)
 		s.PulseCentre, s.RMSWidth = pulseWidth(sh.powerFront, dt)
 		s.FWHM, s.DetectorResponse = s.HalfMaxWidth, sh.detector
+		seen := sh.powerFront
 		if sh.detector > 0 {
-			seen := detected(sh.powerFront, dt, sh.detector)
+			seen = detected(sh.powerFront, dt, sh.detector)
 			dk, dp := peak(seen)
 			a, b := crossings(seen, dp, 0.5*dk)
 			s.FWHM = (b - a) * dt
 		}
+		// The pulses as the FWHM sees them (through the detector when there is one), spikes
+		// one transit apart averaged over the round trip 2L/c = 2·cells steps.
+		tr := separatePulses(seen, sh.scratch(1, sh.steps), dt, 2*sh.d.Numerics.Cells)
+		s.Pulses, s.PulseSeparation, s.StrongestPulseFWHM, s.HalfMaxEnergyShare = tr.count, tr.separation, tr.strongestWidth, tr.energyShare
 		r10, _ := crossings(sh.powerFront, kp, 0.1*pk)
 		r90, _ := crossings(sh.powerFront, kp, 0.9*pk)
 		s.Rise = (r90 - r10) * dt
@@ -560,10 +576,10 @@ func (sh *shot) pumpedUpper() float64 {
 // process that removed most of the inversion between the peak and that time.
 func (sh *shot) termination(s *Summary) {
 	p := sh.p
-	g := p.DegeneracyRatio
 	gain := sh.scratch(1, sh.steps)
 	for k := range gain {
-		gain[k] = p.CrossSection * (sh.midC[k] - g*sh.midB[k])
+		sig, g := sh.gainAt(k)
+		gain[k] = sig * (sh.midC[k] - g*sh.midB[k])
 	}
 	gp, kp := peak(gain)
 	if gp <= 0 {
@@ -587,13 +603,16 @@ func (sh *shot) termination(s *Summary) {
 	// other terms leave unexplained.
 	var lower, upper, pumpC float64
 	dt := p.TimeStep
+	_, gp0 := sh.gainAt(kp)
+	_, ge := sh.gainAt(ke)
 	for k := kp + 1; k <= ke; k++ {
+		_, g := sh.gainAt(k)
 		c := sh.midC[k]
 		lower += g * (sample(sh.wf.pumpB, k, w, f) + (p.EinsteinA00+sh.mixB(k, w, f))*c) * dt
 		upper += p.UpperDecayRate * c * dt
 		pumpC += sample(sh.wf.pumpC, k, w, f) * dt
 	}
-	drop := (sh.midC[kp] - g*sh.midB[kp]) - (sh.midC[ke] - g*sh.midB[ke])
+	drop := (sh.midC[kp] - gp0*sh.midB[kp]) - (sh.midC[ke] - ge*sh.midB[ke])
 	stim := drop + pumpC - lower - upper
 	pumpEnded := sample(sh.wf.pumpC, ke, w, f) < 0.1*sh.pumpPeak
 	upperKept := sh.midC[ke] >= 0.5*sh.midC[kp]

@@ -25,6 +25,8 @@ type waveforms struct {
 	manifold, upperV1                *reservoir                 // the B(v>0)/W/B′ and C(v=1) reservoirs over the run
 	recombined                       float64                    // ∫ α₄·n_e²·x(N₄⁺) dt over the samples: electron–N₄⁺ recombinations [m⁻³]
 	recombinedAll                    float64                    // ∫ ᾱ·n_e² dt over the samples: all electron–ion recombinations [m⁻³]
+	gasT                             []float64                  // gas temperature of the discharge volume at the end of each step [K]
+	heating                          *gasHeating                // the heat put into the gas over the run
 	split                            bool                       // the swarm table has a power split
 	energyResidual                   float64
 	peakField, peakCurrent           float64
@@ -51,6 +53,7 @@ func newWaveforms(steps int, series bool) *waveforms {
 		voltage: make([]float64, steps), density: make([]float64, steps),
 		pumpC: make([]float64, steps), pumpB: make([]float64, steps),
 		plasmaPower: make([]float64, steps), lossC: make([]float64, steps), mixB: make([]float64, steps),
+		gasT: make([]float64, steps),
 	}
 	if series {
 		w.current, w.field = make([]float64, steps), make([]float64, steps)
@@ -94,6 +97,7 @@ func fillCircuit(w *waveforms, c *circuit, d *design.Design, par *Parameters, st
 	v1 := newUpperV1(d.Levels, d.Gas, c.density, par.UpperLifetime, dt)
 	shareC1 := par.UpperShare1 * nX
 	shadow := &upperShadow{dt: dt}
+	heat := newGasHeating(d, c.density, dt)
 	// C(0) → B: quenching by N₂ and spontaneous emission into B(v>0); C(v=1) → B: quenching
 	// by N₂ and all of its spontaneous emission [s⁻¹].
 	toB := nX*d.Levels.UpperQuenchingNitrogen + (1/par.UpperLifetime - par.EinsteinA00)
@@ -158,6 +162,9 @@ func fillCircuit(w *waveforms, c *circuit, d *design.Design, par *Parameters, st
 				for j, f := range share {
 					w.plasmaSplit[j] += f * pw
 				}
+				w.gasT[k] = heat.step(w.plasmaPower[k], &share, dt)
+			} else {
+				w.gasT[k] = heat.idle(dt)
 			}
 			w.peakField = math.Max(w.peakField, field)
 			w.peakCurrent = math.Max(w.peakCurrent, math.Abs(y[iIc]))
@@ -170,7 +177,7 @@ func fillCircuit(w *waveforms, c *circuit, d *design.Design, par *Parameters, st
 			feed.publish(k)
 		}
 	}
-	w.manifold, w.upperV1 = man, v1
+	w.manifold, w.upperV1, w.heating = man, v1, heat
 	_, yEnd := integ.State()
 	w.deposited = yEnd[iEPlasma]
 	left := c.storedEnergy(yEnd)

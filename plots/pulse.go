@@ -27,6 +27,9 @@ type PulseData struct {
 	// FWHMStart and FWHMEnd are the first and last half-maximum crossings of the output-end
 	// pulse [s] (HalfMaxCrossings); 0, 0 if there are none.
 	FWHMStart, FWHMEnd float64
+	// Pulses is the number of separate pulses of the output-end power (kinetics.Summary.Pulses);
+	// from 2 on, the half-maximum mark says that it spans them all.
+	Pulses int
 	// RearReflectivity and FrontReflectivity name the ends in the legend ("rear end, mirror
 	// R = 0.9"); 0 for an open end.
 	RearReflectivity, FrontReflectivity float64
@@ -318,7 +321,7 @@ func (r *PulseData) powerPanel(t []float64) *plot.Plot {
 	p.Y.Label.Text = "output power [" + u + "]"
 	p.Y.Min = 0
 	if r.FWHMEnd > r.FWHMStart && maxAbs(r.PowerFront) > 0 {
-		markFWHM(p, 1e9*r.FWHMStart, 1e9*r.FWHMEnd, 0.5*f*maxAbs(r.PowerFront))
+		markFWHM(p, 1e9*r.FWHMStart, 1e9*r.FWHMEnd, 0.5*f*maxAbs(r.PowerFront), r.Pulses)
 	}
 	return p
 }
@@ -338,8 +341,9 @@ func (b band) Plot(c draw.Canvas, p *plot.Plot) {
 }
 
 // markFWHM draws dashed verticals at the half-maximum crossings a and b [ns], a bar between
-// them at the half-maximum level half, and the label "FWHM … ns".
-func markFWHM(p *plot.Plot, a, b, half float64) {
+// them at the half-maximum level half, and the label "half maximum, output end: … ns", which
+// says when the span holds several separate pulses.
+func markFWHM(p *plot.Plot, a, b, half float64, pulses int) {
 	dash := []vg.Length{vg.Points(3), vg.Points(2)}
 	for _, x := range []float64{a, b} {
 		l, err := plotter.NewLine(plotter.XYs{{X: x, Y: 0}, {X: x, Y: 2 * half}})
@@ -358,6 +362,9 @@ func markFWHM(p *plot.Plot, a, b, half float64) {
 	text := fmt.Sprintf("half maximum, output end: %.3g ns", width)
 	if width < 1 {
 		text = fmt.Sprintf("half maximum, output end: %.3g ps", 1e3*width)
+	}
+	if pulses >= 2 {
+		text += fmt.Sprintf(", spans %d separate pulses", pulses)
 	}
 	lab, err := plotter.NewLabels(plotter.XYLabels{XYs: plotter.XYs{{X: b, Y: half}}, Labels: []string{text}})
 	if err == nil {

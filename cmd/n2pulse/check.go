@@ -4,9 +4,12 @@ import (
 	"fmt"
 	"io"
 	"math"
+	"strings"
 	"text/tabwriter"
 
+	"n2pulse/kinetics/study"
 	"n2pulse/plots"
+	"n2pulse/units"
 	"n2pulse/validation"
 )
 
@@ -19,14 +22,19 @@ func init() {
 }
 
 func runCheck(args []string, stdout, stderr io.Writer) error {
-	fs := newFlags("check", "[--strict] [--report DIR]", stderr)
+	fs := newFlags("check", "[--strict] [--report DIR] [--uncertainty N [--seed S]]", stderr)
 	strict := fs.Bool("strict", false, "exit 1 also on a discrepancy with a published experiment")
 	report := fs.String("report", "", "write the validation report (checks.md, checks.csv, overlay figures) into `DIR`")
+	samples := fs.Int("uncertainty", 0, fmt.Sprintf("also run every experiment case with a measured energy over N samples of the uncertain constants (Latin hypercube, %d…%d) and say whether the measured energy lies inside the model's 5–95 %% band", study.MinSamples, study.MaxSamples))
+	seed := fs.Uint64("seed", 1, "seed of the --uncertainty samples")
 	if help, err := parseFlags(fs, args); help || err != nil {
 		return err
 	}
 	if fs.NArg() > 0 {
 		return usagef("check: takes no arguments, got %q", fs.Args())
+	}
+	if err := study.CheckSamples("--uncertainty", *samples); err != nil {
+		return usageOf("check: ", err)
 	}
 	checks := validation.RunAll()
 	if *report != "" {
@@ -37,6 +45,13 @@ func runCheck(args []string, stdout, stderr io.Writer) error {
 	failed, discrepant := printChecks(stdout, checks)
 	fmt.Fprintf(stdout, "\n%d checks: %d passed, %d failed, %d discrepancies with experiments\n",
 		len(checks), len(checks)-failed-discrepant, failed, discrepant)
+	if *samples > 0 {
+		rows, err := validation.ExperimentBands(*samples, *seed, 0)
+		if err != nil {
+			return err
+		}
+		printExperimentBands(stdout, rows, *samples, *seed)
+	}
 	if failed > 0 || (*strict && discrepant > 0) {
 		return errSilent
 	}
@@ -93,4 +108,30 @@ func printChecks(w io.Writer, checks []validation.Check) (failed, discrepant int
 	}
 	tw.Flush()
 	return failed, discrepant
+}
+
+// printExperimentBands writes, per experiment case with a measured energy, the measured value,
+// the model's nominal value and its 5–95 % band over the samples, and where the measurement
+// lies against the band.
+func printExperimentBands(w io.Writer, rows []validation.BandRow, n int, seed uint64) {
+	fmt.Fprintf(w, "\nmeasured energy against the model's uncertainty band (%d samples of the uncertain constants, Latin hypercube, seed %d):\n", n, seed)
+	tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
+	fmt.Fprintln(tw, "case\tend\tmeasured\tmodel\t5 %\tmedian\t95 %\tmeasured lies")
+	inside := 0
+	for _, r := range rows {
+		if r.Err != nil {
+			fmt.Fprintf(tw, "%s\t%s\t%s\t\t\t\t\terror: %v\n", r.Case, r.End, units.Format(r.Measured, "J"), r.Err)
+			continue
+		}
+		pos := r.Position()
+		if pos == "inside" {
+			inside++
+		} else {
+			pos = strings.ToUpper(pos) + " the band"
+		}
+		fmt.Fprintf(tw, "%s\t%s\t%s\t%s\t%s\t%s\t%s\t%s\n", r.Case, r.End, units.Format(r.Measured, "J"), units.Format(r.Nominal, "J"),
+			units.Format(r.Band.P05, "J"), units.Format(r.Band.P50, "J"), units.Format(r.Band.P95, "J"), pos)
+	}
+	tw.Flush()
+	fmt.Fprintf(w, "%d of %d measured energies lie inside the band; the band covers the constants of package kinetics/design (Spreads), not the circuit and switch values of the common block\n", inside, len(rows))
 }

@@ -41,10 +41,16 @@ func compareBandRows(c *comparison) [][]string {
 	return rows
 }
 
-// printCompareBands writes the band of the headline figures of each design and of their ratios
-// to the first design, whether a design may not lase, and what drives each design's energy.
+// printCompareBands writes the constants a design holds (pins), the band of the headline
+// figures of each design and of their ratios to the first design, whether a design may not
+// lase, and what drives each design's energy.
 func printCompareBands(w io.Writer, c *comparison) {
 	fmt.Fprintf(w, "\nuncertainty: %d samples of the uncertain constants, the same for every design (Latin hypercube, seed %d)\n", c.Samples, c.Seed)
+	for _, d := range c.Designs {
+		if len(d.band.Held) > 0 {
+			fmt.Fprintf(w, "  %s: held at the design's values, not sampled: %s\n", d.Name, heldText(d.band.Held))
+		}
+	}
 	tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
 	fmt.Fprintln(tw, "figure: 5 % / median / 95 %\t"+strings.Join(designColumns(len(c.Designs)), "\t")+"\t")
 	for _, m := range c.Metrics {

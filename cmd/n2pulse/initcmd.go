@@ -21,7 +21,7 @@ func init() {
 
 func runInit(args []string, stdout, stderr io.Writer) error {
 	fs := newFlags("init", "[FILE] [--example NAME] [--all] [--force]", stderr)
-	all := fs.Bool("all", false, "print every design key with its default value (SI), instead of the example")
+	all := fs.Bool("all", false, "print every design key with its default value (SI), instead of the example; a file of these values holds nothing in --uncertainty (only a value changed from its default is held)")
 	var names []string
 	for _, e := range data.Examples() {
 		names = append(names, "  "+e.Name+": "+e.Summary)

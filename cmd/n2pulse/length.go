@@ -113,7 +113,7 @@ func runLength(args []string, stdout, stderr io.Writer) error {
 	if !*asJSON {
 		printLength(stdout, r)
 		if r.Samples > 0 {
-			printLengthBands(stdout, r, *seed)
+			printLengthBands(stdout, r, *seed, study.HeldConstants(d))
 		}
 	}
 	if *out == "" {
@@ -158,7 +158,11 @@ func printLength(w io.Writer, r *study.LengthResult) {
 			if s.Truncated {
 				cut = " (truncated)"
 			}
-			line += fmt.Sprintf("%.4g%s\t%.4g\t%.3g\t%.3g\t%.4g\t", 1e6*s.EnergyFront, cut, 1e-3*s.PeakPower, 1e9*s.FWHM,
+			split := ""
+			if s.Pulses >= 2 {
+				split = fmt.Sprintf(" (%d pulses)", s.Pulses)
+			}
+			line += fmt.Sprintf("%.4g%s\t%.4g\t%.3g%s\t%.3g\t%.4g\t", 1e6*s.EnergyFront, cut, 1e-3*s.PeakPower, 1e9*s.FWHM, split,
 				1e9*s.InversionDuration, 100*units.SpeedOfLight*s.InversionDuration)
 		}
 		fmt.Fprintln(tw, line)
@@ -182,6 +186,10 @@ func printLength(w io.Writer, r *study.LengthResult) {
 		} else if p.Summary.Truncated {
 			fmt.Fprintf(w, "length %.4g cm truncated: the pulse was still going at %.4g ns, the longest a run may take; its numbers are cut short\n",
 				100*p.Length, 1e9*p.Summary.EndTime)
+		}
+		if s := p.Summary; p.Err == nil && s.Pulses >= 2 {
+			fmt.Fprintf(w, "length %.4g cm: %d separate pulses, the first two %.3g ns apart: its FWHM spans them (the strongest alone %.3g ns)\n",
+				100*p.Length, s.Pulses, 1e9*s.PulseSeparation, 1e9*s.StrongestPulseFWHM)
 		}
 	}
 }
@@ -264,9 +272,13 @@ func printLengthJSON(w io.Writer, r *study.LengthResult, scaled bool) error {
 }
 
 // printLengthBands writes the band of each length (output-end energy and peak power) with the
-// rows flagged, then each curve's useful-length band and the constants that drive the energy.
-func printLengthBands(w io.Writer, r *study.LengthResult, seed uint64) {
+// rows flagged, then each curve's useful-length band and the constants that drive the energy;
+// held names the constants the design pins (held in every sample).
+func printLengthBands(w io.Writer, r *study.LengthResult, seed uint64, held []string) {
 	fmt.Fprintf(w, "\nuncertainty: %d samples of the uncertain constants at every length (Latin hypercube, seed %d)\n", r.Samples, seed)
+	if len(held) > 0 {
+		fmt.Fprintf(w, "  held at the design's values, not sampled: %s\n", heldText(held))
+	}
 	tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
 	for c, cur := range r.Curves {
 		pre := ""

@@ -54,7 +54,7 @@ func runMerge(args []string, stdout, stderr io.Writer) error {
 		return err
 	}
 	fmt.Fprintf(stderr, "merged %d shard directories: %s\n", fs.NArg(), tableCounts(tab))
-	return reportSweep(stdout, tab, m.Axes, *metrics, *out, *asJSON, m.DesignName, m.Design, sweepBands{m.Samples, m.Seed})
+	return reportSweep(stdout, tab, m.Axes, *metrics, *out, *asJSON, m.DesignName, m.Design, sweepBands{m.Samples, m.Seed, m.Held})
 }
 
 // checkMergeOut refuses an output directory that is one of the shard directories (the shard

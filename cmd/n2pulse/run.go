@@ -196,6 +196,15 @@ func printSummary(w io.Writer, d *design.Design, r *kinetics.Result) {
 	} else {
 		row("FWHM (half maximum)", units.Format(s.FWHM, "s"))
 	}
+	if s.Pulses >= 2 {
+		row("SEPARATE PULSES", fmt.Sprintf("%d, the first two %s apart (the output falls below %.0f %% of its peak between them): the FWHM above spans them; the strongest pulse alone is %s wide",
+			s.Pulses, units.Format(s.PulseSeparation, "s"), 100*kinetics.DipLevel, units.Format(s.StrongestPulseFWHM, "s")))
+	} else if s.Pulses == 1 {
+		row("separate pulses", "1")
+	}
+	if s.Pulses > 0 {
+		row("energy inside the FWHM", fmt.Sprintf("%.0f %% of the output-end energy (76 %% for a Gaussian pulse; much less: a spike on a longer tail)", 100*s.HalfMaxEnergyShare))
+	}
 	row("width from the rms duration", units.Format(s.RMSWidth, "s"))
 	row("rise 10–90 %", units.Format(s.Rise, "s"))
 	row("delay from switch closure", units.Format(s.Delay, "s"))
@@ -205,6 +214,7 @@ func printSummary(w io.Writer, d *design.Design, r *kinetics.Result) {
 	row("peak E/N", fmt.Sprintf("%.0f Td", s.PeakReducedField))
 	row("peak current", fmt.Sprintf("%s (%.3g kA/cm²)", units.Format(s.PeakCurrent, "A"), s.PeakCurrentDensity*1e-7))
 	row("peak electron density", fmt.Sprintf("%.3g cm⁻³", s.PeakElectronDensity*1e-6))
+	row("gas temperature, peak", gasTemperatureLine(s, d.Gas.Temperature))
 	// Two different gains: the highest of the mid-channel cell, and the highest channel-mean
 	// gain, whose gain-length ∫g dz is the one the verdict uses.
 	row("peak gain (mid-channel cell)", fmt.Sprintf("%.3g cm⁻¹ (× channel length: %.3g)", s.PeakGain/100, s.PeakGain*d.Channel.Length))
@@ -231,6 +241,16 @@ func printSummary(w io.Writer, d *design.Design, r *kinetics.Result) {
 	if c := caution(s.StoredEnergy, s.EnergyTotal); c != "" {
 		fmt.Fprintln(w, "\n"+c)
 	}
+}
+
+// gasTemperatureLine gives the peak gas temperature of the discharge volume, its rise, and
+// whether it went above the range of the gain table.
+func gasTemperatureLine(s kinetics.Summary, t0 float64) string {
+	line := fmt.Sprintf("%.0f K (+%.0f K from %.0f K) by the end of the run; %.0f K at the pulse peak", s.PeakGasTemperature, s.PeakGasTemperature-t0, t0, s.PulseGasTemperature)
+	if s.GasTemperatureAbove {
+		line += ", ABOVE the gain table's range: the gain is overstated"
+	}
+	return line
 }
 
 // regimeLine says where the shot sits against the limits of a uniform glow.

@@ -25,6 +25,7 @@ func writeRunFigures(dir string, d *design.Design, r *kinetics.Result, env *stud
 		PowerRear:       r.PowerRear,
 	}
 	pd.FWHMStart, pd.FWHMEnd = plots.HalfMaxCrossings(r.Time, r.PowerFront)
+	pd.Pulses = r.Summary.Pulses
 	pd.RearReflectivity, pd.FrontReflectivity = d.Optics.RearReflectivity, d.Optics.FrontReflectivity
 	if env != nil {
 		pd.Band = &plots.PowerBand{Time: env.Time, Low: env.P05, High: env.P95, Samples: env.Samples}

@@ -11,6 +11,7 @@ import (
 	"path/filepath"
 	"runtime"
 	"slices"
+	"strconv"
 	"strings"
 	"syscall"
 	"text/tabwriter"
@@ -105,7 +106,7 @@ func runSweep(args []string, stdout, stderr io.Writer) error {
 		fmt.Fprintf(stdout, "shard %s: wrote %s; join the shards with `n2pulse merge`\n", s.Shard, filepath.Join(*out, study.ResultsFile))
 		return nil
 	}
-	return reportSweep(stdout, tab, s.Axes, *metrics, *out, *asJSON, d.Name, d.String(), sweepBands{*samples, *seed})
+	return reportSweep(stdout, tab, s.Axes, *metrics, *out, *asJSON, d.Name, d.String(), sweepBands{*samples, *seed, heldIf(*samples, d)})
 }
 
 // sweepReport is what `sweep --json` prints: the grid, the counts, the optimum of each metric
@@ -211,8 +212,9 @@ func isTerminal(w io.Writer) bool {
 	return err == nil && st.Mode()&os.ModeCharDevice != 0
 }
 
-// tableCounts says how many points were computed, how many failed and how many were cut
-// short (status "truncated": the pulse outlasted the longest run a point may take).
+// tableCounts says how many points were computed, how many failed, how many were cut
+// short (status "truncated": the pulse outlasted the longest run a point may take) and how
+// many made separate pulses (column "pulses" above 1: their FWHM spans them all).
 func tableCounts(t *study.Table) string {
 	failed, truncated := 0, 0
 	c := t.Column(study.StatusColumn)
@@ -224,10 +226,29 @@ func tableCounts(t *study.Table) string {
 			failed++
 		}
 	}
+	out := fmt.Sprintf("%d points, %d failed", len(t.Rows), failed)
 	if truncated > 0 {
-		return fmt.Sprintf("%d points, %d failed, %d truncated (left out of the optima)", len(t.Rows), failed, truncated)
+		out += fmt.Sprintf(", %d truncated (left out of the optima)", truncated)
 	}
-	return fmt.Sprintf("%d points, %d failed", len(t.Rows), failed)
+	if n := len(multiPulseRows(t)); n > 0 {
+		out += fmt.Sprintf(", %d with separate pulses (the pulses column; their FWHM spans them all)", n)
+	}
+	return out
+}
+
+// multiPulseRows are the rows of t whose output is two or more separate pulses.
+func multiPulseRows(t *study.Table) []int {
+	c := t.Column("pulses")
+	if c < 0 {
+		return nil
+	}
+	var rows []int
+	for r := range t.Rows {
+		if n, err := strconv.Atoi(t.Rows[r][c]); err == nil && n >= 2 {
+			rows = append(rows, r)
+		}
+	}
+	return rows
 }
 
 // printOptima writes, per metric, the best counted point and its varied values in display

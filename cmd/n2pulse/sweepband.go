@@ -11,11 +11,12 @@ import (
 	"n2pulse/report"
 )
 
-// sweepBands is how a sweep sampled the uncertain constants: Samples per point (0: none) and
-// the seed.
+// sweepBands is how a sweep sampled the uncertain constants: Samples per point (0: none), the
+// seed and the constants the base design pins, held in every sample (study.HeldConstants).
 type sweepBands struct {
 	Samples int
 	Seed    uint64
+	Held    []string
 }
 
 // bandCell formats the number in row r under the named column in the label's display unit,
@@ -65,6 +66,9 @@ func driverLine(ds []study.RankedDriver) string {
 func printSweepBands(w io.Writer, t *study.Table, b sweepBands) {
 	mayNot, flagged := bandFlags(t, "")
 	fmt.Fprintf(w, "\nuncertainty: %d samples of the uncertain constants per point (Latin hypercube, seed %d); 5 %% and 95 %% above are the band at the optimum\n", b.Samples, b.Seed)
+	if len(b.Held) > 0 {
+		fmt.Fprintf(w, "  held at the design's values, not sampled: %s\n", heldText(b.Held))
+	}
 	switch {
 	case mayNot > 0:
 		fmt.Fprintf(w, "  MAY NOT LASE at %d of %d points: the band straddles the lasing threshold (column %s)\n", mayNot, len(t.Rows), study.MayNotLaseColumn)
@@ -83,10 +87,11 @@ func printSweepBands(w io.Writer, t *study.Table, b sweepBands) {
 // sweepBandJSON is the "uncertainty" block of sweep --json (and merge --json): the sampling,
 // the counts of flagged points, the band at each optimum and the drivers over the grid.
 type sweepBandJSON struct {
-	Samples    int    `json:"samples"`
-	Seed       uint64 `json:"seed"`
-	MayNotLase int    `json:"points_may_not_lase"`
-	Flagged    int    `json:"points_flagged"`
+	Samples    int      `json:"samples"`
+	Seed       uint64   `json:"seed"`
+	Held       []string `json:"held"` // constants held at the design's values in every sample
+	MayNotLase int      `json:"points_may_not_lase"`
+	Flagged    int      `json:"points_flagged"`
 	// Optima holds, per metric of "optima", the band (SI) at the optimum's point: keys
 	// "<metric>_p05", "<metric>_p50", "<metric>_p95"; a missing key has no band there.
 	Optima  map[string]float64              `json:"optima_band"`
@@ -95,7 +100,7 @@ type sweepBandJSON struct {
 
 // sweepBandBlock makes the --json block of a banded sweep table.
 func sweepBandBlock(t *study.Table, b sweepBands, optima []plots.Best) *sweepBandJSON {
-	j := &sweepBandJSON{Samples: b.Samples, Seed: b.Seed, Optima: map[string]float64{}, Drivers: map[string][]study.RankedDriver{}}
+	j := &sweepBandJSON{Samples: b.Samples, Seed: b.Seed, Held: append([]string{}, b.Held...), Optima: map[string]float64{}, Drivers: map[string][]study.RankedDriver{}}
 	j.MayNotLase, j.Flagged = bandFlags(t, "")
 	for _, o := range optima {
 		if o.Row < 0 {
@@ -121,6 +126,9 @@ func sweepBandSection(t *study.Table, b sweepBands) report.Section {
 	sec := report.Section{Heading: "Uncertainty bands",
 		Paragraphs: []string{fmt.Sprintf("Every point also ran over %d samples of the uncertain constants (Latin hypercube, seed %d; the varied keys keep their grid values). %s holds each figure's 5 %%, 50 %% and 95 %% values (<figure>_p05, _p50, _p95), the drivers and a note per point.",
 			b.Samples, b.Seed, study.ResultsFile)}}
+	if len(b.Held) > 0 {
+		sec.Paragraphs = append(sec.Paragraphs, "Held at the design's values, not sampled: "+heldText(b.Held)+".")
+	}
 	if mayNot > 0 {
 		sec.Warn = true
 		sec.Paragraphs = append(sec.Paragraphs, fmt.Sprintf("MAY NOT LASE at %d of %d points: the band straddles the lasing threshold.", mayNot, len(t.Rows)))

@@ -173,3 +173,11 @@ func heldText(held []string) string {
 	}
 	return strings.Join(ks, ", ") + " (given with --set, or in the design file at a value other than the default)"
 }
+
+// heldIf returns the constants d pins (study.HeldConstants) when a study samples (n > 0), else nil.
+func heldIf(n int, d *design.Design) []string {
+	if n <= 0 {
+		return nil
+	}
+	return study.HeldConstants(d)
+}

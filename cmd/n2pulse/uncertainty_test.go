@@ -146,3 +146,53 @@ func TestRunUncertaintyHeld(t *testing.T) {
 		t.Errorf("constants %v, held %v; want manifold_share held only", u.Constants, u.Held)
 	}
 }
+
+// TestSweepUncertaintyHeld: a banded sweep holds a constant given with --set (at its default
+// value here) and says so in the text and in "held" of its --json block; resuming the sweep
+// without that --set is refused, naming the held constants.
+func TestSweepUncertaintyHeld(t *testing.T) {
+	t.Parallel()
+	if testing.Short() {
+		t.Skip("runs the model 22 times")
+	}
+	dir := t.TempDir()
+	args := []string{"sweep", "../../data/designs/example.toml", "--set", "numerics.cells=20", "--vary", "gas.pressure=60Torr:100Torr:2",
+		"--uncertainty", "10", "--seed", "5", "--out", dir, "--quiet"}
+	held := []string{"--set", "levels.manifold_share=0.25"}
+	var out, errb bytes.Buffer
+	if code := run(append(append([]string{}, args...), held...), &out, &errb); code != 0 {
+		t.Fatalf("exit %d: %s", code, errb.String())
+	}
+	if !strings.Contains(out.String(), "held at the design's values, not sampled: manifold_share") {
+		t.Errorf("no held line in:\n%s", out.String())
+	}
+	var js bytes.Buffer
+	if code := run([]string{"merge", dir, "--out", t.TempDir(), "--json"}, &js, &errb); code != 0 {
+		t.Fatalf("merge: exit %d: %s", code, errb.String())
+	}
+	var rep struct {
+		U struct {
+			Held []string `json:"held"`
+		} `json:"uncertainty"`
+	}
+	if err := json.Unmarshal(js.Bytes(), &rep); err != nil {
+		t.Fatalf("%v\n%s", err, js.String())
+	}
+	if !slices.Equal(rep.U.Held, []string{"levels.manifold_share"}) {
+		t.Errorf("merge --json: held %v; want [levels.manifold_share]", rep.U.Held)
+	}
+	var o, e bytes.Buffer
+	if code := run(append(append([]string{}, args...), "--resume"), &o, &e); code == 0 || !strings.Contains(e.String(), "constants held") {
+		t.Errorf("resume without the --set: exit %d, %q; want a refusal naming the held constants", code, e.String())
+	}
+}
+
+// TestCheckUncertaintyUsage: check --uncertainty takes 10…100000 samples; another count is a
+// usage error (exit 2) naming the flag, given before the registry runs.
+func TestCheckUncertaintyUsage(t *testing.T) {
+	t.Parallel()
+	var o, e bytes.Buffer
+	if code := run([]string{"check", "--uncertainty", "5"}, &o, &e); code != 2 || !strings.Contains(e.String(), "--uncertainty 5") {
+		t.Errorf("check --uncertainty 5: exit %d, %q; want 2 naming --uncertainty", code, e.String())
+	}
+}

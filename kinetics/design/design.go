@@ -139,7 +139,8 @@ type Levels struct {
 	// stands for the uncertainty of the C³Πu cross section. Only the pump is scaled: the
 	// electron energy distribution, the discharge current and the swarm's power split (the
 	// energy account's plasma split) stay those of the unscaled set; the feedback of this one
-	// channel on the distribution is left out.
+	// channel on the distribution is left out (at 200–300 Td, σ_C × 1.3 in the solver raises k_C
+	// by ×1.22–1.24 and lowers k_ion by 9–12 %: kinetics.TestExcitationScaleFeedback).
 	UpperExcitationScale float64
 	// LowerExcitationScale is the same factor on the electron-impact rate X → B³Πg (both its
 	// share into B(0) and its share into the B(v>0) manifold), with the same limitation.
@@ -150,6 +151,10 @@ type Levels struct {
 	// B(v>0)/W/B′ manifold). Recombination of N₂⁺ and O₂⁺/O₄⁺ gives neither.
 	RecombinationUpperShare float64 // share of e + N₄⁺ into N₂(C) + N₂
 	RecombinationLowerShare float64 // share of e + N₄⁺ into N₂(B) + N₂
+	// FastHeatingShare is the share of the energy the electrons put into electronic states,
+	// dissociation and ionisation that heats the gas within the shot ("fast gas heating");
+	// the gas temperature it raises lowers the gain cross section.
+	FastHeatingShare float64
 }
 
 // Optics holds the ends of the channel, the distributed loss and the excitation front.

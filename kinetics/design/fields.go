@@ -90,6 +90,7 @@ var fieldList = []field{
 	{key: "levels.manifold_relaxation_oxygen", dim: units.RateConstant, unit: "m³/s", num: func(d *Design) *float64 { return &d.Levels.ManifoldRelaxationOxygen }, min: 0, max: 1e-14, help: "removal of the B(v>0)/W/B′ manifold by O₂"},
 	{key: "levels.recombination_upper_share", dim: units.Dimensionless, num: func(d *Design) *float64 { return &d.Levels.RecombinationUpperShare }, min: 0, max: 1, help: "share of electron–N₄⁺ recombination that leaves N₂(C), taken into C(0) (0: no recombination products)"},
 	{key: "levels.recombination_lower_share", dim: units.Dimensionless, num: func(d *Design) *float64 { return &d.Levels.RecombinationLowerShare }, min: 0, max: 1, help: "share of electron–N₄⁺ recombination that leaves N₂(B), taken into the B(v>0)/W/B′ manifold"},
+	{key: "levels.fast_heating_share", dim: units.Dimensionless, num: func(d *Design) *float64 { return &d.Levels.FastHeatingShare }, min: 0, max: 1, help: "share of the electrons' electronic, dissociation and ionisation energy that heats the gas within the shot (estimate 0.1, range 0–0.3); the gas temperature lowers the gain cross section"},
 
 	{key: "optics.rear_reflectivity", dim: units.Dimensionless, num: func(d *Design) *float64 { return &d.Optics.RearReflectivity }, min: 0, max: 1, help: "power reflectivity at the rear end (z = 0)"},
 	{key: "optics.front_reflectivity", dim: units.Dimensionless, num: func(d *Design) *float64 { return &d.Optics.FrontReflectivity }, min: 0, max: 0.999, help: "power reflectivity at the output end (z = L)"},

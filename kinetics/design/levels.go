@@ -96,5 +96,14 @@ func defaultLevels() Levels {
 		// N₄⁺ share of the ions, a state of the circuit (kinetics.ionChemistry).
 		RecombinationUpperShare: 0.11,
 		RecombinationLowerShare: 0.87,
+		// Fast gas heating: the share of the energy the electrons put into electronic states,
+		// dissociation and ionisation that becomes heat within nanoseconds (quenching of the
+		// excited states, fast fragments of dissociation, recombination). No readable value
+		// was found; estimate 0.1, range 0.03–0.3. From memory, the fast-heating literature
+		// (Popov, Plasma Phys. Rep. 27, 886 (2001); Aleksandrov, Kindysheva, Nudnova &
+		// Starikovskiy, J. Phys. D 43, 255201 (2010); Popov, J. Phys. D 44, 285201 (2011))
+		// gives 20–30 % in air at 100–1000 Td and less in pure N₂, where much of the energy
+		// stays in N₂(A³Σu⁺) and in vibration; one value serves every mixture.
+		FastHeatingShare: 0.1,
 	}
 }

@@ -55,6 +55,8 @@ var spreads = []Spread{
 		Source: "derived, range 0.05–0.37 (levels.go): Franck–Condon-weighted yield Σq_v·p^v of the B(v>0) ladder with p = k_VR/(k_VR + k_BA), k_VR = 1–3e-11 cm³/s (from memory) and k_BA = 1.2–3e-11 cm³/s (J. Appl. Phys. 125, 243301 (2019) Table I R25, seen; Kossyi et al. 1992, seen, secondary)"},
 	{Key: "levels.manifold_relaxation_nitrogen", Low: 1.2e-17, High: 3e-17, Distribution: LogUniform,
 		Source: "1.2–3e-11 cm³/s: J. Appl. Phys. 125, 243301 (2019), Table I, R25, 1.2e-11 (seen) to Kossyi et al., Plasma Sources Sci. Technol. 1, 207 (1992), 3e-11 (seen, secondary)"},
+	{Key: "levels.fast_heating_share", Low: 0.03, High: 0.3, Distribution: LogUniform,
+		Source: "estimate 0.1, range 0.03–0.3 (levels.go): 20–30 % of the electronic and dissociation energy in air from the fast-heating literature (Popov, Plasma Phys. Rep. 27, 886 (2001); Aleksandrov et al., J. Phys. D 43, 255201 (2010); Popov, J. Phys. D 44, 285201 (2011); all from memory), less in pure N₂"},
 }
 
 // Spreads returns the design keys whose default carries a published spread or an estimate's

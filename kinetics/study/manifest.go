@@ -28,6 +28,10 @@ type Manifest struct {
 	// Samples and Seed are the uncertainty samples per point (Sweep.Samples), absent without.
 	Samples int    `json:"uncertainty_samples,omitempty"`
 	Seed    uint64 `json:"uncertainty_seed,omitempty"`
+	// Held are the constants the base design pins (HeldConstants), held in every sample;
+	// absent without samples or pins. A --set at a default value pins a constant without
+	// changing the design's listing, so resume and merge compare this too.
+	Held []string `json:"uncertainty_held,omitempty"`
 }
 
 func (s *Sweep) manifest() *Manifest {
@@ -44,6 +48,7 @@ func (s *Sweep) manifest() *Manifest {
 	}
 	if s.Samples > 0 {
 		m.Seed = s.Seed
+		m.Held = HeldConstants(s.Design)
 	}
 	return m
 }
@@ -105,6 +110,9 @@ func (m *Manifest) Differs(o *Manifest) string {
 	}
 	if m.Samples != o.Samples || m.Seed != o.Seed {
 		return fmt.Sprintf("uncertainty samples %d (seed %d) against %d (seed %d)", m.Samples, m.Seed, o.Samples, o.Seed)
+	}
+	if !slices.Equal(m.Held, o.Held) {
+		return fmt.Sprintf("constants held in the uncertainty samples [%s] against [%s]", strings.Join(m.Held, ", "), strings.Join(o.Held, ", "))
 	}
 	if !slices.Equal(m.Columns, o.Columns) {
 		return "table columns differ (written by another version of the program)"

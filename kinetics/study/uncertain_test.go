@@ -161,3 +161,26 @@ func TestHeldConstants(t *testing.T) {
 		t.Errorf("every constant pinned: error %v; want one naming the held constants", err)
 	}
 }
+
+// TestManifestHeld: a banded sweep records the constants its design pins; a --set at a
+// default value pins a constant without changing the design's listing, so resume and merge
+// must see the difference in the manifest.
+func TestManifestHeld(t *testing.T) {
+	t.Parallel()
+	plain := design.ExampleDesign()
+	pinned := plain.Clone()
+	if err := pinned.Set("levels.manifold_share", "0.25"); err != nil { // the default value
+		t.Fatal(err)
+	}
+	a := (&Sweep{Design: plain, Samples: 10, Seed: 1}).manifest()
+	b := (&Sweep{Design: pinned, Samples: 10, Seed: 1}).manifest()
+	if a.DesignHash != b.DesignHash || len(a.Held) != 0 || !reflect.DeepEqual(b.Held, []string{"levels.manifold_share"}) {
+		t.Fatalf("manifests: same hash %v, held %v and %v; want the same hash, [] and [levels.manifold_share]", a.DesignHash == b.DesignHash, a.Held, b.Held)
+	}
+	if got, want := a.Differs(b), "constants held in the uncertainty samples [] against [levels.manifold_share]"; got != want {
+		t.Errorf("Differs = %q, want %q", got, want)
+	}
+	if m := (&Sweep{Design: pinned}).manifest(); m.Held != nil {
+		t.Errorf("a sweep without samples records held %v; want none", m.Held)
+	}
+}
