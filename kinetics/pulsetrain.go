@@ -24,6 +24,9 @@ type pulseTrain struct {
 	// energyShare is the share of the trace's energy between its first and last half-maximum
 	// crossings (the window of the FWHM).
 	energyShare float64
+	// riseSpans is set when the trace first rises through 90 % of its highest value after the
+	// first pulse has ended: a 10–90 % rise read off the whole trace then spans pulses.
+	riseSpans bool
 }
 
 // separatePulses finds the pulses of p, sampled at the ends of steps of dt. Amplified
@@ -46,6 +49,7 @@ func separatePulses(p, scratch []float64, dt float64, window int) pulseTrain {
 	var peaks []int       // index of each pulse's highest mean
 	lo, hi := 0, len(p)-1 // the dips that bound the pulse holding kp: m[lo] and m[hi] below dip (or the ends)
 	closed := false       // the pulse holding kp has ended
+	firstEnd := len(p)    // where the first pulse ends (its mean falls below dip)
 	armed, below := true, -1
 	for i, v := range m {
 		switch {
@@ -57,6 +61,7 @@ func separatePulses(p, scratch []float64, dt float64, window int) pulseTrain {
 			}
 		case !armed && v < dip:
 			armed = true
+			firstEnd = min(firstEnd, i)
 			if i > kp && !closed {
 				hi, closed = i, true
 			}
@@ -77,6 +82,8 @@ func separatePulses(p, scratch []float64, dt float64, window int) pulseTrain {
 	a, b := crossings(p[lo:hi+1], kp-lo, 0.5*pk)
 	t.strongestWidth = (b - a) * dt
 	t.energyShare = halfMaxShare(p, kp, 0.5*pk)
+	r90, _ := crossings(p, kp, 0.9*pk)
+	t.riseSpans = t.count > 1 && r90 > float64(firstEnd)
 	return t
 }
 

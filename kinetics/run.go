@@ -103,7 +103,7 @@ func Run(d *design.Design, s *RunSettings) (*Result, error) {
 	if !res.Summary.SwitchHoldsCharge {
 		res.Summary.Verdict += "; " + switchNote(res.Summary.SwitchBreakdown, d.Circuit.ChargeVoltage)
 	}
-	if note := pulsesNote(&res.Summary); note != "" {
+	if note := pulsesNote(&res.Summary, sh.train.riseSpans); note != "" {
 		res.Summary.Verdict += "; " + note
 	}
 	if s.Light || s.SummaryOnly {
@@ -121,13 +121,18 @@ func switchNote(breakdown, charge float64) string {
 }
 
 // pulsesNote is the verdict's clause for an output of separate pulses (Summary.Pulses ≥ 2):
-// the FWHM then spans them all; "" for one pulse or none.
-func pulsesNote(s *Summary) string {
+// the FWHM then spans them all, and so does the 10–90 % rise when riseSpans (the first pulse
+// stays below 90 % of the highest); "" for one pulse or none.
+func pulsesNote(s *Summary, riseSpans bool) string {
 	if s.Pulses < 2 {
 		return ""
 	}
-	return fmt.Sprintf("the output is %d separate pulses, the first two %s apart (the power falls below %.0f %% of its peak between them): the FWHM of %s spans them, the strongest pulse alone is %s wide",
-		s.Pulses, units.Format(s.PulseSeparation, "s"), 100*DipLevel, units.Format(s.FWHM, "s"), units.Format(s.StrongestPulseFWHM, "s"))
+	spans := fmt.Sprintf("the FWHM of %s spans them", units.Format(s.FWHM, "s"))
+	if riseSpans {
+		spans = fmt.Sprintf("the FWHM of %s and the 10–90 %% rise of %s span them", units.Format(s.FWHM, "s"), units.Format(s.Rise, "s"))
+	}
+	return fmt.Sprintf("the output is %d separate pulses, the first two %s apart (the power falls below %.0f %% of its peak between them): %s, the strongest pulse alone is %s wide",
+		s.Pulses, units.Format(s.PulseSeparation, "s"), 100*DipLevel, spans, units.Format(s.StrongestPulseFWHM, "s"))
 }
 
 // HeliumNote is the validity note of a design with helium: the model has no helium kinetics,

@@ -21,7 +21,9 @@ type shot struct {
 	series bool
 	// detector is the time constant of the detector for the FWHM [s]; 0 for an ideal one.
 	detector float64
-	cols     int
+	// train describes the separate pulses of the output as the FWHM sees it (summarise).
+	train pulseTrain
+	cols  int
 
 	// Per-cell excitation delay as a whole number of steps and a fraction.
 	delayWhole []int
@@ -508,6 +510,7 @@ func (sh *shot) summarise(res *Result) {
 		// The pulses as the FWHM sees them (through the detector when there is one), spikes
 		// one transit apart averaged over the round trip 2L/c = 2·cells steps.
 		tr := separatePulses(seen, sh.scratch(1, sh.steps), dt, 2*sh.d.Numerics.Cells)
+		sh.train = tr
 		s.Pulses, s.PulseSeparation, s.StrongestPulseFWHM, s.HalfMaxEnergyShare = tr.count, tr.separation, tr.strongestWidth, tr.energyShare
 		r10, _ := crossings(sh.powerFront, kp, 0.1*pk)
 		r90, _ := crossings(sh.powerFront, kp, 0.9*pk)
