@@ -26,6 +26,17 @@ type Figure func(path string, v Variation) error
 // specific loading) is a section of checks.md; when a score drawer is given, its figure
 // ScoreboardFigureName too.
 func WriteReport(dir string, checks []Check, figure Figure, score ...ScoreFigure) error {
+	var sf ScoreFigure
+	if len(score) > 0 {
+		sf = score[0]
+	}
+	return WriteReportWith(dir, checks, figure, sf, nil)
+}
+
+// WriteReportWith is WriteReport with the optional parts given explicitly: score draws the
+// scoreboard figure (nil: none), and apparatus, when not nil, adds the section of the apparatus
+// alternatives (ApparatusEnvelope) to checks.md.
+func WriteReportWith(dir string, checks []Check, figure Figure, score ScoreFigure, apparatus []EnvelopeRow) error {
 	if err := os.MkdirAll(dir, 0o755); err != nil {
 		return fmt.Errorf("validation: report: %w", err)
 	}
@@ -43,8 +54,8 @@ func WriteReport(dir string, checks []Check, figure Figure, score ...ScoreFigure
 	}
 	rows, _ := Scoreboard()
 	scoreFig := ""
-	if len(score) > 0 && score[0] != nil && len(rows) > 0 {
-		if err := score[0](filepath.Join(dir, ScoreboardFigureName), rows); err != nil {
+	if score != nil && len(rows) > 0 {
+		if err := score(filepath.Join(dir, ScoreboardFigureName), rows); err != nil {
 			return fmt.Errorf("validation: report: %w", err)
 		}
 		scoreFig = ScoreboardFigureName
@@ -52,6 +63,7 @@ func WriteReport(dir string, checks []Check, figure Figure, score ...ScoreFigure
 	var md bytes.Buffer
 	writeMarkdown(&md, checks, vars, figs, verr)
 	writeScoreboard(&md, rows, scoreFig)
+	writeApparatus(&md, apparatus)
 	if err := reportWrite(filepath.Join(dir, "checks.md"), md.Bytes()); err != nil {
 		return err
 	}

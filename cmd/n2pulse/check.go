@@ -1,6 +1,7 @@
 package main
 
 import (
+	"encoding/json"
 	"fmt"
 	"io"
 	"math"
@@ -22,11 +23,13 @@ func init() {
 }
 
 func runCheck(args []string, stdout, stderr io.Writer) error {
-	fs := newFlags("check", "[--strict] [--report DIR] [--uncertainty N [--seed S]]", stderr)
+	fs := newFlags("check", "[--strict] [--report DIR] [--uncertainty N [--seed S]] [--apparatus] [--json]", stderr)
 	strict := fs.Bool("strict", false, "exit 1 also on a discrepancy with a published experiment")
 	report := fs.String("report", "", "write the validation report (checks.md, checks.csv, overlay figures) into `DIR`")
 	samples := fs.Int("uncertainty", 0, fmt.Sprintf("also run every experiment case with a measured energy over N samples of the uncertain constants (Latin hypercube, %d…%d) and say whether the measured energy lies inside the model's 5–95 %% band", study.MinSamples, study.MaxSamples))
 	seed := fs.Uint64("seed", 1, "seed of the --uncertainty samples")
+	apparatus := fs.Bool("apparatus", false, "also run every experiment case with a measured energy or FWHM once per apparatus alternative of validation/testdata/experiments/COMMON.md (a switch that holds the charge, loop inductances ×0.5 and ×3, width 1–2× the gap where the source gives none) and say whether the measurement lies inside their range; apparatus, not model uncertainty; the checks and their verdicts do not change")
+	asJSON := fs.Bool("json", false, "print the checks (and the --uncertainty and --apparatus results) as JSON on stdout (SI units; null where a value is not defined)")
 	if help, err := parseFlags(fs, args); help || err != nil {
 		return err
 	}
@@ -37,20 +40,43 @@ func runCheck(args []string, stdout, stderr io.Writer) error {
 		return usageOf("check: ", err)
 	}
 	checks := validation.RunAll()
-	if *report != "" {
-		if err := validation.WriteReport(*report, checks, drawVariation, drawScoreboard); err != nil {
+	var envelope []validation.EnvelopeRow
+	if *apparatus {
+		var err error
+		if envelope, err = validation.ApparatusEnvelope(0); err != nil {
 			return err
 		}
 	}
-	failed, discrepant := printChecks(stdout, checks)
-	fmt.Fprintf(stdout, "\n%d checks: %d passed, %d failed, %d discrepancies with experiments\n",
-		len(checks), len(checks)-failed-discrepant, failed, discrepant)
+	if *report != "" {
+		if err := validation.WriteReportWith(*report, checks, drawVariation, drawScoreboard, envelope); err != nil {
+			return err
+		}
+	}
+	var bands []validation.BandRow
 	if *samples > 0 {
-		rows, err := validation.ExperimentBands(*samples, *seed, 0)
+		var err error
+		if bands, err = validation.ExperimentBands(*samples, *seed, 0); err != nil {
+			return err
+		}
+	}
+	var failed, discrepant int
+	if *asJSON {
+		failed, discrepant = countChecks(checks)
+		b, err := json.MarshalIndent(checkJSON(checks, failed, discrepant, bands, *samples, *seed, envelope, *apparatus), "", "  ")
 		if err != nil {
 			return err
 		}
-		printExperimentBands(stdout, rows, *samples, *seed)
+		fmt.Fprintf(stdout, "%s\n", b)
+	} else {
+		failed, discrepant = printChecks(stdout, checks)
+		fmt.Fprintf(stdout, "\n%d checks: %d passed, %d failed, %d discrepancies with experiments\n",
+			len(checks), len(checks)-failed-discrepant, failed, discrepant)
+		if *samples > 0 {
+			printExperimentBands(stdout, bands, *samples, *seed)
+		}
+		if *apparatus {
+			printApparatus(stdout, envelope)
+		}
 	}
 	if failed > 0 || (*strict && discrepant > 0) {
 		return errSilent
@@ -133,5 +159,5 @@ func printExperimentBands(w io.Writer, rows []validation.BandRow, n int, seed ui
 			units.Format(r.Band.P05, "J"), units.Format(r.Band.P50, "J"), units.Format(r.Band.P95, "J"), pos)
 	}
 	tw.Flush()
-	fmt.Fprintf(w, "%d of %d measured energies lie inside the band; the band covers the constants of package kinetics/design (Spreads), not the circuit and switch values of the common block\n", inside, len(rows))
+	fmt.Fprintf(w, "%d of %d measured energies lie inside the band; the band covers the constants of package kinetics/design (Spreads), not the circuit and switch values of the common block (those: --apparatus)\n", inside, len(rows))
 }

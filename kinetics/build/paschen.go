@@ -32,3 +32,47 @@ func (t Townsend) Minimum() (pd, v float64) {
 	k := math.E * math.Log(1+1/t.Gamma) / t.A
 	return k, t.B * k
 }
+
+// HoldingPD returns the smallest reduced p·d [Pa m] on the right branch of Paschen's curve
+// (at or above the minimum) whose static breakdown voltage is v [V]: a uniform gap holds v
+// exactly when its reduced p·d is at least this. It is found by bisection in ln(pd) to a
+// relative width of 1e-12 (Breakdown rises monotonically right of the minimum). v at or below
+// the minimum sparking voltage returns the minimum's p·d.
+func (t Townsend) HoldingPD(v float64) (float64, error) {
+	if !(v > 0) || math.IsInf(v, 0) || !(t.A > 0) || !(t.B > 0) || !(t.Gamma > 0 && t.Gamma < 1) {
+		return 0, fmt.Errorf("build: no holding p·d for %g V with A = %g, B = %g, γ = %g", v, t.A, t.B, t.Gamma)
+	}
+	lo, vmin := t.Minimum()
+	if v <= vmin {
+		return lo, nil
+	}
+	// Right of the minimum V_b > B·pd/ln(A·pd) grows faster than pd/ln(pd): doubling from
+	// the minimum brackets v in a few dozen steps for any voltage a laser uses.
+	hi := 2 * lo
+	for {
+		vb, err := t.Breakdown(hi)
+		if err != nil {
+			return 0, err
+		}
+		if vb >= v {
+			break
+		}
+		lo, hi = hi, 2*hi
+		if hi > 1e12 {
+			return 0, fmt.Errorf("build: no holding p·d for %g V below 1e12 Pa m", v)
+		}
+	}
+	for hi-lo > 1e-12*hi {
+		mid := math.Sqrt(lo * hi)
+		vb, err := t.Breakdown(mid)
+		if err != nil {
+			return 0, err
+		}
+		if vb >= v {
+			hi = mid
+		} else {
+			lo = mid
+		}
+	}
+	return hi, nil
+}

@@ -58,3 +58,41 @@ func TestPaschenAtmosphere(t *testing.T) {
 		t.Error("no error at pd = NaN")
 	}
 }
+
+// TestHoldingPD: the p·d at which air's static breakdown equals the charge voltage, against a
+// hand calculation of the same formula V_b = B·pd/ln(A·pd/ln(1+1/γ)) with A = 15 cm⁻¹ Torr⁻¹,
+// B = 365 V cm⁻¹ Torr⁻¹, γ = 0.01 (data/materials.toml, townsend.air: Bazelyan & Raizer, Spark
+// Discharge, p. 32, as quoted there), solved by bisection in Python 3.11 (float64, 200 halvings):
+// 346.52 Torr cm at 18 kV (4.559 mm at 760 Torr), 391.74 Torr cm at 20 kV. materials.toml rounds
+// A and B to 4 figures in SI, hence 1e-3.
+func TestHoldingPD(t *testing.T) {
+	t.Parallel()
+	g, err := Gas("air")
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, c := range []struct{ v, pd float64 }{{18e3, 346.52}, {20e3, 391.74}} {
+		pd, err := g.HoldingPD(c.v)
+		if err != nil {
+			t.Fatal(err)
+		}
+		near(t, "holding pd", pd/torrCM, c.pd, 1e-3)
+		// The returned p·d breaks down at v (to the bisection's width) and a 1 % shorter gap
+		// does not hold (the definition).
+		vb, _ := g.Breakdown(pd)
+		near(t, "V_b(holding pd)", vb, c.v, 1e-9)
+		if w, _ := g.Breakdown(0.99 * pd); w >= c.v {
+			t.Errorf("V_b(0.99 pd) = %g ≥ %g: pd is not the smallest that holds", w, c.v)
+		}
+	}
+	// At or below the minimum sparking voltage every gap right of the minimum holds.
+	pdMin, vMin := g.Minimum()
+	if pd, err := g.HoldingPD(0.5 * vMin); err != nil || pd != pdMin {
+		t.Errorf("HoldingPD(V_min/2) = %g, %v; want the minimum %g", pd, err, pdMin)
+	}
+	for _, v := range []float64{0, -1, math.NaN(), math.Inf(1)} {
+		if _, err := g.HoldingPD(v); err == nil {
+			t.Errorf("HoldingPD(%g): no error", v)
+		}
+	}
+}

@@ -1,0 +1,141 @@
+package main
+
+import (
+	"fmt"
+	"io"
+	"strings"
+	"text/tabwriter"
+
+	"n2pulse/units"
+	"n2pulse/validation"
+)
+
+// countChecks counts the failed checks and the discrepancies with experiments, as printChecks
+// does.
+func countChecks(checks []validation.Check) (failed, discrepant int) {
+	for _, c := range checks {
+		switch c.Result() {
+		case "FAIL":
+			failed++
+		case "DISCREPANCY":
+			discrepant++
+		}
+	}
+	return failed, discrepant
+}
+
+// errText is the error's message, or nil (JSON null).
+func errText(err error) any {
+	if err == nil {
+		return nil
+	}
+	return err.Error()
+}
+
+// checkJSON is the document `check --json` prints: every check, the counts, and the
+// uncertainty bands and apparatus alternatives when they were asked for (SI units).
+func checkJSON(checks []validation.Check, failed, discrepant int, bands []validation.BandRow, n int, seed uint64,
+	envelope []validation.EnvelopeRow, apparatus bool) map[string]any {
+	cs := make([]map[string]any, 0, len(checks))
+	for _, c := range checks {
+		computed := nullable(c.Computed)
+		if c.Err != nil {
+			computed = nil
+		}
+		cs = append(cs, map[string]any{"id": c.ID, "quantity": c.Quantity, "unit": c.Unit, "computed": computed,
+			"reference": nullable(c.Reference), "deviation": nullable(c.Deviation()), "tolerance": c.ToleranceText(),
+			"result": c.Result(), "kind": c.Kind.String(), "source": c.Source, "error": errText(c.Err)})
+	}
+	out := map[string]any{"checks": cs, "count": len(checks), "passed": len(checks) - failed - discrepant,
+		"failed": failed, "discrepancies": discrepant}
+	if n > 0 {
+		rows := make([]map[string]any, 0, len(bands))
+		for _, r := range bands {
+			rows = append(rows, map[string]any{"case": r.Case, "end": r.End, "measured_J": nullable(r.Measured),
+				"nominal_J": nullable(r.Nominal), "p05_J": nullable(r.Band.P05), "p50_J": nullable(r.Band.P50),
+				"p95_J": nullable(r.Band.P95), "samples": r.Samples, "held": r.Held, "measured_lies": r.Position(),
+				"error": errText(r.Err)})
+		}
+		out["uncertainty_bands"] = map[string]any{"samples": n, "seed": seed, "cases": rows,
+			"note": "model uncertainty over the constants of package kinetics/design (Spreads), not the circuit and switch values of the common block"}
+	}
+	if apparatus {
+		rows := make([]map[string]any, 0, len(envelope))
+		for _, r := range envelope {
+			runs := make([]map[string]any, 0, len(r.Runs))
+			for _, a := range r.Runs {
+				runs = append(runs, map[string]any{"name": a.Name, "sets": a.Sets, "why": a.Why,
+					"energy_J": nullable(a.Energy), "fwhm_s": nullable(a.FWHM), "error": errText(a.Err)})
+			}
+			rows = append(rows, map[string]any{"case": r.Case, "end": r.End,
+				"measured_J": nullable(r.Measured), "nominal_J": nullable(r.Nominal),
+				"energy_low_J": nullable(r.EnergyLow), "energy_high_J": nullable(r.EnergyHigh),
+				"measured_lies": r.MeasuredPosition(), "nominal_lies": r.NominalPosition(),
+				"measured_fwhm_s": nullable(r.MeasuredW), "nominal_fwhm_s": nullable(r.NominalW),
+				"fwhm_low_s": nullable(r.FWHMLow), "fwhm_high_s": nullable(r.FWHMHigh),
+				"measured_fwhm_lies": r.MeasuredWPosition(), "alternatives": runs, "error": errText(r.Err)})
+		}
+		out["apparatus_alternatives"] = map[string]any{"note": validation.ApparatusNote, "cases": rows}
+	}
+	return out
+}
+
+// printApparatus writes the apparatus table of `check --apparatus`: per case the measured
+// energy and FWHM, the nominal run and the range over the apparatus alternatives, then every
+// alternative's run.
+func printApparatus(w io.Writer, rows []validation.EnvelopeRow) {
+	fmt.Fprintf(w, "\nmeasured energy and FWHM against the APPARATUS ALTERNATIVES (%s):\n", validation.ApparatusNote)
+	tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
+	fmt.Fprintln(tw, "case\tend\tmeasured\tnominal\talternatives min–max\tmeasured lies\tnominal lies\tmeasured FWHM\tnominal FWHM\tFWHM min–max\tmeasured FWHM lies")
+	inside, measured := 0, 0
+	for _, r := range rows {
+		if r.Err != nil {
+			fmt.Fprintf(tw, "%s\t%s\terror: %v\n", r.Case, r.End, r.Err)
+			continue
+		}
+		pos := r.MeasuredPosition()
+		if pos != "" {
+			measured++
+		}
+		if pos == "inside" {
+			inside++
+		}
+		fmt.Fprintf(tw, "%s\t%s\t%s\t%s\t%s\t%s\t%s\t%s\t%s\t%s\t%s\n", r.Case, r.End,
+			optJ(r.Measured, "J"), optJ(r.Nominal, "J"), optJ(r.EnergyLow, "J")+" – "+optJ(r.EnergyHigh, "J"),
+			upperOut(pos), upperOut(r.NominalPosition()),
+			optJ(r.MeasuredW, "s"), optJ(r.NominalW, "s"), optJ(r.FWHMLow, "s")+" – "+optJ(r.FWHMHigh, "s"), upperOut(r.MeasuredWPosition()))
+	}
+	tw.Flush()
+	fmt.Fprintf(w, "%d of %d measured energies lie inside the range of the apparatus alternatives\n\n", inside, measured)
+	tw = tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
+	fmt.Fprintln(tw, "case\talternative\tenergy\tFWHM\tsets")
+	for _, r := range rows {
+		for _, a := range r.Runs {
+			if a.Err != nil {
+				fmt.Fprintf(tw, "%s\t%s\terror: %v\t\t%s\n", r.Case, a.Name, a.Err, a.Settings())
+				continue
+			}
+			fmt.Fprintf(tw, "%s\t%s\t%s\t%s\t%s\n", r.Case, a.Name, optJ(a.Energy, "J"), optJ(a.FWHM, "s"), a.Settings())
+		}
+	}
+	tw.Flush()
+}
+
+// optJ formats v in unit, or "–" when it is not a number.
+func optJ(v float64, unit string) string {
+	if v != v {
+		return "–"
+	}
+	return units.Format(v, unit)
+}
+
+// upperOut is pos as printed: "inside", "BELOW"/"ABOVE" in capitals, "–" when undefined.
+func upperOut(pos string) string {
+	switch pos {
+	case "":
+		return "–"
+	case "inside":
+		return pos
+	}
+	return strings.ToUpper(pos)
+}

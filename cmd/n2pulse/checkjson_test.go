@@ -1,0 +1,73 @@
+package main
+
+import (
+	"bytes"
+	"encoding/json"
+	"strings"
+	"testing"
+
+	"gonum.org/v1/gonum/floats/scalar"
+)
+
+// TestCheckApparatus: `check --apparatus --json` carries the apparatus block, labelled as
+// apparatus and not model uncertainty, with the measured energies of the cases' sources (the
+// builders' reports cited in validation/testdata/experiments/*.measured.toml: 11, 23, 34 and
+// 89 µJ) and a range over the alternatives; the text output carries the same table; without
+// --apparatus neither output has it, and the check counts do not change.
+func TestCheckApparatus(t *testing.T) {
+	var o, e bytes.Buffer
+	if code := run([]string{"check", "--apparatus", "--json"}, &o, &e); code != 0 {
+		t.Fatalf("check --apparatus --json: exit %d: %s", code, e.String())
+	}
+	var doc struct {
+		Count, Passed, Failed, Discrepancies int
+		Checks                               []map[string]any
+		Apparatus                            *struct {
+			Note  string
+			Cases []struct {
+				Case         string
+				MeasuredJ    *float64 `json:"measured_J"`
+				LowJ         *float64 `json:"energy_low_J"`
+				HighJ        *float64 `json:"energy_high_J"`
+				MeasuredLies string   `json:"measured_lies"`
+				Alternatives []map[string]any
+			}
+		} `json:"apparatus_alternatives"`
+	}
+	if err := json.Unmarshal(o.Bytes(), &doc); err != nil {
+		t.Fatalf("%v\n%s", err, o.String())
+	}
+	if doc.Apparatus == nil || !strings.Contains(doc.Apparatus.Note, "not model uncertainty") {
+		t.Fatalf("no labelled apparatus block: %+v", doc.Apparatus)
+	}
+	want := map[string]float64{"tea-blumlein-11mm-air": 11e-6, "tea-blumlein-11mm-n2": 23e-6, "tea-transfer-88mm-v1": 34e-6, "tea-transfer-88mm-v2": 89e-6}
+	if len(doc.Apparatus.Cases) != len(want) {
+		t.Errorf("%d cases, want %d", len(doc.Apparatus.Cases), len(want))
+	}
+	for _, c := range doc.Apparatus.Cases {
+		m, ok := want[c.Case]
+		if !ok || c.MeasuredJ == nil || !scalar.EqualWithinAbsOrRel(*c.MeasuredJ, m, 0, 1e-12) {
+			t.Errorf("%s: measured %v, want %g J", c.Case, c.MeasuredJ, m)
+			continue
+		}
+		if c.LowJ == nil || c.HighJ == nil || !(*c.LowJ > 0 && *c.LowJ <= *c.HighJ) || len(c.Alternatives) < 8 || c.MeasuredLies == "" {
+			t.Errorf("%s: range %v…%v over %d alternatives, measured lies %q", c.Case, c.LowJ, c.HighJ, len(c.Alternatives), c.MeasuredLies)
+		}
+	}
+	if doc.Count != len(doc.Checks) || doc.Passed+doc.Failed+doc.Discrepancies != doc.Count || doc.Failed != 0 {
+		t.Errorf("counts %d = %d + %d + %d over %d checks", doc.Count, doc.Passed, doc.Failed, doc.Discrepancies, len(doc.Checks))
+	}
+	o.Reset()
+	if code := run([]string{"check", "--json"}, &o, &e); code != 0 || strings.Contains(o.String(), "apparatus_alternatives") {
+		t.Errorf("check --json: exit %d; apparatus block present without --apparatus", code)
+	}
+	var plain struct{ Count, Discrepancies int }
+	if err := json.Unmarshal(o.Bytes(), &plain); err != nil || plain.Count != doc.Count || plain.Discrepancies != doc.Discrepancies {
+		t.Errorf("check --json: %d checks, %d discrepancies (%v); with --apparatus %d, %d", plain.Count, plain.Discrepancies, err, doc.Count, doc.Discrepancies)
+	}
+	o.Reset()
+	if code := run([]string{"check", "--apparatus"}, &o, &e); code != 0 || !strings.Contains(o.String(), "APPARATUS ALTERNATIVES") ||
+		!strings.Contains(o.String(), "switch-holding-pressure") || !strings.Contains(o.String(), "corner-slow") {
+		t.Errorf("check --apparatus: exit %d, text lacks the apparatus tables", code)
+	}
+}
