@@ -21,6 +21,8 @@ const (
 	iESwitch        // energy dissipated in the switch [J]
 	iEPlasma        // energy delivered to the plasma [J]
 	iEShunt         // energy dissipated in the shunt resistor [J]
+	iX2             // share of the positive ions that are N₂⁺ (ionChemistry)
+	iX4             // share of the positive ions that are N₄⁺
 	nState
 )
 
@@ -33,7 +35,9 @@ type circuit struct {
 	sw                 design.Switch
 	q0                 float64 // spark integral at closure that gives R = R_off [A² s]
 	density, gap, area float64 // N [m⁻³], d [m], L·w [m²]
-	beta               float64 // recombination [m³/s]
+	beta               float64 // one recombination coefficient for every ion [m³/s]; 0: per ion, from T_e (ionChemistry)
+	ions               ionChemistry
+	tgas               float64 // gas temperature [K], the floor of T_e
 	table              *swarm.Table
 	rates              *swarmRates // the table's interpolation of the coefficients used here
 
@@ -70,6 +74,7 @@ func newCircuit(d *design.Design, table *swarm.Table) *circuit {
 		sw:      d.Switch,
 		density: gasDensity(d.Gas), gap: ch.Gap, area: ch.Length * ch.Width,
 		beta: d.Discharge.Recombination, table: table,
+		ions: newIonChemistry(d.Gas, gasDensity(d.Gas)), tgas: d.Gas.Temperature,
 	}
 	c.lo, c.hi = table.Range()
 	c.rates = newSwarmRates(table)
@@ -92,6 +97,7 @@ func (c *circuit) initial(v0, seed float64) ([]float64, float64) {
 		y[iV2] = v0
 	}
 	y[iLnNe] = math.Log(seed)
+	y[iX2] = 1 // every ion is born N₂⁺
 	return y, c.storedEnergy(y)
 }
 
@@ -126,14 +132,31 @@ func (c *circuit) count(en float64) {
 	}
 }
 
-// plasmaCurrent is e·n_e·v_d(E/N)·A with the sign of vg [A], and the net ionisation rate
-// coefficient k_ion − k_att [m³/s].
-func (c *circuit) plasmaCurrent(vg, ne float64) (current, net float64) {
+// plasmaCurrent is e·n_e·v_d(E/N)·A with the sign of vg [A]; the net ionisation rate
+// coefficient k_ion − k_att [m³/s], the ionisation rate coefficient k_ion [m³/s] and the mean
+// electron energy [J].
+func (c *circuit) plasmaCurrent(vg, ne float64) (current, net, kion, mean float64) {
 	en := c.reducedField(vg)
 	c.count(en)
 	var k [nRates]float64
-	c.rates.at(en, rateDrift, rateAtt+1, &k, nil)
-	return math.Copysign(units.ElementaryCharge*ne*k[rateDrift]*c.area, vg), k[rateIon] - k[rateAtt]
+	c.rates.at(en, rateDrift, rateMean+1, &k, nil)
+	return math.Copysign(units.ElementaryCharge*ne*k[rateDrift]*c.area, vg), k[rateIon] - k[rateAtt], k[rateIon], k[rateMean]
+}
+
+// recombinationAt returns the recombination coefficients of electrons of mean energy mean [J]
+// with N₂⁺, N₄⁺ and O₂⁺ [m³/s] and their derivatives with respect to mean [m³/(s J)]: the
+// design's one coefficient for every ion when it sets one, else the published ones at
+// T_e = ⅔·⟨ε⟩/k_B (electronTemperature, recombination).
+func (c *circuit) recombinationAt(mean float64) (a, da [3]float64) {
+	if c.beta > 0 {
+		return [3]float64{c.beta, c.beta, c.beta}, da
+	}
+	te, dte := electronTemperature(mean, c.tgas)
+	a, dat := recombination(te)
+	for j := range da {
+		da[j] = dat[j] * dte
+	}
+	return a, da
 }
 
 // dischargeSample is what the waveforms take of the discharge at one sample of channel voltage vg [V]
@@ -173,12 +196,12 @@ func (c *circuit) sample(vg, ne float64) dischargeSample {
 
 // Eval implements ode.System.
 func (c *circuit) Eval(t float64, y, dy []float64) error {
-	var ip, net float64
+	var ip, net, kion, mean float64
 	ne := math.Exp(y[iLnNe])
 	if c.fixed {
 		ip = c.conductance * y[iVg]
 	} else {
-		ip, net = c.plasmaCurrent(y[iVg], ne)
+		ip, net, kion, mean = c.plasmaCurrent(y[iVg], ne)
 	}
 	rs := c.switchResistance(t, y[iQ])
 	v1, v2, is, ic, vg := y[iV1], y[iV2], y[iIs], y[iIc], y[iVg]
@@ -218,9 +241,12 @@ func (c *circuit) Eval(t float64, y, dy []float64) error {
 		dy[iIc] = (v2 - vg) / c.lc
 	}
 	dy[iVg] = (ic - ip) / c.cg
-	dy[iLnNe] = 0
+	dy[iLnNe], dy[iX2], dy[iX4] = 0, 0, 0
 	if !c.fixed {
-		dy[iLnNe] = net*c.density - c.beta*ne
+		a, _ := c.recombinationAt(mean)
+		x2, x4 := y[iX2], y[iX4]
+		dy[iLnNe] = net*c.density - meanRecombination(x2, x4, a)*ne
+		dy[iX2], dy[iX4] = c.ions.shareRates(x2, x4, kion*c.density, ne, a)
 	}
 	dy[iQ] = is * is
 	dy[iESwitch] = rs * is * is

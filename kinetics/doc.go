@@ -6,7 +6,9 @@
 //     switch loop L_s with R_s(t) (ideal, exponential or Rompe–Weizel spark law), channel loop
 //     L_c, optional shunt, and the gap capacitance C_g = ε₀·L·w_e/d in parallel with the plasma.
 //   - Discharge: the plasma current I_p = e·n_e·v_d(E/N)·L·w with E = V_ch/d, and
-//     d ln n_e/dt = (k_ion − k_att)·N − β·n_e, coefficients from a swarm table. Circuit and
+//     d ln n_e/dt = (k_ion − k_att)·N − ᾱ·n_e, coefficients from a swarm table; ᾱ is the
+//     recombination coefficient of the N₂⁺/N₄⁺/O₂⁺ mixture at T_e = ⅔⟨ε⟩/k_B, the shares
+//     carried as two more states (ions.go), or one β for every ion when the design sets it. Circuit and
 //     discharge form one stiff 0-D system integrated with an L-stable Rosenbrock method.
 //   - Populations of C³Πu(v=0) and B³Πg(v=0) per cell, pumped by f_C·k_C·n_e·N_X and
 //     f_B·k_B·n_e·N_X, lost by radiation and Stern–Volmer quenching, coupled by stimulated

@@ -51,12 +51,35 @@ func (c *circuit) Jacobian(t float64, y []float64, dst *mat.Dense) {
 	} else {
 		en := c.reducedField(vg)
 		var k, dk [nRates]float64
-		c.rates.at(en, rateDrift, rateAtt+1, &k, &dk)
+		c.rates.at(en, rateDrift, rateMean+1, &k, &dk)
 		ip = math.Copysign(units.ElementaryCharge*ne*k[rateDrift]*c.area, vg)
 		dipdv = units.ElementaryCharge * ne * dk[rateDrift] * c.area / (c.gap * c.density)
-		// d ln n_e/dt = (k_ion − k_att)(E/N)·N − β·n_e, E/N = |V_g|/(d·N).
-		set(iLnNe, iVg, (dk[rateIon]-dk[rateAtt])*math.Copysign(1, vg)/c.gap)
-		set(iLnNe, iLnNe, -c.beta*ne)
+		sgn := math.Copysign(1, vg) / (c.gap * c.density) // ∂(E/N)/∂V_g, E/N = |V_g|/(d·N)
+		// Recombination: ᾱ = Σ α_j(T_e(⟨ε⟩(E/N)))·x_j, x_O = 1 − x₂ − x₄.
+		a, da := c.recombinationAt(k[rateMean])
+		x2, x4 := y[iX2], y[iX4]
+		abar := meanRecombination(x2, x4, a)
+		var dav [3]float64 // ∂α_j/∂V_g
+		for j := range da {
+			dav[j] = da[j] * dk[rateMean] * sgn
+		}
+		dabar := meanRecombination(x2, x4, dav)                      // ∂ᾱ/∂V_g
+		d2, d4 := a[0]-a[2], a[1]-a[2]                               // ∂ᾱ/∂x₂, ∂ᾱ/∂x₄
+		nui, dnui := k[rateIon]*c.density, dk[rateIon]*c.density*sgn // ν_i and ∂ν_i/∂V_g
+		// d ln n_e/dt = (k_ion − k_att)(E/N)·N − ᾱ·n_e.
+		set(iLnNe, iVg, (dk[rateIon]-dk[rateAtt])*c.density*sgn-dabar*ne)
+		set(iLnNe, iLnNe, -abar*ne)
+		set(iLnNe, iX2, -d2*ne)
+		set(iLnNe, iX4, -d4*ne)
+		// The shares (ionChemistry.shareRates).
+		set(iX2, iX2, -nui-c.ions.nu3-c.ions.nu2O+(abar-a[0])*ne+d2*ne*x2)
+		set(iX2, iX4, d4*ne*x2)
+		set(iX2, iLnNe, (abar-a[0])*ne*x2)
+		set(iX2, iVg, dnui*(1-x2)+(dabar-dav[0])*ne*x2)
+		set(iX4, iX2, c.ions.nu3+d2*ne*x4)
+		set(iX4, iX4, -nui-c.ions.nu4O+(abar-a[1])*ne+d4*ne*x4)
+		set(iX4, iLnNe, (abar-a[1])*ne*x4)
+		set(iX4, iVg, -dnui*x4+(dabar-dav[1])*ne*x4)
 		set(iVg, iLnNe, -ip/c.cg)
 		set(iEPlasma, iLnNe, vg*ip)
 	}

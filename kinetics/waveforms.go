@@ -23,7 +23,8 @@ type waveforms struct {
 	plasmaSampled                    float64                    // Σ plasma power × Δt over the samples [J]
 	plasmaPower                      []float64                  // plasma power at each sample [W]
 	manifold, upperV1                *reservoir                 // the B(v>0)/W/B′ and C(v=1) reservoirs over the run
-	recombined                       float64                    // ∫ β·n_e²·x(N₄⁺) dt over the samples: electron–N₄⁺ recombinations [m⁻³]
+	recombined                       float64                    // ∫ α₄·n_e²·x(N₄⁺) dt over the samples: electron–N₄⁺ recombinations [m⁻³]
+	recombinedAll                    float64                    // ∫ ᾱ·n_e² dt over the samples: all electron–ion recombinations [m⁻³]
 	gasT                             []float64                  // gas temperature of the discharge volume at the end of each step [K]
 	heating                          *gasHeating                // the heat put into the gas over the run
 	split                            bool                       // the swarm table has a power split
@@ -77,6 +78,7 @@ func fillCircuit(w *waveforms, c *circuit, d *design.Design, par *Parameters, st
 		atol[i] = 1e-7 * iScale
 	}
 	atol[iLnNe] = 1e-7
+	atol[iX2], atol[iX4] = 1e-7, 1e-7
 	atol[iQ] = 1e-7 * iScale * iScale * 1e-9
 	for _, i := range []int{iESwitch, iEPlasma, iEShunt} {
 		atol[i] = 1e-9 * stored
@@ -102,8 +104,7 @@ func fillCircuit(w *waveforms, c *circuit, d *design.Design, par *Parameters, st
 	toBv1 := nX*d.Levels.UpperV1QuenchingNitrogen + 1/par.UpperLifetime
 	eScale := d.Levels.UpperElectronScale
 	// Electron–N₄⁺ recombination leaves N₂(C) and N₂(B) (design.Levels.RecombinationUpperShare,
-	// RecombinationLowerShare); the N₄⁺ share of the ions is followed by ionShares.
-	ions := newIonShares(d.Gas, c.density, dt)
+	// RecombinationLowerShare); the N₄⁺ share of the ions is a state of the circuit.
 	recC, recB := d.Levels.RecombinationUpperShare, d.Levels.RecombinationLowerShare
 	y := make([]float64, nState)
 	k := 0
@@ -142,8 +143,10 @@ func fillCircuit(w *waveforms, c *circuit, d *design.Design, par *Parameters, st
 				w.mixB[k] = sup * par.EinsteinA00 * par.UpperLifetime
 			}
 			var rec float64 // recombinations of electrons with N₄⁺ [m⁻³ s⁻¹]
-			if x4 := ions.step(smp.kIon * c.density); !c.fixed {
-				rec = c.beta * ne * ne * x4
+			if !c.fixed {
+				a, _ := c.recombinationAt(smp.mean)
+				rec = a[1] * ne * ne * y[iX4]
+				w.recombinedAll += meanRecombination(y[iX2], y[iX4], a) * ne * ne * dt
 			}
 			w.recombined += rec * dt
 			w.pumpC[k] = kC*ne*shareC + v1.step(kC*ne*shareC1) + recC*rec

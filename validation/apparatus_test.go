@@ -142,7 +142,8 @@ func TestApparatusEnvelope(t *testing.T) {
 			t.Errorf("%s: measured position %q, want %q", r.Case, r.MeasuredPosition(), got)
 		}
 	}
-	// The 30 nH switch loop of the first case rerun by hand: the same run.
+	// The 30 nH switch loop of the first case rerun by hand: the same run, to 1e-6 ("30 nH" and
+	// 3 × 10 nH differ in the last bit, which the circuit's adaptive steps turn into ~1e-7).
 	for _, c := range cases {
 		if c.Name != rows[0].Case {
 			continue
@@ -156,7 +157,7 @@ func TestApparatusEnvelope(t *testing.T) {
 			t.Fatal(err)
 		}
 		for _, a := range rows[0].Runs {
-			if a.Name == "switch-loop-triple" && !scalar.EqualWithinAbsOrRel(a.Energy, res.Summary.EnergyFront, 0, 1e-12) {
+			if a.Name == "switch-loop-triple" && !scalar.EqualWithinAbsOrRel(a.Energy, res.Summary.EnergyFront, 0, 1e-6) {
 				t.Errorf("%s/%s: %g J, rerun by hand %g J", c.Name, a.Name, a.Energy, res.Summary.EnergyFront)
 			}
 		}

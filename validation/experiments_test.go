@@ -171,6 +171,11 @@ func TestWriteReport(t *testing.T) {
 // of the experiment runs and 200 cells, on every case; the experiment tolerances (factor 2 on
 // energy, 40 % on FWHM) must be much wider than this numerical error. The bound of 10 % is our
 // choice (common practice, no source: a numerical error well inside the comparison tolerance).
+// The FWHM is held to it where a case compares one (a measured FWHM, or a variation of it); the
+// RMS width is held to it everywhere. The FWHM of a train of round-trip spikes is ill-posed when a
+// spike peaks at half the highest: the 8.8 cm v2 case has its third spike at 0.50 of the peak,
+// so its FWHM jumps between 0.67 and 0.92 ns with the cell count (20, 40 cells) while its
+// energy and RMS width agree to 0.01 % and 0.07 %; it compares no FWHM.
 func TestExperimentConvergence(t *testing.T) {
 	if testing.Short() {
 		t.Skip("runs each case twice more")
@@ -185,7 +190,11 @@ func TestExperimentConvergence(t *testing.T) {
 	for _, c := range cases {
 		t.Run(c.Name, func(t *testing.T) {
 			t.Parallel()
-			var e, w [2]float64
+			var e, w, rms [2]float64
+			comparesWidth := c.Measured.FWHM != nil
+			for _, v := range c.Measured.Variation {
+				comparesWidth = comparesWidth || v.Quantity == "fwhm"
+			}
 			for i, n := range []int{20, 200} {
 				d := c.Design.Clone()
 				d.Numerics.Cells = n
@@ -193,18 +202,19 @@ func TestExperimentConvergence(t *testing.T) {
 				if err != nil {
 					t.Fatalf("%s, %d cells: %v", c.Name, n, err)
 				}
-				e[i], w[i] = r.Summary.EnergyFront, r.Summary.FWHM
+				e[i], w[i], rms[i] = r.Summary.EnergyFront, r.Summary.FWHM, r.Summary.RMSWidth
 			}
 			if e[0] == 0 && e[1] == 0 {
 				// A case that does not lase at either resolution (no pulse, no width) converges trivially.
 				t.Logf("%s: no output at 20 or 200 cells", c.Name)
 				return
 			}
-			de, dw := math.Abs(e[0]/e[1]-1), math.Abs(w[0]/w[1]-1)
-			t.Logf("%s: energy %.4g J (20 cells) vs %.4g J (200 cells), %.2f%%; FWHM %.4g vs %.4g s, %.2f%%",
-				c.Name, e[0], e[1], 100*de, w[0], w[1], 100*dw)
-			if !(de <= 0.1 && dw <= 0.1) {
-				t.Errorf("%s: 20 cells differ from 200 cells by %.1f%% (energy), %.1f%% (FWHM); want ≤ 10%%", c.Name, 100*de, 100*dw)
+			de, dw, dr := math.Abs(e[0]/e[1]-1), math.Abs(w[0]/w[1]-1), math.Abs(rms[0]/rms[1]-1)
+			t.Logf("%s: energy %.4g J (20 cells) vs %.4g J (200 cells), %.2f%%; FWHM %.4g vs %.4g s, %.2f%%; RMS width %.4g vs %.4g s, %.2f%%",
+				c.Name, e[0], e[1], 100*de, w[0], w[1], 100*dw, rms[0], rms[1], 100*dr)
+			if !(de <= 0.1 && dr <= 0.1) || comparesWidth && !(dw <= 0.1) {
+				t.Errorf("%s: 20 cells differ from 200 cells by %.1f%% (energy), %.1f%% (FWHM, compared: %v), %.1f%% (RMS width); want ≤ 10%%",
+					c.Name, 100*de, 100*dw, comparesWidth, 100*dr)
 			}
 		})
 	}

@@ -22,10 +22,11 @@ func Defaults() *Design {
 		},
 		Discharge: Discharge{
 			SeedDensity: 1e14, // 1e8 cm⁻³ preionisation, common practice, no source
-			// 2e-7 cm³/s, from memory: order of N₂⁺/N₄⁺ dissociative recombination. Consistent
-			// with e + N₄⁺ (the main ion at 1 atm) at 2.4e-6·(300/T_e)^0.5 cm³/s (J. Appl. Phys.
-			// 125, 243301 (2019), Table I, R7a–R9a, seen): 2.4e-7 at T_e = ⅔·4 eV, 3.3e-7 at ⅔·2 eV.
-			Recombination: 2e-13,
+			// 0: each ion (N₂⁺, N₄⁺, O₂⁺) recombines at its published coefficient at
+			// T_e = ⅔·⟨ε⟩/k_B, weighted by the ion shares the circuit follows (kinetics,
+			// ionChemistry). A value > 0 is one coefficient for every ion (the project's earlier
+			// default was 2e-7 cm³/s, from memory).
+			Recombination: 0,
 		},
 		Levels: defaultLevels(),
 		Optics: Optics{

@@ -111,7 +111,7 @@ type Switch struct {
 // Discharge holds the parameters of the electron balance.
 type Discharge struct {
 	SeedDensity   float64 // preionisation electron density at closure n_e0 [m⁻³]
-	Recombination float64 // electron–ion recombination coefficient β [m³/s]
+	Recombination float64 // one electron–ion recombination coefficient β for every ion [m³/s]; 0: per ion, from the ion mixture and T_e
 }
 
 // Levels holds the collisional and radiative constants of the C³Πu(v=0) upper and

@@ -71,7 +71,7 @@ var fieldList = []field{
 	{key: "switch.spark_constant", dim: units.SparkConstant, unit: "Pa m² V⁻² s⁻¹", num: func(d *Design) *float64 { return &d.Switch.SparkConstant }, min: 1e-3, max: 1e6, help: "Rompe–Weizel constant a"},
 
 	{key: "discharge.seed_density", dim: units.Density, unit: "m⁻³", num: func(d *Design) *float64 { return &d.Discharge.SeedDensity }, min: 1, max: 1e22, help: "preionisation electron density at closure"},
-	{key: "discharge.recombination", dim: units.RateConstant, unit: "m³/s", num: func(d *Design) *float64 { return &d.Discharge.Recombination }, min: 0, max: 1e-10, help: "electron–ion recombination coefficient"},
+	{key: "discharge.recombination", dim: units.RateConstant, unit: "m³/s", num: func(d *Design) *float64 { return &d.Discharge.Recombination }, min: 0, max: 1e-10, help: "electron–ion recombination coefficient, one for every ion (0: each ion's published coefficient at T_e = ⅔ of the mean electron energy, weighted by the N₂⁺/N₄⁺/O₂⁺ shares)"},
 
 	{key: "levels.upper_quenching_nitrogen", dim: units.RateConstant, unit: "m³/s", num: func(d *Design) *float64 { return &d.Levels.UpperQuenchingNitrogen }, min: 0, max: 1e-14, help: "C(0) quenching by N₂"},
 	{key: "levels.upper_quenching_oxygen", dim: units.RateConstant, unit: "m³/s", num: func(d *Design) *float64 { return &d.Levels.UpperQuenchingOxygen }, min: 0, max: 1e-14, help: "C(0) quenching by O₂"},

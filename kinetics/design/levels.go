@@ -91,8 +91,9 @@ func defaultLevels() Levels {
 		// products are not given: C is taken into C(0) (an upper bound for the laser level; what
 		// lands in C(v≥1) would partly relax into it), B into the manifold (the ion's
 		// recombination energy, 15.6 eV less its bond of about 1 eV (from memory), leaves about
-		// 7 eV above B(0), so B is born high in its ladder). The total rate is the
-		// circuit's discharge.recombination; the N₄⁺ share of the ions is kinetics.ionShares.
+		// 7 eV above B(0), so B is born high in its ladder). The total rate is e + N₄⁺'s
+		// coefficient at the discharge's T_e (or discharge.recombination when set) times the
+		// N₄⁺ share of the ions, a state of the circuit (kinetics.ionChemistry).
 		RecombinationUpperShare: 0.11,
 		RecombinationLowerShare: 0.87,
 		// Fast gas heating: the share of the energy the electrons put into electronic states,

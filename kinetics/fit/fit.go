@@ -548,10 +548,12 @@ func (p *problem) minimise(u0 []float64, maxIter int) Start {
 	}
 	st.Values = expAll(p.theta(res.X))
 	st.ChiSquare, st.Iterations, st.Status = res.F, res.Stats.MajorIterations, res.Status.String()
-	// A run that failed at a trial point only turned the line search back; the start failed
-	// only when it ends without a finite χ² or the minimiser itself failed.
+	// A run that failed at a trial point only turned the line search back, and a line search
+	// that cannot move the point any more (no progress: at exact data χ² sits at the model's
+	// numerical noise) ends the start where it is; the start failed only when it ends without
+	// a finite χ² or the minimiser itself failed.
 	e := p.takeErr()
-	if (err != nil && !errors.Is(err, optimize.ErrLinesearcherFailure)) || math.IsInf(res.F, 0) || math.IsNaN(res.F) {
+	if (err != nil && !errors.Is(err, optimize.ErrLinesearcherFailure) && !errors.Is(err, optimize.ErrNoProgress)) || math.IsInf(res.F, 0) || math.IsNaN(res.F) {
 		st.Err = errText(err, e)
 	}
 	return st
