@@ -34,6 +34,7 @@ type AlternativeRun struct {
 	Alternative
 	Energy float64 // at the end(s) the source measured [J]; NaN when the run failed
 	FWHM   float64 // output-end pulse width [s]; NaN when undefined or the run failed
+	Lases  bool    // laser output above the spontaneous-emission floor
 	Err    error
 }
 
@@ -47,6 +48,8 @@ type EnvelopeRow struct {
 	Nominal, NominalW     float64 // the case as written (common block) [J], [s]
 	EnergyLow, EnergyHigh float64 // smallest and largest energy of the alternatives [J]
 	FWHMLow, FWHMHigh     float64 // smallest and largest FWHM of the alternatives [s]; NaN when none defined
+	MeasuredLases         *bool   // whether the source's laser lased, when the source says; nil otherwise
+	NominalLases          bool    // whether the nominal run lases
 	Runs                  []AlternativeRun
 	Err                   error // the case could not be set up or its nominal run failed
 }
@@ -74,6 +77,19 @@ func (r EnvelopeRow) MeasuredPosition() string {
 // MeasuredWPosition is MeasuredPosition for the FWHM.
 func (r EnvelopeRow) MeasuredWPosition() string {
 	return position(r.MeasuredW, r.FWHMLow, r.FWHMHigh)
+}
+
+// Lasing counts the alternatives whose run lases and those that ran.
+func (r EnvelopeRow) Lasing() (lasing, ran int) {
+	for _, a := range r.Runs {
+		if a.Err == nil {
+			ran++
+			if a.Lases {
+				lasing++
+			}
+		}
+	}
+	return lasing, ran
 }
 
 // NominalPosition says where the nominal energy lies against the alternatives' range.
@@ -202,7 +218,7 @@ func siUnit(u string) string {
 	return u
 }
 
-// ApparatusEnvelope runs every experiment case with a measured energy or FWHM once per
+// ApparatusEnvelope runs every experiment case with a measured energy, FWHM or lasing once per
 // apparatus alternative (Alternatives; workers goroutines, 0: one per CPU) and returns one row
 // per such case, in case order, with the nominal values of the scoreboard's runs. A case that
 // fails carries its error in its row; an error is returned only when the cases cannot be read.
@@ -230,11 +246,12 @@ func ApparatusEnvelope(workers int) ([]EnvelopeRow, error) {
 	for i := range cases {
 		c := &cases[i]
 		s := score[i]
-		if math.IsNaN(s.Measured) && math.IsNaN(s.MeasuredW) {
+		if math.IsNaN(s.Measured) && math.IsNaN(s.MeasuredW) && c.Measured.Lases == nil {
 			continue
 		}
 		row := &EnvelopeRow{Case: c.Name, End: "front", Measured: s.Measured, MeasuredW: s.MeasuredW,
-			Nominal: s.Energy, NominalW: s.FWHM, EnergyLow: nan, EnergyHigh: nan, FWHMLow: nan, FWHMHigh: nan, Err: s.Err}
+			Nominal: s.Energy, NominalW: s.FWHM, EnergyLow: nan, EnergyHigh: nan, FWHMLow: nan, FWHMHigh: nan, Err: s.Err,
+			MeasuredLases: c.Measured.Lases, NominalLases: s.Lases}
 		if c.Measured.Energy != nil && c.Measured.Energy.End == "total" {
 			row.End = "total"
 		}
@@ -266,7 +283,7 @@ func ApparatusEnvelope(workers int) ([]EnvelopeRow, error) {
 			run.Err = err
 			return
 		}
-		run.Energy, run.FWHM = res.Summary.EnergyFront, res.Summary.FWHM
+		run.Energy, run.FWHM, run.Lases = res.Summary.EnergyFront, res.Summary.FWHM, res.Summary.Lases
 		if t.row.End == "total" {
 			run.Energy = res.Summary.EnergyTotal
 		}
@@ -338,17 +355,46 @@ func writeApparatus(w *bytes.Buffer, rows []EnvelopeRow) {
 			scoreValue(r.MeasuredW*1e9, "ns"), scoreValue(r.NominalW*1e9, "ns"),
 			scoreValue(r.FWHMLow*1e9, "ns"), scoreValue(r.FWHMHigh*1e9, "ns"), dash(r.MeasuredWPosition()))
 	}
-	fmt.Fprintf(w, "\n| case | alternative | sets | energy | FWHM |\n| --- | --- | --- | --- | --- |\n")
+	for _, r := range rows {
+		if r.Err == nil && r.MeasuredLases != nil {
+			fmt.Fprintf(w, "\n%s.\n", LasingSentence(r))
+		}
+	}
+	fmt.Fprintf(w, "\n| case | alternative | sets | energy | FWHM | lases |\n| --- | --- | --- | --- | --- | --- |\n")
 	for _, r := range rows {
 		for _, a := range r.Runs {
 			if a.Err != nil {
-				fmt.Fprintf(w, "| %s | %s | %s | error: %s | |\n", r.Case, a.Name, mdCell(a.Settings()), mdCell(a.Err.Error()))
+				fmt.Fprintf(w, "| %s | %s | %s | error: %s | | |\n", r.Case, a.Name, mdCell(a.Settings()), mdCell(a.Err.Error()))
 				continue
 			}
-			fmt.Fprintf(w, "| %s | %s | %s | %s | %s |\n", r.Case, a.Name, mdCell(a.Settings()),
-				scoreValue(a.Energy*1e6, "µJ"), scoreValue(a.FWHM*1e9, "ns"))
+			fmt.Fprintf(w, "| %s | %s | %s | %s | %s | %s |\n", r.Case, a.Name, mdCell(a.Settings()),
+				scoreValue(a.Energy*1e6, "µJ"), scoreValue(a.FWHM*1e9, "ns"), yesNo(a.Lases))
 		}
 	}
+}
+
+// LasingSentence says, for a case whose source says whether its laser lased, what the source,
+// the nominal run and the alternatives give: "tea-x: the source's laser did not lase; the
+// nominal run lases; 8 of 8 alternatives lase".
+func LasingSentence(r EnvelopeRow) string {
+	src := "did not lase"
+	if r.MeasuredLases != nil && *r.MeasuredLases {
+		src = "lased"
+	}
+	nom := "does not lase"
+	if r.NominalLases {
+		nom = "lases"
+	}
+	k, n := r.Lasing()
+	return fmt.Sprintf("%s: the source's laser %s; the nominal run %s; %d of %d alternatives lase", r.Case, src, nom, k, n)
+}
+
+// yesNo is "yes" or "no".
+func yesNo(b bool) string {
+	if b {
+		return "yes"
+	}
+	return "no"
 }
 
 // dash is s, or "–" when empty.

@@ -18,6 +18,7 @@ type ScoreRow struct {
 	SpecificEnergy    float64 // energy into the plasma per discharge volume [J/m³]
 	CurrentDensity    float64 // peak current density [A/m²]
 	UniformGlow       bool    // the shot keeps the limits of a uniform glow
+	Lases             bool    // the model gives laser output above the spontaneous-emission floor
 	Energy, Measured  float64 // model and measured pulse energy at the measured end(s) [J]; NaN when not measured
 	FWHM, MeasuredW   float64 // model and measured pulse width (FWHM) [s]; NaN when not measured
 	Err               error   // the run failed
@@ -49,7 +50,7 @@ func scoreRow(c *expCase, j *job) ScoreRow {
 	s := j.sum
 	if j.err == nil {
 		row.EnergyPerMolecule, row.SpecificEnergy, row.CurrentDensity = s.EnergyPerMolecule, s.SpecificEnergy, s.PeakCurrentDensity
-		row.UniformGlow = s.UniformGlow
+		row.UniformGlow, row.Lases = s.UniformGlow, s.Lases
 	}
 	m := c.Measured
 	if m.Energy != nil {

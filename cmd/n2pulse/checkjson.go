@@ -65,15 +65,17 @@ func checkJSON(checks []validation.Check, failed, discrepant int, bands []valida
 			runs := make([]map[string]any, 0, len(r.Runs))
 			for _, a := range r.Runs {
 				runs = append(runs, map[string]any{"name": a.Name, "sets": a.Sets, "why": a.Why,
-					"energy_J": nullable(a.Energy), "fwhm_s": nullable(a.FWHM), "error": errText(a.Err)})
+					"energy_J": nullable(a.Energy), "fwhm_s": nullable(a.FWHM), "lases": a.Lases, "error": errText(a.Err)})
 			}
+			lasing, _ := r.Lasing()
 			rows = append(rows, map[string]any{"case": r.Case, "end": r.End,
 				"measured_J": nullable(r.Measured), "nominal_J": nullable(r.Nominal),
 				"energy_low_J": nullable(r.EnergyLow), "energy_high_J": nullable(r.EnergyHigh),
 				"measured_lies": r.MeasuredPosition(), "nominal_lies": r.NominalPosition(),
 				"measured_fwhm_s": nullable(r.MeasuredW), "nominal_fwhm_s": nullable(r.NominalW),
 				"fwhm_low_s": nullable(r.FWHMLow), "fwhm_high_s": nullable(r.FWHMHigh),
-				"measured_fwhm_lies": r.MeasuredWPosition(), "alternatives": runs, "error": errText(r.Err)})
+				"measured_fwhm_lies": r.MeasuredWPosition(), "measured_lases": r.MeasuredLases, "nominal_lases": r.NominalLases,
+				"alternatives_lasing": lasing, "alternatives": runs, "error": errText(r.Err)})
 		}
 		out["apparatus_alternatives"] = map[string]any{"note": validation.ApparatusNote, "cases": rows}
 	}
@@ -106,16 +108,26 @@ func printApparatus(w io.Writer, rows []validation.EnvelopeRow) {
 			optJ(r.MeasuredW, "s"), optJ(r.NominalW, "s"), optJ(r.FWHMLow, "s")+" – "+optJ(r.FWHMHigh, "s"), upperOut(r.MeasuredWPosition()))
 	}
 	tw.Flush()
-	fmt.Fprintf(w, "%d of %d measured energies lie inside the range of the apparatus alternatives\n\n", inside, measured)
+	fmt.Fprintf(w, "%d of %d measured energies lie inside the range of the apparatus alternatives\n", inside, measured)
+	for _, r := range rows {
+		if r.Err == nil && r.MeasuredLases != nil {
+			fmt.Fprintln(w, validation.LasingSentence(r))
+		}
+	}
+	fmt.Fprintln(w)
 	tw = tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
-	fmt.Fprintln(tw, "case\talternative\tenergy\tFWHM\tsets")
+	fmt.Fprintln(tw, "case\talternative\tenergy\tFWHM\tlases\tsets")
 	for _, r := range rows {
 		for _, a := range r.Runs {
 			if a.Err != nil {
-				fmt.Fprintf(tw, "%s\t%s\terror: %v\t\t%s\n", r.Case, a.Name, a.Err, a.Settings())
+				fmt.Fprintf(tw, "%s\t%s\terror: %v\t\t\t%s\n", r.Case, a.Name, a.Err, a.Settings())
 				continue
 			}
-			fmt.Fprintf(tw, "%s\t%s\t%s\t%s\t%s\n", r.Case, a.Name, optJ(a.Energy, "J"), optJ(a.FWHM, "s"), a.Settings())
+			lases := "no"
+			if a.Lases {
+				lases = "yes"
+			}
+			fmt.Fprintf(tw, "%s\t%s\t%s\t%s\t%s\t%s\n", r.Case, a.Name, optJ(a.Energy, "J"), optJ(a.FWHM, "s"), lases, a.Settings())
 		}
 	}
 	tw.Flush()

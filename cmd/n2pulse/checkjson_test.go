@@ -12,7 +12,7 @@ import (
 // TestCheckApparatus: `check --apparatus --json` carries the apparatus block, labelled as
 // apparatus and not model uncertainty, with the measured energies of the cases' sources (the
 // builders' reports cited in validation/testdata/experiments/*.measured.toml: 11, 23, 34 and
-// 89 µJ) and a range over the alternatives; the text output carries the same table; without
+// 89 µJ; the mirrorless 11 mm laser did not lase) and a range over the alternatives; the text output carries the same table; without
 // --apparatus neither output has it, and the check counts do not change.
 func TestCheckApparatus(t *testing.T) {
 	var o, e bytes.Buffer
@@ -30,6 +30,8 @@ func TestCheckApparatus(t *testing.T) {
 				LowJ         *float64 `json:"energy_low_J"`
 				HighJ        *float64 `json:"energy_high_J"`
 				MeasuredLies string   `json:"measured_lies"`
+				Lases        *bool    `json:"measured_lases"`
+				Lasing       int      `json:"alternatives_lasing"`
 				Alternatives []map[string]any
 			}
 		} `json:"apparatus_alternatives"`
@@ -41,10 +43,17 @@ func TestCheckApparatus(t *testing.T) {
 		t.Fatalf("no labelled apparatus block: %+v", doc.Apparatus)
 	}
 	want := map[string]float64{"tea-blumlein-11mm-air": 11e-6, "tea-blumlein-11mm-n2": 23e-6, "tea-transfer-88mm-v1": 34e-6, "tea-transfer-88mm-v2": 89e-6}
-	if len(doc.Apparatus.Cases) != len(want) {
-		t.Errorf("%d cases, want %d", len(doc.Apparatus.Cases), len(want))
+	if len(doc.Apparatus.Cases) != len(want)+1 {
+		t.Errorf("%d cases, want %d", len(doc.Apparatus.Cases), len(want)+1)
 	}
 	for _, c := range doc.Apparatus.Cases {
+		if c.Case == "tea-blumlein-11mm-n2-mirrorless" {
+			// The source says only that it did not lase (same video description).
+			if c.MeasuredJ != nil || c.Lases == nil || *c.Lases || c.Lasing < 0 || c.Lasing > len(c.Alternatives) {
+				t.Errorf("%s: measured %v J, lases %v, %d of %d alternatives lase", c.Case, c.MeasuredJ, c.Lases, c.Lasing, len(c.Alternatives))
+			}
+			continue
+		}
 		m, ok := want[c.Case]
 		if !ok || c.MeasuredJ == nil || !scalar.EqualWithinAbsOrRel(*c.MeasuredJ, m, 0, 1e-12) {
 			t.Errorf("%s: measured %v, want %g J", c.Case, c.MeasuredJ, m)
