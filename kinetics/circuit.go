@@ -38,6 +38,7 @@ type circuit struct {
 	beta               float64 // one recombination coefficient for every ion [m³/s]; 0: per ion, from T_e (ionChemistry)
 	ions               ionChemistry
 	tgas               float64 // gas temperature [K], the floor of T_e
+	recScale           float64 // factor on the computed per-ion coefficients
 	table              *swarm.Table
 	rates              *swarmRates // the table's interpolation of the coefficients used here
 
@@ -74,7 +75,7 @@ func newCircuit(d *design.Design, table *swarm.Table) *circuit {
 		sw:      d.Switch,
 		density: gasDensity(d.Gas), gap: ch.Gap, area: ch.Length * ch.Width,
 		beta: d.Discharge.Recombination, table: table,
-		ions: newIonChemistry(d.Gas, gasDensity(d.Gas)), tgas: d.Gas.Temperature,
+		ions: newIonChemistry(d.Gas, gasDensity(d.Gas)), tgas: d.Gas.Temperature, recScale: d.Discharge.RecombinationScale,
 	}
 	c.lo, c.hi = table.Range()
 	c.rates = newSwarmRates(table)
@@ -146,7 +147,7 @@ func (c *circuit) plasmaCurrent(vg, ne float64) (current, net, kion, mean float6
 // recombinationAt returns the recombination coefficients of electrons of mean energy mean [J]
 // with N₂⁺, N₄⁺ and O₂⁺ [m³/s] and their derivatives with respect to mean [m³/(s J)]: the
 // design's one coefficient for every ion when it sets one, else the published ones at
-// T_e = ⅔·⟨ε⟩/k_B (electronTemperature, recombination).
+// T_e = ⅔·⟨ε⟩/k_B (electronTemperature, recombination) times discharge.recombination_scale.
 func (c *circuit) recombinationAt(mean float64) (a, da [3]float64) {
 	if c.beta > 0 {
 		return [3]float64{c.beta, c.beta, c.beta}, da
@@ -154,7 +155,8 @@ func (c *circuit) recombinationAt(mean float64) (a, da [3]float64) {
 	te, dte := electronTemperature(mean, c.tgas)
 	a, dat := recombination(te)
 	for j := range da {
-		da[j] = dat[j] * dte
+		a[j] *= c.recScale
+		da[j] = c.recScale * dat[j] * dte
 	}
 	return a, da
 }

@@ -137,6 +137,20 @@ func TestRecombinationCoefficientHand(t *testing.T) {
 	if te, dte := electronTemperature(0.01*units.ElementaryCharge, 300); te != 300 || dte != 0 {
 		t.Errorf("T_e at 0.01 eV = %g K (slope %g), want the gas's 300 K", te, dte)
 	}
+	// discharge.recombination_scale multiplies the computed coefficients and their slopes, and
+	// leaves a coefficient the design sets alone.
+	mean := 3 * units.ElementaryCharge
+	one, two := &circuit{tgas: 300, recScale: 1}, &circuit{tgas: 300, recScale: 2}
+	a1, d1 := one.recombinationAt(mean)
+	a2, d2 := two.recombinationAt(mean)
+	for j := range a1 {
+		if a2[j] != 2*a1[j] || d2[j] != 2*d1[j] {
+			t.Errorf("scale 2, ion %d: α %g and %g, slope %g and %g", j, a1[j], a2[j], d1[j], d2[j])
+		}
+	}
+	if a, _ := (&circuit{tgas: 300, recScale: 2, beta: 2e-13}).recombinationAt(mean); a != [3]float64{2e-13, 2e-13, 2e-13} {
+		t.Errorf("a set β with scale 2: %v, want 2e-13 for every ion", a)
+	}
 }
 
 // TestElectronBalance: along the example circuit's discharge (N₂ and air) the change of

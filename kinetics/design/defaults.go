@@ -27,6 +27,10 @@ func Defaults() *Design {
 			// ionChemistry). A value > 0 is one coefficient for every ion (the project's earlier
 			// default was 2e-7 cm³/s, from memory).
 			Recombination: 0,
+			// Estimate, range ×0.5–2 (uncertain.go): the fits are measured up to a few
+			// thousand kelvin and used at T_e of 1–4 eV, with T_e from ⟨ε⟩ of a non-Maxwellian
+			// distribution; the published N₄⁺ values differ by 20 % (2e-6 and 2.4e-6 cm³/s).
+			RecombinationScale: 1,
 		},
 		Levels: defaultLevels(),
 		Optics: Optics{

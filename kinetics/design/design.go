@@ -112,6 +112,10 @@ type Switch struct {
 type Discharge struct {
 	SeedDensity   float64 // preionisation electron density at closure n_e0 [m⁻³]
 	Recombination float64 // one electron–ion recombination coefficient β for every ion [m³/s]; 0: per ion, from the ion mixture and T_e
+	// RecombinationScale multiplies the computed per-ion coefficients (not a β the design
+	// sets): the uncertainty of the published fits used far above the temperatures they were
+	// measured at.
+	RecombinationScale float64
 }
 
 // Levels holds the collisional and radiative constants of the C³Πu(v=0) upper and

@@ -72,6 +72,7 @@ var fieldList = []field{
 
 	{key: "discharge.seed_density", dim: units.Density, unit: "m⁻³", num: func(d *Design) *float64 { return &d.Discharge.SeedDensity }, min: 1, max: 1e22, help: "preionisation electron density at closure"},
 	{key: "discharge.recombination", dim: units.RateConstant, unit: "m³/s", num: func(d *Design) *float64 { return &d.Discharge.Recombination }, min: 0, max: 1e-10, help: "electron–ion recombination coefficient, one for every ion (0: each ion's published coefficient at T_e = ⅔ of the mean electron energy, weighted by the N₂⁺/N₄⁺/O₂⁺ shares)"},
+	{key: "discharge.recombination_scale", dim: units.Dimensionless, num: func(d *Design) *float64 { return &d.Discharge.RecombinationScale }, min: 0.1, max: 10, help: "factor on the computed per-ion recombination coefficients (estimate ×0.5–2: the fits are used far above the temperatures they were measured at); no effect when discharge.recombination is set"},
 
 	{key: "levels.upper_quenching_nitrogen", dim: units.RateConstant, unit: "m³/s", num: func(d *Design) *float64 { return &d.Levels.UpperQuenchingNitrogen }, min: 0, max: 1e-14, help: "C(0) quenching by N₂"},
 	{key: "levels.upper_quenching_oxygen", dim: units.RateConstant, unit: "m³/s", num: func(d *Design) *float64 { return &d.Levels.UpperQuenchingOxygen }, min: 0, max: 1e-14, help: "C(0) quenching by O₂"},

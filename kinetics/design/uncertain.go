@@ -29,12 +29,14 @@ type Spread struct {
 // spreads lists the design keys whose default has a published spread or an estimate's range.
 // Every range contains the default of Defaults (TestSpreadsHoldDefaults); the defaults
 // themselves and their sources are in levels.go. Keys whose default has no range anywhere in
-// the project (switch.spark_constant, discharge.recombination, levels.lower_removal_*,
+// the project (switch.spark_constant, a discharge.recombination set by hand, levels.lower_removal_*,
 // levels.manifold_relaxation_oxygen) are not listed. levels.manifold_share and
 // levels.manifold_relaxation_nitrogen are sampled independently, though the derivation of the
 // share (levels.go) lowers it as the B → A transfer grows: the share sets how much of the
 // manifold reaches B(0), the relaxation constant how fast.
 var spreads = []Spread{
+	{Key: "discharge.recombination_scale", Low: 0.5, High: 2, Distribution: LogUniform,
+		Source: "estimate, range ×0.5–2: the per-ion fits (Mehr & Biondi, Phys. Rev. 181, 264 (1969); Kossyi et al., Plasma Sources Sci. Technol. 1, 207 (1992); Peverall et al., J. Chem. Phys. 114, 6679 (2001); seen, secondary) are measured up to a few thousand kelvin and used at 1–4 eV with T_e = ⅔⟨ε⟩; N₄⁺ 2e-6 against 2.4e-6 cm³/s in J. Appl. Phys. 125, 243301 (2019) Table I (seen)"},
 	{Key: "levels.upper_quenching_nitrogen", Low: 1.0e-17, High: 1.5e-17, Distribution: Uniform,
 		Source: "1.0–1.5e-11 cm³/s: Kossyi, Kostinsky, Matveyev & Silakov, Plasma Sources Sci. Technol. 1, 207 (1992) (seen, secondary) to Pancheshnyi et al., Chem. Phys. Lett. 294, 523 (1998) (from memory) and older measurements near 1.1–1.5e-11 (from memory)"},
 	{Key: "levels.upper_quenching_oxygen", Low: 2.7e-16, High: 3.3e-16, Distribution: Uniform,

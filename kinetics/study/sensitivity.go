@@ -31,7 +31,7 @@ type SensitivityRow struct {
 // rather than something a builder chooses: the gas's own properties are not advice.
 func PhysicalConstant(key string) bool {
 	return strings.HasPrefix(key, "levels.") || strings.HasPrefix(key, "spectroscopy.") ||
-		key == "discharge.recombination" || key == "switch.spark_constant"
+		strings.HasPrefix(key, "discharge.recombination") || key == "switch.spark_constant"
 }
 
 // SensitivityKeys returns the numeric keys of d whose sensitivity can be taken: non-zero and
