@@ -22,7 +22,7 @@ type Summary struct {
 	RMSWidth         float64 `json:"rms_fwhm_s"`       // 2·sqrt(2 ln 2) × the rms duration of the output-end pulse: the FWHM of a Gaussian of the same rms width, smooth across spikes [s]
 	// Pulses is the number of separate pulses in the output-end power as FWHM sees it
 	// (through the detector when there is one): maxima that reach half the highest peak,
-	// each two with a dip below DipLevel (a tenth) of the highest peak between them. 0 when
+	// each two with a dip below DipLevel (a quarter) of the highest peak between them. 0 when
 	// there is no output. When it is 2 or more, FWHM spans them all and the verdict says so.
 	Pulses int `json:"pulses"`
 	// PulseSeparation is the time between the peaks of the first two pulses; 0 for one
@@ -36,6 +36,22 @@ type Summary struct {
 	// and an exponential decay. Much less means FWHM measures a spike on a longer tail, whose
 	// length RMSWidth follows.
 	HalfMaxEnergyShare float64 `json:"half_max_energy_share"`
+	// FWHMAt45 and FWHMAt55 are the widths of the same trace as FWHM, first rise to last
+	// fall, read at 45 % and 55 % of its highest value (½ ∓ HalfMaxBand): how much the width
+	// depends on the level. For a Gaussian pulse they are 1.07 and 0.93 × FWHM; for a sudden
+	// rise and an exponential decay 1.15 and 0.86 × FWHM [s].
+	FWHMAt45 float64 `json:"fwhm_45_s"`
+	FWHMAt55 float64 `json:"fwhm_55_s"`
+	// FWHMJump is the largest leap of an edge of the width (first rise or last fall) as the
+	// level moves between 45 % and 55 % of the highest value: a local maximum of the trace
+	// with its top inside that band, beyond the edge, flips in or out of the width. 0 for a
+	// smooth pulse [s].
+	FWHMJump float64 `json:"fwhm_jump_s"`
+	// FWHMIllConditioned is set when FWHMJump exceeds JumpLimit (a tenth) of FWHM, or
+	// FWHMAt45 − FWHMAt55 exceeds SpreadLimit (a half) of it (a flat shoulder near half the
+	// peak): a small change of the level, or of the model (cells, a constant), can move FWHM
+	// by that much, while RMSWidth follows such a change smoothly. The verdict then says so.
+	FWHMIllConditioned bool    `json:"fwhm_ill_conditioned"`
 	PulseCentre        float64 `json:"pulse_centre_s"` // power-weighted mean time of the output-end pulse [s]
 	Rise               float64 `json:"rise_s"`         // 10–90 % rise time of the output-end pulse [s]
 	Delay              float64 `json:"delay_s"`        // switch closure to the half-maximum of the rising edge [s]

@@ -106,6 +106,9 @@ func Run(d *design.Design, s *RunSettings) (*Result, error) {
 	if note := pulsesNote(&res.Summary, sh.train.riseSpans); note != "" {
 		res.Summary.Verdict += "; " + note
 	}
+	if note := widthNote(&res.Summary); note != "" {
+		res.Summary.Verdict += "; " + note
+	}
 	if s.Light || s.SummaryOnly {
 		res.dropSeries()
 	}
@@ -133,6 +136,22 @@ func pulsesNote(s *Summary, riseSpans bool) string {
 	}
 	return fmt.Sprintf("the output is %d separate pulses, the first two %s apart (the power falls below %.0f %% of its peak between them): %s, the strongest pulse alone is %s wide",
 		s.Pulses, units.Format(s.PulseSeparation, "s"), 100*DipLevel, spans, units.Format(s.StrongestPulseFWHM, "s"))
+}
+
+// widthNote is the verdict's clause for an ill-conditioned FWHM (Summary.FWHMIllConditioned):
+// an edge of the width leaps as the level moves inside the band around half the peak, or the
+// width changes steeply with the level there, so the FWHM may move by that much with a small
+// change of the model; "" otherwise.
+func widthNote(s *Summary) string {
+	if !s.FWHMIllConditioned {
+		return ""
+	}
+	why := fmt.Sprintf("a maximum of the output tops out within %.0f %% of half the peak, so an edge of the width leaps by %s as the level moves", 100*HalfMaxBand, units.Format(s.FWHMJump, "s"))
+	if !(s.FWHMJump > JumpLimit*s.FWHM) {
+		why = "the output lies nearly flat near half the peak, so the width changes steeply with the level"
+	}
+	return fmt.Sprintf("the FWHM of %s is ill-conditioned: %s: %s at %.0f %% of the peak, %s at %.0f %%; the width from the rms duration, %s, follows such changes smoothly",
+		units.Format(s.FWHM, "s"), why, units.Format(s.FWHMAt45, "s"), 100*(0.5-HalfMaxBand), units.Format(s.FWHMAt55, "s"), 100*(0.5+HalfMaxBand), units.Format(s.RMSWidth, "s"))
 }
 
 // HeliumNote is the validity note of a design with helium: the model has no helium kinetics,

@@ -512,6 +512,12 @@ func (sh *shot) summarise(res *Result) {
 		tr := separatePulses(seen, sh.scratch(1, sh.steps), dt, 2*sh.d.Numerics.Cells)
 		sh.train = tr
 		s.Pulses, s.PulseSeparation, s.StrongestPulseFWHM, s.HalfMaxEnergyShare = tr.count, tr.separation, tr.strongestWidth, tr.energyShare
+		// How the FWHM depends on its level, on the same trace (not the round-trip mean: the
+		// spikes of that trace are what the FWHM's edges leap between).
+		sk, sp := peak(seen)
+		hm := halfMaxConditioning(seen, sp, sk)
+		s.FWHMAt45, s.FWHMAt55, s.FWHMJump = hm.low*dt, hm.high*dt, hm.jump*dt
+		s.FWHMIllConditioned = hm.illConditioned(s.FWHM / dt)
 		r10, _ := crossings(sh.powerFront, kp, 0.1*pk)
 		r90, _ := crossings(sh.powerFront, kp, 0.9*pk)
 		s.Rise = (r90 - r10) * dt

@@ -162,6 +162,9 @@ func printLength(w io.Writer, r *study.LengthResult) {
 			if s.Pulses >= 2 {
 				split = fmt.Sprintf(" (%d pulses)", s.Pulses)
 			}
+			if s.FWHMIllConditioned {
+				split += " (ill-conditioned)"
+			}
 			line += fmt.Sprintf("%.4g%s\t%.4g\t%.3g%s\t%.3g\t%.4g\t", 1e6*s.EnergyFront, cut, 1e-3*s.PeakPower, 1e9*s.FWHM, split,
 				1e9*s.InversionDuration, 100*units.SpeedOfLight*s.InversionDuration)
 		}
@@ -179,6 +182,17 @@ func printLength(w io.Writer, r *study.LengthResult) {
 		}
 		fmt.Fprintf(w, "\n%s: useful length %.3g cm (%s); transit estimate c·τ_g = %.3g cm (useful/transit %.2f)\n",
 			name, 100*cur.Useful, cur.Rule, 100*cur.Transit, cur.Useful/cur.Transit)
+	}
+	ill := 0
+	for _, cur := range r.Curves {
+		for _, p := range cur.Points {
+			if p.Err == nil && p.Summary.FWHMIllConditioned {
+				ill++
+			}
+		}
+	}
+	if ill > 0 {
+		fmt.Fprintf(w, "%d FWHM values marked (ill-conditioned): a maximum or a flat shoulder of the output lies near half its peak, so a small change can move that FWHM a long way (fwhm_45_s, fwhm_55_s in run --json)\n", ill)
 	}
 	for _, p := range r.Curves[0].Points {
 		if p.Err != nil {

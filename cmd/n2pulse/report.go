@@ -17,7 +17,7 @@ import (
 
 // reportMetrics are the figures of merit a run's report lists, in this order.
 var reportMetrics = []string{"energy_front_J", "energy_rear_J", "energy_total_J", "peak_power_W", "half_max_width_s", "fwhm_s",
-	"pulses", "pulse_separation_s", "strongest_pulse_fwhm_s", "half_max_energy_share", "rise_s", "delay_s", "efficiency", "stored_energy_J", "deposited_energy_J", "peak_gain_per_m", "gain_length",
+	"pulses", "pulse_separation_s", "strongest_pulse_fwhm_s", "half_max_energy_share", "fwhm_45_s", "fwhm_55_s", "rise_s", "delay_s", "efficiency", "stored_energy_J", "deposited_energy_J", "peak_gain_per_m", "gain_length",
 	"inversion_duration_s", "termination_time_s", "peak_reduced_field_Td", "peak_current_A", "peak_electron_density_m3"}
 
 // summaryValues reads the summary's numbers by their JSON names.
@@ -247,6 +247,12 @@ func writeSweepReport(dir, name, listing string, tab *study.Table, axes []study.
 		for _, r := range multiPulseRows(tab) {
 			left = append(left, fmt.Sprintf("point %s: %s separate pulses, the first two %s apart: its FWHM spans them (the strongest alone: strongest_pulse_fwhm_s)",
 				tab.Rows[r][0], tab.Rows[r][tab.Column("pulses")], units.Format(tab.Float(r, c), "s")))
+		}
+	}
+	if c := tab.Column("fwhm_s"); c >= 0 {
+		for _, r := range illWidthRows(tab) {
+			left = append(left, fmt.Sprintf("point %s: its FWHM of %s is ill-conditioned (fwhm_45_s, fwhm_55_s, fwhm_jump_s): a small change can move it a long way",
+				tab.Rows[r][0], units.Format(tab.Float(r, c), "s")))
 		}
 	}
 	if len(edges) > 0 {

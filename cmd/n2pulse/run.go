@@ -202,6 +202,16 @@ func printSummary(w io.Writer, d *design.Design, r *kinetics.Result) {
 	} else if s.Pulses == 1 {
 		row("separate pulses", "1")
 	}
+	if s.FWHMIllConditioned {
+		why := "the output lies nearly flat near half the peak"
+		if s.FWHMJump > kinetics.JumpLimit*s.FWHM {
+			why = "an edge leaps by " + units.Format(s.FWHMJump, "s") + " within that band"
+		}
+		row("FWHM ILL-CONDITIONED", fmt.Sprintf("%s at %.0f %% of the peak, %s at %.0f %%; %s: a small change of the model can move the FWHM above a long way (the width from the rms duration is steadier)",
+			units.Format(s.FWHMAt45, "s"), 100*(0.5-kinetics.HalfMaxBand), units.Format(s.FWHMAt55, "s"), 100*(0.5+kinetics.HalfMaxBand), why))
+	} else if s.Pulses > 0 {
+		row("width at 45 % / 55 % of peak", fmt.Sprintf("%s / %s (well-conditioned FWHM)", units.Format(s.FWHMAt45, "s"), units.Format(s.FWHMAt55, "s")))
+	}
 	if s.Pulses > 0 {
 		row("energy inside the FWHM", fmt.Sprintf("%.0f %% of the output-end energy (76 %% for a Gaussian pulse; much less: a spike on a longer tail)", 100*s.HalfMaxEnergyShare))
 	}

@@ -214,7 +214,8 @@ func isTerminal(w io.Writer) bool {
 
 // tableCounts says how many points were computed, how many failed, how many were cut
 // short (status "truncated": the pulse outlasted the longest run a point may take) and how
-// many made separate pulses (column "pulses" above 1: their FWHM spans them all).
+// many made separate pulses (column "pulses" above 1: their FWHM spans them all) or an
+// ill-conditioned FWHM (column "fwhm_ill_conditioned").
 func tableCounts(t *study.Table) string {
 	failed, truncated := 0, 0
 	c := t.Column(study.StatusColumn)
@@ -233,7 +234,25 @@ func tableCounts(t *study.Table) string {
 	if n := len(multiPulseRows(t)); n > 0 {
 		out += fmt.Sprintf(", %d with separate pulses (the pulses column; their FWHM spans them all)", n)
 	}
+	if n := len(illWidthRows(t)); n > 0 {
+		out += fmt.Sprintf(", %d with an ill-conditioned FWHM (the fwhm_ill_conditioned column; a small change can move it a long way)", n)
+	}
 	return out
+}
+
+// illWidthRows are the rows of t whose FWHM is ill-conditioned (column fwhm_ill_conditioned).
+func illWidthRows(t *study.Table) []int {
+	c := t.Column("fwhm_ill_conditioned")
+	if c < 0 {
+		return nil
+	}
+	var rows []int
+	for r := range t.Rows {
+		if t.Rows[r][c] == "true" {
+			rows = append(rows, r)
+		}
+	}
+	return rows
 }
 
 // multiPulseRows are the rows of t whose output is two or more separate pulses.
@@ -265,6 +284,7 @@ func printOptima(w io.Writer, t *study.Table, axes []study.Axis, metrics []strin
 	}
 	fmt.Fprintln(tw, head+"\t")
 	var edges []string
+	illOptimum := false
 	for _, m := range metrics {
 		l := plots.LabelOf(m)
 		b := plots.Optimum(t, axes, m)
@@ -280,15 +300,26 @@ func printOptima(w io.Writer, t *study.Table, axes []study.Axis, metrics []strin
 			al := plots.LabelOf(a.Key + " [" + a.Unit + "]").Typed(a.Display)
 			line += "\t" + al.Format(t.Float(b.Row, t.Column(a.Header())))
 		}
+		var marks []string
 		if len(b.Edge) > 0 {
-			line += "\tedge"
+			marks = append(marks, "edge")
 			edges = append(edges, l.Text)
+		}
+		if m == "fwhm_s" && slices.Contains(illWidthRows(t), b.Row) {
+			marks = append(marks, "ill-conditioned")
+			illOptimum = true
+		}
+		if len(marks) > 0 {
+			line += "\t" + strings.Join(marks, ", ")
 		}
 		fmt.Fprintln(tw, line+"\t")
 	}
 	tw.Flush()
 	if len(edges) > 0 {
 		fmt.Fprintf(w, "edge: the optimum of %s lies on the edge of the grid; extend the range to find the best\n", strings.Join(edges, ", "))
+	}
+	if illOptimum {
+		fmt.Fprintln(w, "ill-conditioned: the shortest FWHM is at a point whose FWHM a small change can move a long way (a maximum or shoulder of the output near half its peak: fwhm_45_s, fwhm_55_s); rms_fwhm_s ranks widths steadily")
 	}
 }
 

@@ -34,6 +34,12 @@ func printUncertainty(w io.Writer, r *study.UncertaintyResult) {
 	if r.Truncated > 0 {
 		fmt.Fprintf(w, "; %d truncated (pulse outlasted the run)", r.Truncated)
 	}
+	if r.SeparatePulses > 0 {
+		fmt.Fprintf(w, "; %d with separate pulses (their FWHM spans them)", r.SeparatePulses)
+	}
+	if r.IllConditionedFWHM > 0 {
+		fmt.Fprintf(w, "; %d with an ill-conditioned FWHM (it may leap with a small change)", r.IllConditionedFWHM)
+	}
 	fmt.Fprintln(w)
 	if len(r.Held) > 0 {
 		fmt.Fprintf(w, "  held at the design's values, not sampled: %s\n", heldText(r.Held))
@@ -63,7 +69,8 @@ func printUncertainty(w io.Writer, r *study.UncertaintyResult) {
 }
 
 // uncertaintyJSON is the "uncertainty" block of run --json: samples, seed, the sampled
-// constants, "held" (the constants the design pins, held at its values: study.HeldConstants), failed, truncated and lasing counts, may_not_lase (the samples straddle the
+// constants, "held" (the constants the design pins, held at its values: study.HeldConstants), failed, truncated and lasing counts,
+// separate_pulses and fwhm_ill_conditioned (samples with two or more pulses, with an ill-conditioned FWHM), may_not_lase (the samples straddle the
 // threshold), "<figure>_p05", "<figure>_p50" and "<figure>_p95" for
 // every numeric figure of merit with a band, and "drivers": per figure, the constants by
 // decreasing |rank correlation|. nil gives nil (no block).
@@ -76,7 +83,8 @@ func uncertaintyJSON(r *study.UncertaintyResult) map[string]any {
 		held = []string{}
 	}
 	out := map[string]any{"samples": r.Samples, "seed": r.Seed, "constants": r.Keys, "held": held,
-		"failed": r.Failed, "truncated": r.Truncated, "lasing": r.Lasing, "may_not_lase": r.MayNotLase()}
+		"failed": r.Failed, "truncated": r.Truncated, "lasing": r.Lasing,
+		"separate_pulses": r.SeparatePulses, "fwhm_ill_conditioned": r.IllConditionedFWHM, "may_not_lase": r.MayNotLase()}
 	drivers := map[string][]study.Driver{}
 	for _, m := range r.Metrics {
 		out[m.Metric+"_p05"], out[m.Metric+"_p50"], out[m.Metric+"_p95"] = m.P05, m.P50, m.P95
@@ -138,6 +146,9 @@ func uncertaintySection(u *study.UncertaintyResult, env *study.Envelope) report.
 	if u.Failed > 0 || u.Truncated > 0 {
 		sec.Warn = true
 		sec.Paragraphs = append(sec.Paragraphs, fmt.Sprintf("%d samples failed and are left out; %d were truncated (their pulse outlasted the run, their figures are cut short).", u.Failed, u.Truncated))
+	}
+	if u.SeparatePulses > 0 || u.IllConditionedFWHM > 0 {
+		sec.Paragraphs = append(sec.Paragraphs, fmt.Sprintf("%d samples made separate pulses (their FWHM spans them) and %d an ill-conditioned FWHM (it may leap with a small change): the FWHM band mixes such widths with single, steady ones.", u.SeparatePulses, u.IllConditionedFWHM))
 	}
 	if env != nil && env.Samples < u.Samples-u.Failed {
 		sec.Paragraphs = append(sec.Paragraphs, fmt.Sprintf("The band of the output power in the pulse report is drawn from the first %d samples.", env.Samples))

@@ -79,7 +79,7 @@ func jsonName(f reflect.StructField) string {
 // no value (a width, a time of the pulse): tables leave them empty, as they leave NaN.
 var undefinedAtZero = map[string]bool{
 	"fwhm_s": true, "half_max_width_s": true, "rms_fwhm_s": true, "pulse_centre_s": true, "rise_s": true, "delay_s": true,
-	"pulse_separation_s": true, "strongest_pulse_fwhm_s": true, "half_max_energy_share": true,
+	"pulse_separation_s": true, "strongest_pulse_fwhm_s": true, "half_max_energy_share": true, "fwhm_45_s": true, "fwhm_55_s": true,
 }
 
 // summaryFields writes the metrics of s in the order of Metrics; an undefined value (NaN, or 0

@@ -30,14 +30,22 @@ type MetricBand struct {
 
 // UncertaintyResult is the outcome of an uncertainty study of one design.
 type UncertaintyResult struct {
-	Samples   int          `json:"samples"`
-	Seed      uint64       `json:"seed"`
-	Keys      []string     `json:"keys"`      // the sampled constants (design.Spreads)
-	Held      []string     `json:"held"`      // constants the design uses but pins, held at its values (HeldConstants)
-	Failed    int          `json:"failed"`    // samples whose run failed; left out of every band
-	Truncated int          `json:"truncated"` // samples whose pulse outlasted the run; kept, and counted here
-	Lasing    int          `json:"lasing"`    // samples that reach the lasing threshold (kinetics.Summary.Lases)
-	Metrics   []MetricBand `json:"metrics"`   // one per numeric figure of merit with ≥ 3 defined samples
+	Samples   int      `json:"samples"`
+	Seed      uint64   `json:"seed"`
+	Keys      []string `json:"keys"`      // the sampled constants (design.Spreads)
+	Held      []string `json:"held"`      // constants the design uses but pins, held at its values (HeldConstants)
+	Failed    int      `json:"failed"`    // samples whose run failed; left out of every band
+	Truncated int      `json:"truncated"` // samples whose pulse outlasted the run; kept, and counted here
+	Lasing    int      `json:"lasing"`    // samples that reach the lasing threshold (kinetics.Summary.Lases)
+	// SeparatePulses counts the samples whose output is two or more separate pulses
+	// (kinetics.Summary.Pulses ≥ 2): their FWHM spans them all, so the FWHM band mixes widths
+	// of one pulse and of several.
+	SeparatePulses int `json:"separate_pulses"`
+	// IllConditionedFWHM counts the samples whose FWHM is ill-conditioned
+	// (kinetics.Summary.FWHMIllConditioned): part of the FWHM band's spread may be edges
+	// leaping between spikes rather than the constants' effect.
+	IllConditionedFWHM int          `json:"fwhm_ill_conditioned"`
+	Metrics            []MetricBand `json:"metrics"` // one per numeric figure of merit with ≥ 3 defined samples
 	// figs are the samples' figures, for bands of ratios between two studies (RatioBand).
 	figs []sampleFigures
 }
@@ -97,12 +105,13 @@ func uncertaintyOf(ctx context.Context, designs []*design.Design, keys []string,
 }
 
 // sampleFigures is what one sample keeps of its run: the numeric figures of merit in
-// NumericMetrics order (NaN where undefined), whether it lased and was cut short, or that it
-// failed.
+// NumericMetrics order (NaN where undefined), whether it lased, was cut short, made separate
+// pulses or an ill-conditioned FWHM, or that it failed.
 type sampleFigures struct {
-	vals             []float64
-	ok               bool
-	lases, truncated bool
+	vals               []float64
+	ok                 bool
+	lases, truncated   bool
+	separate, illWidth bool // two or more separate pulses; an ill-conditioned FWHM
 }
 
 // figuresOf reads the numeric figures of merit of a run (err nil) into a sampleFigures: an
@@ -111,7 +120,7 @@ func figuresOf(s kinetics.Summary, err error) sampleFigures {
 	if err != nil {
 		return sampleFigures{}
 	}
-	f := sampleFigures{ok: true, lases: s.Lases, truncated: s.Truncated}
+	f := sampleFigures{ok: true, lases: s.Lases, truncated: s.Truncated, separate: s.Pulses >= 2, illWidth: s.FWHMIllConditioned}
 	v := reflect.ValueOf(s)
 	for fi := range summaryType.NumField() {
 		field := summaryType.Field(fi)
@@ -151,6 +160,12 @@ func bandsOf(seed uint64, keys []string, values [][]float64, figs []sampleFigure
 		}
 		if f.lases {
 			res.Lasing++
+		}
+		if f.separate {
+			res.SeparatePulses++
+		}
+		if f.illWidth {
+			res.IllConditionedFWHM++
 		}
 	}
 	if len(good) == 0 {
