@@ -2,6 +2,7 @@ package validation
 
 import (
 	"bytes"
+	"fmt"
 	"math"
 	"strings"
 	"testing"
@@ -107,7 +108,7 @@ func TestApparatusEnvelope(t *testing.T) {
 	for i, r := range rows {
 		s := want[i]
 		if (r.MeasuredLases == nil) != (lases[i] == nil) || (r.MeasuredLases != nil && *r.MeasuredLases != *lases[i]) || r.NominalLases != s.Lases {
-			t.Errorf("%s: measured lases %v, nominal lases %v; the case says %v, the scoreboard %v", r.Case, r.MeasuredLases, r.NominalLases, lases[i], s.Lases)
+			t.Errorf("%s: measured lases %s, nominal lases %v; the case says %s, the scoreboard %v", r.Case, boolText(r.MeasuredLases), r.NominalLases, boolText(lases[i]), s.Lases)
 		}
 		if r.Err != nil {
 			t.Errorf("%s: %v", r.Case, r.Err)
@@ -162,6 +163,14 @@ func TestApparatusEnvelope(t *testing.T) {
 			}
 		}
 	}
+}
+
+// boolText prints a *bool: "true", "false" or "not given".
+func boolText(b *bool) string {
+	if b == nil {
+		return "not given"
+	}
+	return fmt.Sprint(*b)
 }
 
 // same is a == b, NaN equal to NaN.

@@ -13,7 +13,8 @@ import (
 // apparatus and not model uncertainty, with the measured energies of the cases' sources (the
 // builders' reports cited in validation/testdata/experiments/*.measured.toml: 11, 23, 34 and
 // 89 µJ; the mirrorless 11 mm laser did not lase) and a range over the alternatives; the text output carries the same table; without
-// --apparatus neither output has it, and the check counts do not change.
+// --apparatus neither output has it, and the check counts do not change; `check --uncertainty 10
+// --json` carries one ordered band per case with a measured energy.
 func TestCheckApparatus(t *testing.T) {
 	var o, e bytes.Buffer
 	if code := run([]string{"check", "--apparatus", "--json"}, &o, &e); code != 0 {
@@ -73,6 +74,33 @@ func TestCheckApparatus(t *testing.T) {
 	var plain struct{ Count, Discrepancies int }
 	if err := json.Unmarshal(o.Bytes(), &plain); err != nil || plain.Count != doc.Count || plain.Discrepancies != doc.Discrepancies {
 		t.Errorf("check --json: %d checks, %d discrepancies (%v); with --apparatus %d, %d", plain.Count, plain.Discrepancies, err, doc.Count, doc.Discrepancies)
+	}
+	// --uncertainty in JSON: one row per case with a measured energy, an ordered band.
+	o.Reset()
+	if code := run([]string{"check", "--uncertainty", "10", "--json"}, &o, &e); code != 0 {
+		t.Fatalf("check --uncertainty 10 --json: exit %d: %s", code, e.String())
+	}
+	var unc struct {
+		Bands *struct {
+			Samples int
+			Cases   []struct {
+				Case         string
+				MeasuredJ    float64  `json:"measured_J"`
+				P05          *float64 `json:"p05_J"`
+				P50          *float64 `json:"p50_J"`
+				P95          *float64 `json:"p95_J"`
+				MeasuredLies string   `json:"measured_lies"`
+			}
+		} `json:"uncertainty_bands"`
+	}
+	if err := json.Unmarshal(o.Bytes(), &unc); err != nil || unc.Bands == nil || unc.Bands.Samples != 10 || len(unc.Bands.Cases) != len(want) {
+		t.Fatalf("check --uncertainty 10 --json: %v, %+v", err, unc.Bands)
+	}
+	for _, c := range unc.Bands.Cases {
+		if m, ok := want[c.Case]; !ok || c.MeasuredJ != m || c.P05 == nil || c.P50 == nil || c.P95 == nil ||
+			!(*c.P05 <= *c.P50 && *c.P50 <= *c.P95) || c.MeasuredLies == "" {
+			t.Errorf("uncertainty row %+v", c)
+		}
 	}
 	o.Reset()
 	if code := run([]string{"check", "--apparatus"}, &o, &e); code != 0 || !strings.Contains(o.String(), "APPARATUS ALTERNATIVES") ||
