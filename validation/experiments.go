@@ -395,6 +395,11 @@ func pointChecks(c *expCase, j *job) []Check {
 		} else {
 			v, _ := quantity(j.sum, q)
 			chk.Computed = v / scale
+			if q == "fwhm" && j.sum.FWHMIllConditioned {
+				// The model's FWHM may leap with a small change: the row says so.
+				chk.Quantity += fmt.Sprintf("; the model's FWHM is ill-conditioned (%.3g ns at 45 %% of the peak, %.3g ns at 55 %%)",
+					1e9*j.sum.FWHMAt45, 1e9*j.sum.FWHMAt55)
+			}
 		}
 		out = append(out, chk)
 	}

@@ -175,7 +175,8 @@ func TestWriteReport(t *testing.T) {
 // RMS width is held to it everywhere. The FWHM of a train of round-trip spikes is ill-posed when a
 // spike peaks at half the highest: the 8.8 cm v2 case has its third spike at 0.50 of the peak,
 // so its FWHM jumps between 0.67 and 0.92 ns with the cell count (20, 40 cells) while its
-// energy and RMS width agree to 0.01 % and 0.07 %; it compares no FWHM.
+// energy and RMS width agree to 0.01 % and 0.07 %; it compares no FWHM. The run flags such a
+// width (Summary.FWHMIllConditioned; TestExperimentIllConditionedWidth).
 func TestExperimentConvergence(t *testing.T) {
 	if testing.Short() {
 		t.Skip("runs each case twice more")

@@ -59,3 +59,24 @@ func TestExperimentIllConditionedWidth(t *testing.T) {
 			s[0].FWHMAt45, s[0].FWHMAt55, s[1].FWHMAt45, s[1].FWHMAt55)
 	}
 }
+
+// TestPointCheckIllConditionedWidth: a measured FWHM compared with an ill-conditioned model
+// FWHM says so in the check's row (its quantity, with the widths at 45 % and 55 %); a
+// well-conditioned one does not. Made-up summaries (no shipped case with a measured FWHM is
+// ill-conditioned today).
+func TestPointCheckIllConditionedWidth(t *testing.T) {
+	t.Parallel()
+	c := &expCase{Name: "made-up", Measured: measured{Source: "none (test)",
+		FWHM: &measuredValue{Value: "1 ns", How: "text", Where: "nowhere"}}}
+	for _, ill := range []bool{true, false} {
+		j := &job{sum: kinetics.Summary{FWHM: 0.9e-9, FWHMAt45: 1.2e-9, FWHMAt55: 0.7e-9, FWHMIllConditioned: ill}}
+		checks := pointChecks(c, j)
+		if len(checks) != 1 || !scalar.EqualWithinAbsOrRel(checks[0].Computed, 0.9, 1e-12, 0) {
+			t.Fatalf("ill-conditioned %v: checks %+v, want one FWHM check computing 0.9 ns", ill, checks)
+		}
+		says := strings.Contains(checks[0].Quantity, "the model's FWHM is ill-conditioned (1.2 ns at 45 % of the peak, 0.7 ns at 55 %)")
+		if says != ill {
+			t.Errorf("ill-conditioned %v: quantity %q", ill, checks[0].Quantity)
+		}
+	}
+}
