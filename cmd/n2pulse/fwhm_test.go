@@ -4,11 +4,13 @@ import (
 	"bytes"
 	"encoding/csv"
 	"encoding/json"
+	"math"
 	"os"
 	"path/filepath"
 	"strings"
 	"testing"
 
+	"n2pulse/kinetics"
 	"n2pulse/kinetics/study"
 )
 
@@ -95,5 +97,23 @@ func TestSweepIllConditionedWidth(t *testing.T) {
 		if !strings.Contains(all, want) {
 			t.Errorf("sweep output lacks %q:\n%s", want, all)
 		}
+	}
+}
+
+// TestLengthTableIllConditionedWidth: the printed length table marks an ill-conditioned FWHM
+// in its cell and counts such cells under the table; a well-conditioned one is unmarked.
+// Made-up points.
+func TestLengthTableIllConditionedWidth(t *testing.T) {
+	t.Parallel()
+	r := &study.LengthResult{Curves: []study.LengthCurve{{Velocity: math.Inf(1), Useful: math.NaN(), Rule: "made up", Points: []study.LengthPoint{
+		{Length: 0.1, Summary: kinetics.Summary{Pulses: 1, EnergyFront: 1e-4, FWHM: 1.5e-9, FWHMIllConditioned: true}},
+		{Length: 0.2, Summary: kinetics.Summary{Pulses: 1, EnergyFront: 2e-4, FWHM: 2.5e-9}},
+	}}}}
+	var out bytes.Buffer
+	printLength(&out, r)
+	s := out.String()
+	if !strings.Contains(s, "1.5 (ill-conditioned)") || strings.Contains(s, "2.5 (ill-conditioned)") ||
+		!strings.Contains(s, "(ill-conditioned) on 1 FWHM cells") {
+		t.Errorf("length table:\n%s", s)
 	}
 }

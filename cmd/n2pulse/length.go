@@ -192,7 +192,7 @@ func printLength(w io.Writer, r *study.LengthResult) {
 		}
 	}
 	if ill > 0 {
-		fmt.Fprintf(w, "%d FWHM values marked (ill-conditioned): a maximum or a flat shoulder of the output lies near half its peak, so a small change can move that FWHM a long way (fwhm_45_s, fwhm_55_s in run --json)\n", ill)
+		fmt.Fprintf(w, "(ill-conditioned) on %d FWHM cells: a maximum or a flat shoulder of the output lies near half its peak, so a small change can move that FWHM a long way (fwhm_45_s, fwhm_55_s in run --json)\n", ill)
 	}
 	for _, p := range r.Curves[0].Points {
 		if p.Err != nil {

@@ -323,7 +323,7 @@ var lengthMetrics = []string{"energy_front_J", "energy_total_J", "peak_power_W",
 
 // Table returns the scan as a table: the length, then for each curve its energies, peak power,
 // FWHM, inversion duration, number of separate pulses ("pulses": above 1 the FWHM spans them
-// all), transit estimate c·τ_g ("transit_length_m"), the curve's useful
+// all), whether the FWHM is ill-conditioned ("fwhm_ill_conditioned"), transit estimate c·τ_g ("transit_length_m"), the curve's useful
 // length (the same on every row, empty when there is none) and status; columns of the
 // travelling-wave curve carry the prefix "tw.". With samples, each curve adds the band of its
 // useful length (an empty cell for a quantile beyond the longest length), useful_length_beyond
@@ -338,7 +338,7 @@ func (r *LengthResult) Table() *Table {
 		for _, m := range lengthMetrics {
 			t.Columns = append(t.Columns, pre+m)
 		}
-		t.Columns = append(t.Columns, pre+"pulses", pre+"transit_length_m", pre+"useful_length_m")
+		t.Columns = append(t.Columns, pre+"pulses", pre+"fwhm_ill_conditioned", pre+"transit_length_m", pre+"useful_length_m")
 		if r.Samples > 0 {
 			t.Columns = append(t.Columns, pre+"useful_length_m_p05", pre+"useful_length_m_p50", pre+"useful_length_m_p95", pre+"useful_length_beyond")
 			t.Columns = append(t.Columns, bandColumns(pre, lengthMetrics)...)
@@ -346,7 +346,7 @@ func (r *LengthResult) Table() *Table {
 		t.Columns = append(t.Columns, pre+StatusColumn)
 	}
 	all := Metrics()
-	listed := append(slices.Clip(lengthMetrics), "pulses")
+	listed := append(slices.Clip(lengthMetrics), "pulses", "fwhm_ill_conditioned")
 	pos := make([]int, len(listed))
 	for k, m := range listed {
 		for j, a := range all {
