@@ -34,8 +34,11 @@ type AlternativeRun struct {
 	Alternative
 	Energy float64 // at the end(s) the source measured [J]; NaN when the run failed
 	FWHM   float64 // output-end pulse width [s]; NaN when undefined or the run failed
-	Lases  bool    // laser output above the spontaneous-emission floor
-	Err    error
+	// FWHMIllConditioned: the run's half-maximum width may leap with a small change
+	// (kinetics.Summary.FWHMIllConditioned).
+	FWHMIllConditioned bool
+	Lases              bool // laser output above the spontaneous-emission floor
+	Err                error
 }
 
 // EnvelopeRow is one experiment case's measured energy and FWHM set against the range of the
@@ -51,7 +54,21 @@ type EnvelopeRow struct {
 	MeasuredLases         *bool   // whether the source's laser lased, when the source says; nil otherwise
 	NominalLases          bool    // whether the nominal run lases
 	Runs                  []AlternativeRun
-	Err                   error // the case could not be set up or its nominal run failed
+	// Derived are the case's checks derived from its measured variations (optimum, ratio,
+	// direction, optimum shift), each over the same alternatives.
+	Derived []DerivedRow
+	Err     error // the case could not be set up or its nominal run failed
+}
+
+// IllConditionedW returns the names of the alternatives whose FWHM is ill-conditioned.
+func (r EnvelopeRow) IllConditionedW() []string {
+	var names []string
+	for _, a := range r.Runs {
+		if a.Err == nil && a.FWHMIllConditioned {
+			names = append(names, a.Name)
+		}
+	}
+	return names
 }
 
 // position says where x lies against [lo, hi]: "inside", "below", "above", or "" when x or the
@@ -218,9 +235,11 @@ func siUnit(u string) string {
 	return u
 }
 
-// ApparatusEnvelope runs every experiment case with a measured energy, FWHM or lasing once per
-// apparatus alternative (Alternatives; workers goroutines, 0: one per CPU) and returns one row
-// per such case, in case order, with the nominal values of the scoreboard's runs. A case that
+// ApparatusEnvelope runs every experiment case with a measured energy, FWHM, lasing or
+// variation once per apparatus alternative (Alternatives; workers goroutines, 0: one per CPU)
+// and returns one row per such case, in case order, with the nominal values of the
+// scoreboard's runs. Each alternative also reruns the case's measured variations (the scans of
+// the default checks) and derives their checks the same way (EnvelopeRow.Derived). A case that
 // fails carries its error in its row; an error is returned only when the cases cannot be read.
 func ApparatusEnvelope(workers int) ([]EnvelopeRow, error) {
 	cases, err := loadExperiments(experimentFiles)
@@ -243,10 +262,15 @@ func ApparatusEnvelope(workers int) ([]EnvelopeRow, error) {
 		d   *design.Design
 	}
 	var tasks []task
+	// The measured variations of each case rerun under each alternative, grouped by
+	// alternative so that an optimum shift compares two cases under the same one.
+	var altNames []string
+	plans := map[string][]*scanPlan{}
+	var derivedJobs []*job
 	for i := range cases {
 		c := &cases[i]
 		s := score[i]
-		if math.IsNaN(s.Measured) && math.IsNaN(s.MeasuredW) && c.Measured.Lases == nil {
+		if math.IsNaN(s.Measured) && math.IsNaN(s.MeasuredW) && c.Measured.Lases == nil && len(c.Measured.Variation) == 0 {
 			continue
 		}
 		row := &EnvelopeRow{Case: c.Name, End: "front", Measured: s.Measured, MeasuredW: s.MeasuredW,
@@ -273,6 +297,15 @@ func ApparatusEnvelope(workers int) ([]EnvelopeRow, error) {
 				continue
 			}
 			tasks = append(tasks, task{row, k, d})
+			alt := &expCase{Name: c.Name, Design: d, Measured: c.Measured}
+			for v := range c.Measured.Variation {
+				p := planScan(alt, &c.Measured.Variation[v])
+				if _, ok := plans[a.Name]; !ok {
+					altNames = append(altNames, a.Name)
+				}
+				plans[a.Name] = append(plans[a.Name], p)
+				derivedJobs = append(derivedJobs, p.jobs...)
+			}
 		}
 	}
 	pool.Each(len(tasks), workers, func(i int) {
@@ -284,10 +317,13 @@ func ApparatusEnvelope(workers int) ([]EnvelopeRow, error) {
 			return
 		}
 		run.Energy, run.FWHM, run.Lases = res.Summary.EnergyFront, res.Summary.FWHM, res.Summary.Lases
+		run.FWHMIllConditioned = res.Summary.FWHMIllConditioned
 		if t.row.End == "total" {
 			run.Energy = res.Summary.EnergyTotal
 		}
 	})
+	runJobs(derivedJobs, workers)
+	addDerived(rows, altNames, plans)
 	out := make([]EnvelopeRow, len(rows))
 	for i, r := range rows {
 		for _, run := range r.Runs {
@@ -349,17 +385,22 @@ func writeApparatus(w *bytes.Buffer, rows []EnvelopeRow) {
 			fmt.Fprintf(w, "| %s | error: %s | | | | | | | | | |\n", r.Case, mdCell(r.Err.Error()))
 			continue
 		}
-		fmt.Fprintf(w, "| %s | %s | %s | %s | %s – %s | %s | %s | %s | %s | %s – %s | %s |\n", r.Case, r.End,
+		ill := ""
+		if n := len(r.IllConditionedW()); n > 0 {
+			ill = fmt.Sprintf(" (%d ill-conditioned)", n)
+		}
+		fmt.Fprintf(w, "| %s | %s | %s | %s | %s – %s | %s | %s | %s | %s | %s – %s%s | %s |\n", r.Case, r.End,
 			scoreValue(r.Measured*1e6, "µJ"), scoreValue(r.Nominal*1e6, "µJ"),
 			scoreValue(r.EnergyLow*1e6, "µJ"), scoreValue(r.EnergyHigh*1e6, "µJ"), dash(r.MeasuredPosition()), dash(r.NominalPosition()),
 			scoreValue(r.MeasuredW*1e9, "ns"), scoreValue(r.NominalW*1e9, "ns"),
-			scoreValue(r.FWHMLow*1e9, "ns"), scoreValue(r.FWHMHigh*1e9, "ns"), dash(r.MeasuredWPosition()))
+			scoreValue(r.FWHMLow*1e9, "ns"), scoreValue(r.FWHMHigh*1e9, "ns"), ill, dash(r.MeasuredWPosition()))
 	}
 	for _, r := range rows {
 		if r.Err == nil && r.MeasuredLases != nil {
 			fmt.Fprintf(w, "\n%s.\n", LasingSentence(r))
 		}
 	}
+	writeDerived(w, rows)
 	fmt.Fprintf(w, "\n| case | alternative | sets | energy | FWHM | lases |\n| --- | --- | --- | --- | --- | --- |\n")
 	for _, r := range rows {
 		for _, a := range r.Runs {
@@ -367,8 +408,12 @@ func writeApparatus(w *bytes.Buffer, rows []EnvelopeRow) {
 				fmt.Fprintf(w, "| %s | %s | %s | error: %s | | |\n", r.Case, a.Name, mdCell(a.Settings()), mdCell(a.Err.Error()))
 				continue
 			}
+			fwhm := scoreValue(a.FWHM*1e9, "ns")
+			if a.FWHMIllConditioned {
+				fwhm += " (ill-conditioned)"
+			}
 			fmt.Fprintf(w, "| %s | %s | %s | %s | %s | %s |\n", r.Case, a.Name, mdCell(a.Settings()),
-				scoreValue(a.Energy*1e6, "µJ"), scoreValue(a.FWHM*1e9, "ns"), yesNo(a.Lases))
+				scoreValue(a.Energy*1e6, "µJ"), fwhm, yesNo(a.Lases))
 		}
 	}
 }

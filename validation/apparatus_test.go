@@ -2,9 +2,11 @@ package validation
 
 import (
 	"bytes"
+	"errors"
 	"fmt"
 	"math"
 	"strings"
+	"sync"
 	"testing"
 
 	"gonum.org/v1/gonum/floats/scalar"
@@ -85,7 +87,7 @@ func TestHoldingSwitch(t *testing.T) {
 // range (where it is compared), since each loop inductance is taken both ×0.5 and ×3 of the
 // nominal.
 func TestApparatusEnvelope(t *testing.T) {
-	rows, err := ApparatusEnvelope(0)
+	rows, err := envelopeRows()
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -165,6 +167,9 @@ func TestApparatusEnvelope(t *testing.T) {
 	}
 }
 
+// envelopeRows runs ApparatusEnvelope once for the tests that read it (a few seconds of runs).
+var envelopeRows = sync.OnceValues(func() ([]EnvelopeRow, error) { return ApparatusEnvelope(0) })
+
 // boolText prints a *bool: "true", "false" or "not given".
 func boolText(b *bool) string {
 	if b == nil {
@@ -183,12 +188,17 @@ func TestApparatusReport(t *testing.T) {
 	nan := math.NaN()
 	rows := []EnvelopeRow{{Case: "made-up", End: "front", Measured: 34e-6, MeasuredW: nan, Nominal: 178e-6, NominalW: 0.7e-9,
 		EnergyLow: 15e-6, EnergyHigh: 229e-6, FWHMLow: 0.3e-9, FWHMHigh: 1e-9,
-		Runs: []AlternativeRun{{Alternative: Alternative{Name: "switch-loop-triple", Sets: map[string]float64{"circuit.switch_inductance": 30e-9}}, Energy: 133e-6, FWHM: 0.7e-9}}}}
+		Runs: []AlternativeRun{{Alternative: Alternative{Name: "switch-loop-triple", Sets: map[string]float64{"circuit.switch_inductance": 30e-9}}, Energy: 133e-6, FWHM: 0.7e-9, FWHMIllConditioned: true}},
+		Derived: []DerivedRow{{Nominal: Check{ID: "exp.made-up.oxygen.ratio", Mode: Range, Low: 0.2, High: 0.25, Computed: 0.008}, Low: 0.001, High: 0.12,
+			Runs: []DerivedRun{{Alternative: "switch-loop-triple", Check: Check{Mode: Range, Kind: Experiment, Low: 0.2, High: 0.25, Computed: 0.0123}}}}}}}
 	var b bytes.Buffer
 	writeApparatus(&b, rows)
 	md := b.String()
 	for _, s := range []string{"## Apparatus alternatives (not model uncertainty)", "| made-up | front | 34 µJ | 178 µJ | 15 µJ – 229 µJ | inside | inside | – |",
-		"| made-up | switch-loop-triple | circuit.switch_inductance = " + units.Format(30e-9, "H") + " | 133 µJ | 0.7 ns |"} {
+		"| 0.3 ns – 1 ns (1 ill-conditioned) |",
+		"| made-up | switch-loop-triple | circuit.switch_inductance = " + units.Format(30e-9, "H") + " | 133 µJ | 0.7 ns (ill-conditioned) |",
+		"| exp.made-up.oxygen.ratio | [0.2, 0.25] | 0.008 | 0.001 – 0.12 | above | 0 of 1 |",
+		"| exp.made-up.oxygen.ratio | switch-loop-triple | 0.0123 | DISCREPANCY |"} {
 		if !strings.Contains(md, s) {
 			t.Errorf("report lacks %q:\n%s", s, md)
 		}
@@ -197,5 +207,121 @@ func TestApparatusReport(t *testing.T) {
 	writeApparatus(&b, nil)
 	if b.Len() != 0 {
 		t.Errorf("no rows: %q", b.String())
+	}
+}
+
+// TestApparatusDerived: the checks the cases derive from their measured variations, over the
+// alternatives. Every variation check of the default run (optimum, direction, ratio, optimum
+// shift) has a row in its case with one value per alternative, and the row's nominal is the
+// default check itself. The 8.8 cm v1 air/N₂ ratio under channel-loop-half equals the pair of
+// runs set up by hand (channel loop 1 nH; N₂, then O₂ 0.2095 with N₂ the rest; energy at the
+// output end): to 1e-6, as for the energies above (the alternative's 0.5 × 2 nH and "1 nH" may
+// differ in the last bit, which the circuit's adaptive steps amplify).
+func TestApparatusDerived(t *testing.T) {
+	rows, err := envelopeRows()
+	if err != nil {
+		t.Fatal(err)
+	}
+	var want []Check
+	for _, c := range experimentResults().checks {
+		if strings.HasSuffix(c.ID, ".optimum") || strings.HasSuffix(c.ID, ".direction") || strings.HasSuffix(c.ID, ".ratio") || strings.HasSuffix(c.ID, ".optimum-shift") {
+			want = append(want, c)
+		}
+	}
+	got := map[string]DerivedRow{}
+	for _, r := range rows {
+		for _, d := range r.Derived {
+			if !strings.HasPrefix(d.Nominal.ID, "exp."+r.Case+".") {
+				t.Errorf("%s: row %s belongs to another case", r.Case, d.Nominal.ID)
+			}
+			if len(d.Runs) != len(r.Runs) {
+				t.Errorf("%s: %d alternatives, the case has %d", d.Nominal.ID, len(d.Runs), len(r.Runs))
+			}
+			for i, a := range d.Runs {
+				if i < len(r.Runs) && a.Alternative != r.Runs[i].Name || a.Check.Err != nil {
+					t.Errorf("%s: run %d is %s (%v), the case's alternative is %s", d.Nominal.ID, i, a.Alternative, a.Check.Err, r.Runs[i].Name)
+				}
+			}
+			got[d.Nominal.ID] = d
+		}
+	}
+	if len(want) < 6 || len(got) != len(want) {
+		t.Errorf("%d derived rows, the default checks have %d variation checks", len(got), len(want))
+	}
+	for _, c := range want {
+		d, ok := got[c.ID]
+		if !ok {
+			t.Errorf("no derived row for %s", c.ID)
+			continue
+		}
+		if !same(d.Nominal.Computed, c.Computed) || d.Nominal.Reference != c.Reference {
+			t.Errorf("%s: nominal %g (reference %g), default check %g (%g)", c.ID, d.Nominal.Computed, d.Nominal.Reference, c.Computed, c.Reference)
+		}
+	}
+	ratio, ok := got["exp.tea-transfer-88mm-v1.oxygen.ratio"]
+	if !ok {
+		t.Fatal("no row for the 8.8 cm v1 air/N₂ ratio")
+	}
+	lo, hi := math.Inf(1), math.Inf(-1)
+	alt := math.NaN()
+	for _, a := range ratio.Runs {
+		lo, hi = math.Min(lo, a.Check.Computed), math.Max(hi, a.Check.Computed)
+		if a.Alternative == "channel-loop-half" {
+			alt = a.Check.Computed
+		}
+	}
+	if ratio.Low != lo || ratio.High != hi {
+		t.Errorf("ratio range %g…%g, runs span %g…%g", ratio.Low, ratio.High, lo, hi)
+	}
+	if p := position(ratio.Nominal.Low, lo, hi); p == "above" && ratio.MeasuredPosition() != "above" || p == "inside" && ratio.MeasuredPosition() != "overlaps" {
+		t.Errorf("measured [%g, %g] against %g…%g: %q", ratio.Nominal.Low, ratio.Nominal.High, lo, hi, ratio.MeasuredPosition())
+	}
+	cases, _ := loadExperiments(experimentFiles)
+	var e [2]float64
+	for _, c := range cases {
+		if c.Name != "tea-transfer-88mm-v1" {
+			continue
+		}
+		for i, o2 := range []string{"0", "0.2095"} {
+			d := c.Design.Clone()
+			if err := errors.Join(d.Set("circuit.channel_inductance", "1 nH"), d.Set("gas.oxygen", o2),
+				d.Set("gas.nitrogen", []string{"1", "0.7905"}[i])); err != nil {
+				t.Fatal(err)
+			}
+			res, err := kinetics.Run(d, &kinetics.RunSettings{Light: true})
+			if err != nil {
+				t.Fatal(err)
+			}
+			e[i] = res.Summary.EnergyFront
+		}
+	}
+	if !scalar.EqualWithinAbsOrRel(alt, e[1]/e[0], 0, 1e-6) {
+		t.Errorf("v1 air/N₂ ratio under channel-loop-half %g, hand pair of runs %g J / %g J = %g", alt, e[1], e[0], e[1]/e[0])
+	}
+}
+
+// TestDerivedPosition: where a measured range or value lies against the alternatives' range.
+func TestDerivedPosition(t *testing.T) {
+	t.Parallel()
+	nan := math.NaN()
+	for _, c := range []struct {
+		mode           Mode
+		ref, low, high float64 // the measurement
+		lo, hi         float64 // the alternatives
+		want           string
+	}{
+		{Range, 0.225, 0.2, 0.25, 2e-5, 0.12, "above"},
+		{Range, 0.225, 0.2, 0.25, 0.21, 0.3, "overlaps"},
+		{Range, 0.225, 0.2, 0.25, 0.1, 0.2, "overlaps"},
+		{Range, 0.225, 0.2, 0.25, 0.26, 0.3, "below"},
+		{Range, 0.225, 0.2, 0.25, nan, nan, ""},
+		{Relative, 1.55, 0, 0, 1.4, 2.4, "inside"},
+		{Relative, 1.55, 0, 0, 1.6, 2.4, "below"},
+		{True, 1, 0, 0, nan, nan, ""},
+	} {
+		d := DerivedRow{Nominal: Check{Mode: c.mode, Reference: c.ref, Low: c.low, High: c.high}, Low: c.lo, High: c.hi}
+		if got := d.MeasuredPosition(); got != c.want {
+			t.Errorf("%v [%g, %g] / %g against %g…%g: %q, want %q", c.mode, c.low, c.high, c.ref, c.lo, c.hi, got, c.want)
+		}
 	}
 }

@@ -225,9 +225,9 @@ type job struct {
 	err error
 }
 
-// runJobs runs the designs on all cores.
-func runJobs(jobs []*job) {
-	pool.Each(len(jobs), 0, func(k int) {
+// runJobs runs the designs on workers goroutines (0: one per CPU).
+func runJobs(jobs []*job, workers int) {
+	pool.Each(len(jobs), workers, func(k int) {
 		j := jobs[k]
 		res, err := kinetics.Run(j.d, &kinetics.RunSettings{Light: true})
 		if err != nil {
@@ -262,7 +262,7 @@ func runExperiments(cases []expCase) ([]Check, []Variation, []ScoreRow) {
 			all = append(all, p.jobs...)
 		}
 	}
-	runJobs(all)
+	runJobs(all, 0)
 
 	var checks []Check
 	scores := make([]ScoreRow, len(cases))
@@ -270,6 +270,16 @@ func runExperiments(cases []expCase) ([]Check, []Variation, []ScoreRow) {
 		checks = append(checks, pointChecks(&cases[i], base[i])...)
 		scores[i] = scoreRow(&cases[i], base[i])
 	}
+	cs, vars := derivedChecks(plans)
+	return append(checks, cs...), vars, scores
+}
+
+// derivedChecks returns, after their runs, the checks of the variation plans (per plan its
+// optimum, direction and ratio, in plan order, then the optimum shifts between plans) and the
+// overlay series. The experiment checks and the apparatus alternatives (ApparatusEnvelope)
+// both derive them here.
+func derivedChecks(plans []*scanPlan) ([]Check, []Variation) {
+	var checks []Check
 	optima := map[string]float64{}
 	var vars []Variation
 	for _, p := range plans {
@@ -301,7 +311,7 @@ func runExperiments(cases []expCase) ([]Check, []Variation, []ScoreRow) {
 		}
 		checks = append(checks, c)
 	}
-	return checks, vars, scores
+	return checks, vars
 }
 
 // planScan prepares the model runs of one variation.

@@ -65,9 +65,14 @@ func checkJSON(checks []validation.Check, failed, discrepant int, bands []valida
 			runs := make([]map[string]any, 0, len(r.Runs))
 			for _, a := range r.Runs {
 				runs = append(runs, map[string]any{"name": a.Name, "sets": a.Sets, "why": a.Why,
-					"energy_J": nullable(a.Energy), "fwhm_s": nullable(a.FWHM), "lases": a.Lases, "error": errText(a.Err)})
+					"energy_J": nullable(a.Energy), "fwhm_s": nullable(a.FWHM), "fwhm_ill_conditioned": a.FWHMIllConditioned,
+					"lases": a.Lases, "error": errText(a.Err)})
 			}
 			lasing, _ := r.Lasing()
+			ill := r.IllConditionedW()
+			if ill == nil {
+				ill = []string{}
+			}
 			rows = append(rows, map[string]any{"case": r.Case, "end": r.End,
 				"measured_J": nullable(r.Measured), "nominal_J": nullable(r.Nominal),
 				"energy_low_J": nullable(r.EnergyLow), "energy_high_J": nullable(r.EnergyHigh),
@@ -75,11 +80,55 @@ func checkJSON(checks []validation.Check, failed, discrepant int, bands []valida
 				"measured_fwhm_s": nullable(r.MeasuredW), "nominal_fwhm_s": nullable(r.NominalW),
 				"fwhm_low_s": nullable(r.FWHMLow), "fwhm_high_s": nullable(r.FWHMHigh),
 				"measured_fwhm_lies": r.MeasuredWPosition(), "measured_lases": r.MeasuredLases, "nominal_lases": r.NominalLases,
-				"alternatives_lasing": lasing, "alternatives": runs, "error": errText(r.Err)})
+				"alternatives_lasing": lasing, "fwhm_ill_conditioned_alternatives": ill, "alternatives": runs,
+				"derived_checks": derivedJSON(r.Derived), "error": errText(r.Err)})
 		}
 		out["apparatus_alternatives"] = map[string]any{"note": validation.ApparatusNote, "cases": rows}
 	}
 	return out
+}
+
+// derivedJSON is the derived_checks list of one case of the apparatus block: per check its
+// measurement, the nominal value, the alternatives' range and each alternative's value, in
+// the check's unit (as in "checks").
+func derivedJSON(rows []validation.DerivedRow) []map[string]any {
+	out := make([]map[string]any, 0, len(rows))
+	for _, d := range rows {
+		c := d.Nominal
+		runs := make([]map[string]any, 0, len(d.Runs))
+		for _, r := range d.Runs {
+			computed := nullable(r.Check.Computed)
+			if r.Check.Err != nil {
+				computed = nil
+			}
+			runs = append(runs, map[string]any{"alternative": r.Alternative, "computed": computed,
+				"result": r.Check.Result(), "error": errText(r.Check.Err)})
+		}
+		nominal := nullable(c.Computed)
+		if c.Err != nil {
+			nominal = nil
+		}
+		pass, ran := d.Passing()
+		m := map[string]any{"id": c.ID, "quantity": c.Quantity, "unit": c.Unit, "tolerance": c.ToleranceText(),
+			"reference": nullable(c.Reference), "nominal": nominal, "nominal_result": c.Result(),
+			"low": nullable(d.Low), "high": nullable(d.High), "measured_lies": d.MeasuredPosition(),
+			"alternatives_passing": pass, "alternatives_ran": ran, "alternatives": runs, "source": c.Source}
+		if c.Mode == validation.Range {
+			m["measured_low"], m["measured_high"] = c.Low, c.High
+		}
+		out = append(out, m)
+	}
+	return out
+}
+
+// fwhmRangeText is the FWHM range of a case's alternatives, with the number of alternatives
+// whose FWHM is ill-conditioned.
+func fwhmRangeText(r validation.EnvelopeRow) string {
+	s := optJ(r.FWHMLow, "s") + " – " + optJ(r.FWHMHigh, "s")
+	if n := len(r.IllConditionedW()); n > 0 {
+		s += fmt.Sprintf(" (%d ill-conditioned)", n)
+	}
+	return s
 }
 
 // printApparatus writes the apparatus table of `check --apparatus`: per case the measured
@@ -105,7 +154,7 @@ func printApparatus(w io.Writer, rows []validation.EnvelopeRow) {
 		fmt.Fprintf(tw, "%s\t%s\t%s\t%s\t%s\t%s\t%s\t%s\t%s\t%s\t%s\n", r.Case, r.End,
 			optJ(r.Measured, "J"), optJ(r.Nominal, "J"), optJ(r.EnergyLow, "J")+" – "+optJ(r.EnergyHigh, "J"),
 			upperOut(pos), upperOut(r.NominalPosition()),
-			optJ(r.MeasuredW, "s"), optJ(r.NominalW, "s"), optJ(r.FWHMLow, "s")+" – "+optJ(r.FWHMHigh, "s"), upperOut(r.MeasuredWPosition()))
+			optJ(r.MeasuredW, "s"), optJ(r.NominalW, "s"), fwhmRangeText(r), upperOut(r.MeasuredWPosition()))
 	}
 	tw.Flush()
 	fmt.Fprintf(w, "%d of %d measured energies lie inside the range of the apparatus alternatives\n", inside, measured)
@@ -114,6 +163,7 @@ func printApparatus(w io.Writer, rows []validation.EnvelopeRow) {
 			fmt.Fprintln(w, validation.LasingSentence(r))
 		}
 	}
+	printDerived(w, rows)
 	fmt.Fprintln(w)
 	tw = tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
 	fmt.Fprintln(tw, "case\talternative\tenergy\tFWHM\tlases\tsets")
@@ -127,7 +177,45 @@ func printApparatus(w io.Writer, rows []validation.EnvelopeRow) {
 			if a.Lases {
 				lases = "yes"
 			}
-			fmt.Fprintf(tw, "%s\t%s\t%s\t%s\t%s\t%s\n", r.Case, a.Name, optJ(a.Energy, "J"), optJ(a.FWHM, "s"), lases, a.Settings())
+			fwhm := optJ(a.FWHM, "s")
+			if a.FWHMIllConditioned {
+				fwhm += " (ill-conditioned)"
+			}
+			fmt.Fprintf(tw, "%s\t%s\t%s\t%s\t%s\t%s\n", r.Case, a.Name, optJ(a.Energy, "J"), fwhm, lases, a.Settings())
+		}
+	}
+	tw.Flush()
+}
+
+// printDerived writes the checks the cases derive from their measured variations against the
+// apparatus alternatives: one summary row per check, then every alternative's value.
+func printDerived(w io.Writer, rows []validation.EnvelopeRow) {
+	n := 0
+	for _, r := range rows {
+		n += len(r.Derived)
+	}
+	if n == 0 {
+		return
+	}
+	fmt.Fprintf(w, "\nchecks derived from the measured variations against the APPARATUS ALTERNATIVES (each alternative's scan run as the default check runs it):\n")
+	tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
+	fmt.Fprintln(tw, "id\tmeasured\tnominal\talternatives min–max\tmeasured lies\talternatives passing")
+	for _, r := range rows {
+		for _, d := range r.Derived {
+			pass, ran := d.Passing()
+			fmt.Fprintf(tw, "%s\t%s\t%s\t%s\t%s\t%d of %d\n", d.Nominal.ID, d.MeasuredText(), validation.ValueText(d.Nominal),
+				d.RangeText(), upperOut(d.MeasuredPosition()), pass, ran)
+		}
+	}
+	tw.Flush()
+	fmt.Fprintln(w)
+	tw = tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
+	fmt.Fprintln(tw, "id\talternative\tcomputed\tresult")
+	for _, r := range rows {
+		for _, d := range r.Derived {
+			for _, a := range d.Runs {
+				fmt.Fprintf(tw, "%s\t%s\t%s\t%s\n", d.Nominal.ID, a.Alternative, validation.ValueText(a.Check), a.Check.Result())
+			}
 		}
 	}
 	tw.Flush()

@@ -3,6 +3,7 @@ package main
 import (
 	"bytes"
 	"encoding/json"
+	"math"
 	"strings"
 	"testing"
 
@@ -34,6 +35,20 @@ func TestCheckApparatus(t *testing.T) {
 				Lases        *bool    `json:"measured_lases"`
 				Lasing       int      `json:"alternatives_lasing"`
 				Alternatives []map[string]any
+				Derived      []struct {
+					ID           string
+					MeasuredLow  *float64 `json:"measured_low"`
+					MeasuredHigh *float64 `json:"measured_high"`
+					Nominal      *float64
+					Low, High    *float64
+					MeasuredLies string `json:"measured_lies"`
+					Passing      int    `json:"alternatives_passing"`
+					Ran          int    `json:"alternatives_ran"`
+					Alternatives []struct {
+						Alternative string
+						Computed    *float64
+					}
+				} `json:"derived_checks"`
 			}
 		} `json:"apparatus_alternatives"`
 	}
@@ -46,6 +61,36 @@ func TestCheckApparatus(t *testing.T) {
 	want := map[string]float64{"tea-blumlein-11mm-air": 11e-6, "tea-blumlein-11mm-n2": 23e-6, "tea-transfer-88mm-v1": 34e-6, "tea-transfer-88mm-v2": 89e-6}
 	if len(doc.Apparatus.Cases) != len(want)+1 {
 		t.Errorf("%d cases, want %d", len(doc.Apparatus.Cases), len(want)+1)
+	}
+	ratio := false
+	for _, c := range doc.Apparatus.Cases {
+		for _, a := range c.Alternatives {
+			if _, ok := a["fwhm_ill_conditioned"].(bool); !ok {
+				t.Errorf("%s/%v: no fwhm_ill_conditioned", c.Case, a["name"])
+			}
+		}
+		for _, d := range c.Derived {
+			if d.ID != "exp.tea-transfer-88mm-v1.oxygen.ratio" {
+				continue
+			}
+			// The source's air/N₂ ratio, 0.20–0.25 (same page, section 'Version 1 - Performance').
+			ratio = true
+			lo, hi := math.Inf(1), math.Inf(-1)
+			for _, a := range d.Alternatives {
+				if a.Computed == nil {
+					t.Errorf("%s/%s: no value", d.ID, a.Alternative)
+					continue
+				}
+				lo, hi = math.Min(lo, *a.Computed), math.Max(hi, *a.Computed)
+			}
+			if d.MeasuredLow == nil || d.MeasuredHigh == nil || *d.MeasuredLow != 0.20 || *d.MeasuredHigh != 0.25 || d.Nominal == nil ||
+				d.Low == nil || d.High == nil || *d.Low != lo || *d.High != hi || len(d.Alternatives) != 10 || d.Ran != 10 || d.MeasuredLies == "" {
+				t.Errorf("%s: %+v", d.ID, d)
+			}
+		}
+	}
+	if !ratio {
+		t.Error("the apparatus block lacks the 8.8 cm v1 air/N₂ ratio")
 	}
 	for _, c := range doc.Apparatus.Cases {
 		if c.Case == "tea-blumlein-11mm-n2-mirrorless" {
@@ -104,7 +149,8 @@ func TestCheckApparatus(t *testing.T) {
 	}
 	o.Reset()
 	if code := run([]string{"check", "--apparatus"}, &o, &e); code != 0 || !strings.Contains(o.String(), "APPARATUS ALTERNATIVES") ||
-		!strings.Contains(o.String(), "switch-holding-pressure") || !strings.Contains(o.String(), "corner-slow") {
+		!strings.Contains(o.String(), "switch-holding-pressure") || !strings.Contains(o.String(), "corner-slow") ||
+		!strings.Contains(o.String(), "checks derived from the measured variations") || !strings.Contains(o.String(), "exp.tea-transfer-88mm-v1.oxygen.ratio") {
 		t.Errorf("check --apparatus: exit %d, text lacks the apparatus tables", code)
 	}
 }
