@@ -146,11 +146,7 @@ func (d DerivedRow) RangeText() string {
 // alternatives (nothing when no case has one): one summary row per check, then every
 // alternative's value.
 func writeDerived(w *bytes.Buffer, rows []EnvelopeRow) {
-	n := 0
-	for _, r := range rows {
-		n += len(r.Derived)
-	}
-	if n == 0 {
+	if DerivedCount(rows) == 0 {
 		return
 	}
 	fmt.Fprintf(w, "\nChecks derived from the measured variations (optimum, ratio, direction, optimum shift), each alternative's scan run as the default check runs it:\n\n")
@@ -170,4 +166,13 @@ func writeDerived(w *bytes.Buffer, rows []EnvelopeRow) {
 			}
 		}
 	}
+}
+
+// DerivedCount is the number of derived checks over all the rows' cases.
+func DerivedCount(rows []EnvelopeRow) int {
+	n := 0
+	for _, r := range rows {
+		n += len(r.Derived)
+	}
+	return n
 }

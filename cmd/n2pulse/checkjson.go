@@ -190,11 +190,7 @@ func printApparatus(w io.Writer, rows []validation.EnvelopeRow) {
 // printDerived writes the checks the cases derive from their measured variations against the
 // apparatus alternatives: one summary row per check, then every alternative's value.
 func printDerived(w io.Writer, rows []validation.EnvelopeRow) {
-	n := 0
-	for _, r := range rows {
-		n += len(r.Derived)
-	}
-	if n == 0 {
+	if validation.DerivedCount(rows) == 0 {
 		return
 	}
 	fmt.Fprintf(w, "\nchecks derived from the measured variations against the APPARATUS ALTERNATIVES (each alternative's scan run as the default check runs it):\n")

@@ -2,10 +2,8 @@ package main
 
 import (
 	"bytes"
-	"encoding/csv"
 	"encoding/json"
 	"math"
-	"os"
 	"path/filepath"
 	"strings"
 	"testing"
@@ -73,15 +71,7 @@ func TestSweepIllConditionedWidth(t *testing.T) {
 	if code := run(args, &out, &errb); code != 0 {
 		t.Fatalf("sweep: exit %d: %s", code, errb.String())
 	}
-	b, err := os.ReadFile(filepath.Join(dir, study.ResultsFile))
-	if err != nil {
-		t.Fatal(err)
-	}
-	recs, err := csv.NewReader(bytes.NewReader(b)).ReadAll()
-	if err != nil || len(recs) < 1 {
-		t.Fatalf("results: %v", err)
-	}
-	tab := &study.Table{Columns: recs[0], Rows: recs[1:]}
+	tab := readTable(t, mustRead(t, filepath.Join(dir, study.ResultsFile)))
 	ic, vc := tab.Column("fwhm_ill_conditioned"), tab.Column("verdict")
 	if ic < 0 || vc < 0 || tab.Column("fwhm_45_s") < 0 || tab.Column("fwhm_55_s") < 0 || tab.Column("fwhm_jump_s") < 0 || len(tab.Rows) != 3 {
 		t.Fatalf("columns %v, %d rows: want fwhm_ill_conditioned, fwhm_45_s, fwhm_55_s, fwhm_jump_s and verdict, 3 rows", tab.Columns, len(tab.Rows))

@@ -2,9 +2,7 @@ package main
 
 import (
 	"bytes"
-	"encoding/csv"
 	"encoding/json"
-	"os"
 	"path/filepath"
 	"strings"
 	"testing"
@@ -68,15 +66,7 @@ func TestSweepSeparatePulses(t *testing.T) {
 	if code := run(args, &out, &errb); code != 0 {
 		t.Fatalf("sweep: exit %d: %s", code, errb.String())
 	}
-	b, err := os.ReadFile(filepath.Join(dir, study.ResultsFile))
-	if err != nil {
-		t.Fatal(err)
-	}
-	recs, err := csv.NewReader(bytes.NewReader(b)).ReadAll()
-	if err != nil || len(recs) < 1 {
-		t.Fatalf("results: %v", err)
-	}
-	tab := &study.Table{Columns: recs[0], Rows: recs[1:]}
+	tab := readTable(t, mustRead(t, filepath.Join(dir, study.ResultsFile)))
 	pc, vc, sc := tab.Column("pulses"), tab.Column("verdict"), tab.Column("pulse_separation_s")
 	if pc < 0 || vc < 0 || sc < 0 || len(tab.Rows) != 2 {
 		t.Fatalf("columns %v, %d rows: want pulses, pulse_separation_s and verdict, 2 rows", tab.Columns, len(tab.Rows))
