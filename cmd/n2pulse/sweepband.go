@@ -48,6 +48,37 @@ func bandFlags(t *study.Table, prefix string) (mayNot, flagged int) {
 	return mayNot, flagged
 }
 
+// widthFlagPoints counts the rows of a banded table with at least one sample of separate
+// pulses and with at least one sample of an ill-conditioned FWHM.
+func widthFlagPoints(t *study.Table, prefix string) (separate, ill int) {
+	cs, ci := t.Column(prefix+study.BandSeparatePulsesColumn), t.Column(prefix+study.BandIllConditionedColumn)
+	for _, row := range t.Rows {
+		if cs >= 0 && row[cs] != "" && row[cs] != "0" {
+			separate++
+		}
+		if ci >= 0 && row[ci] != "" && row[ci] != "0" {
+			ill++
+		}
+	}
+	return separate, ill
+}
+
+// widthFlagText says at how many of n points some samples make separate pulses or an
+// ill-conditioned FWHM, naming the columns that count them; "" when none does.
+func widthFlagText(separate, ill, n int) string {
+	var parts []string
+	if separate > 0 {
+		parts = append(parts, fmt.Sprintf("samples with separate pulses at %d of %d points (column %s)", separate, n, study.BandSeparatePulsesColumn))
+	}
+	if ill > 0 {
+		parts = append(parts, fmt.Sprintf("samples with an ill-conditioned FWHM at %d of %d points (column %s)", ill, n, study.BandIllConditionedColumn))
+	}
+	if len(parts) == 0 {
+		return ""
+	}
+	return "FWHM band: " + strings.Join(parts, ", ") + "; the FWHM band there mixes such widths with clean ones"
+}
+
 // driverLine writes the drivers of a figure over a table's rows, the strongest first (at most
 // three), as "constant ρ, …".
 func driverLine(ds []study.RankedDriver) string {
@@ -78,6 +109,12 @@ func printSweepBands(w io.Writer, t *study.Table, b sweepBands) {
 	if flagged > 0 {
 		fmt.Fprintf(w, "  %d points flagged: column %s of %s says why\n", flagged, study.BandNoteColumn, study.ResultsFile)
 	}
+	sep, ill := widthFlagPoints(t, "")
+	if txt := widthFlagText(sep, ill, len(t.Rows)); txt != "" {
+		fmt.Fprintf(w, "  %s\n", txt)
+	} else {
+		fmt.Fprintln(w, "  no sample at any point makes separate pulses or an ill-conditioned FWHM")
+	}
 	fmt.Fprintln(w, "  driven most by (median rank correlation over the points):")
 	for _, m := range study.DriverMetrics {
 		fmt.Fprintf(w, "    %-26s %s\n", plots.LabelOf(m).Text, driverLine(t.Drivers("", m)))
@@ -92,6 +129,11 @@ type sweepBandJSON struct {
 	Held       []string `json:"held"` // constants held at the design's values in every sample
 	MayNotLase int      `json:"points_may_not_lase"`
 	Flagged    int      `json:"points_flagged"`
+	// SeparatePulses and IllConditionedFWHM count the points with at least one sample of
+	// separate pulses / of an ill-conditioned FWHM (columns band_separate_pulses,
+	// band_fwhm_ill_conditioned hold the sample counts per point).
+	SeparatePulses     int `json:"points_separate_pulses"`
+	IllConditionedFWHM int `json:"points_fwhm_ill_conditioned"`
 	// Optima holds, per metric of "optima", the band (SI) at the optimum's point: keys
 	// "<metric>_p05", "<metric>_p50", "<metric>_p95"; a missing key has no band there.
 	Optima  map[string]float64              `json:"optima_band"`
@@ -102,6 +144,7 @@ type sweepBandJSON struct {
 func sweepBandBlock(t *study.Table, b sweepBands, optima []plots.Best) *sweepBandJSON {
 	j := &sweepBandJSON{Samples: b.Samples, Seed: b.Seed, Held: append([]string{}, b.Held...), Optima: map[string]float64{}, Drivers: map[string][]study.RankedDriver{}}
 	j.MayNotLase, j.Flagged = bandFlags(t, "")
+	j.SeparatePulses, j.IllConditionedFWHM = widthFlagPoints(t, "")
 	for _, o := range optima {
 		if o.Row < 0 {
 			continue
@@ -135,6 +178,10 @@ func sweepBandSection(t *study.Table, b sweepBands) report.Section {
 	}
 	if flagged > 0 {
 		sec.Paragraphs = append(sec.Paragraphs, fmt.Sprintf("%d points flagged (column %s says why).", flagged, study.BandNoteColumn))
+	}
+	sep, ill := widthFlagPoints(t, "")
+	if txt := widthFlagText(sep, ill, len(t.Rows)); txt != "" {
+		sec.Paragraphs = append(sec.Paragraphs, txt+".")
 	}
 	tab := &report.Table{Head: []string{"figure of merit", "driven most by (median rank correlation over the points)"}}
 	for _, m := range study.DriverMetrics {

@@ -12,14 +12,22 @@ import (
 
 // Columns of a results table with uncertainty bands (sweep --uncertainty, length
 // --uncertainty): after each figure of merit's band columns (BandSuffixes) come the samples that
-// ran, the samples that lase, whether the band straddles the lasing threshold, the drivers of
-// DriverMetrics and a note that says why a row is flagged.
+// ran, the samples that lase, whether the band straddles the lasing threshold, the samples
+// with separate pulses and with an ill-conditioned FWHM, the drivers of DriverMetrics and a
+// note that says why a row is flagged.
 const (
 	BandSamplesColumn = "band_samples" // samples that ran (failed ones are left out)
 	BandLasingColumn  = "band_lasing"  // of those, the samples that reach the lasing threshold
 	MayNotLaseColumn  = "may_not_lase" // "true" when some samples lase and some do not
+	// BandSeparatePulsesColumn counts the samples whose output is two or more separate pulses
+	// (UncertaintyResult.SeparatePulses): their FWHM spans them all.
+	BandSeparatePulsesColumn = "band_separate_pulses"
+	// BandIllConditionedColumn counts the samples whose FWHM is ill-conditioned
+	// (UncertaintyResult.IllConditionedFWHM).
+	BandIllConditionedColumn = "band_fwhm_ill_conditioned"
 	// BandNoteColumn is empty for a clean band, else why the row is flagged: may not lase,
-	// failed or truncated samples, no band at all.
+	// failed or truncated samples, samples with separate pulses or an ill-conditioned FWHM,
+	// no band at all.
 	BandNoteColumn = "band_note"
 	// DriversSuffix ends the column that lists every sampled constant with its rank correlation
 	// to a figure of merit, strongest first: "key:ρ;key:ρ;…".
@@ -40,7 +48,8 @@ func bandColumns(prefix string, metrics []string) []string {
 			cols = append(cols, prefix+m+s)
 		}
 	}
-	cols = append(cols, prefix+BandSamplesColumn, prefix+BandLasingColumn, prefix+MayNotLaseColumn)
+	cols = append(cols, prefix+BandSamplesColumn, prefix+BandLasingColumn, prefix+MayNotLaseColumn,
+		prefix+BandSeparatePulsesColumn, prefix+BandIllConditionedColumn)
 	for _, m := range DriverMetrics {
 		cols = append(cols, prefix+m+DriversSuffix)
 	}
@@ -49,7 +58,7 @@ func bandColumns(prefix string, metrics []string) []string {
 
 // bandCells returns the cells of bandColumns for one point, with note its band_note.
 func bandCells(p sampledPoint, metrics []string, note string) []string {
-	cells := make([]string, 0, 3*len(metrics)+4+len(DriverMetrics))
+	cells := make([]string, 0, 3*len(metrics)+6+len(DriverMetrics))
 	u := p.band
 	for _, m := range metrics {
 		b, ok := MetricBand{}, false
@@ -63,9 +72,10 @@ func bandCells(p sampledPoint, metrics []string, note string) []string {
 		cells = append(cells, formatNumber(b.P05), formatNumber(b.P50), formatNumber(b.P95))
 	}
 	if u == nil {
-		cells = append(cells, "0", "0", "false")
+		cells = append(cells, "0", "0", "false", "0", "0")
 	} else {
-		cells = append(cells, strconv.Itoa(u.Samples-u.Failed), strconv.Itoa(u.Lasing), strconv.FormatBool(u.MayNotLase()))
+		cells = append(cells, strconv.Itoa(u.Samples-u.Failed), strconv.Itoa(u.Lasing), strconv.FormatBool(u.MayNotLase()),
+			strconv.Itoa(u.SeparatePulses), strconv.Itoa(u.IllConditionedFWHM))
 	}
 	for _, m := range DriverMetrics {
 		var parts []string
@@ -110,6 +120,12 @@ func bandNote(p sampledPoint) string {
 	}
 	if u.Truncated > 0 {
 		parts = append(parts, fmt.Sprintf("%d samples truncated: their pulse outlasted the longest run, their figures are cut short", u.Truncated))
+	}
+	if u.SeparatePulses > 0 {
+		parts = append(parts, fmt.Sprintf("%d of %d samples make separate pulses: their FWHM spans them, the FWHM band mixes widths of one pulse and of several", u.SeparatePulses, ran))
+	}
+	if u.IllConditionedFWHM > 0 {
+		parts = append(parts, fmt.Sprintf("%d of %d samples have an ill-conditioned FWHM: part of the FWHM band may be edges leaping between spikes", u.IllConditionedFWHM, ran))
 	}
 	return oneLine(strings.Join(parts, "; "))
 }
