@@ -10,6 +10,7 @@ import (
 	"gonum.org/v1/plot/vg"
 	"gonum.org/v1/plot/vg/draw"
 
+	"n2pulse/kinetics"
 	"n2pulse/units"
 )
 
@@ -30,6 +31,15 @@ type PulseData struct {
 	// Pulses is the number of separate pulses of the output-end power (kinetics.Summary.Pulses);
 	// from 2 on, the half-maximum mark says that it spans them all.
 	Pulses int
+	// FWHMIllConditioned is kinetics.Summary.FWHMIllConditioned: the half-maximum width
+	// depends strongly on its level. The half-maximum mark then says so, with FWHMAt45 and
+	// FWHMAt55, the widths [s] at 45 % and 55 % of the peak (Summary.FWHMAt45, FWHMAt55).
+	FWHMIllConditioned bool
+	FWHMAt45, FWHMAt55 float64
+	// DetectorResponse [s] is the detector response time the FWHM and its conditioning were
+	// read through (Summary.DetectorResponse); 0 for none. The curves and the mark are the
+	// power leaving the channel, so the ill-conditioned note then names the detector.
+	DetectorResponse float64
 	// RearReflectivity and FrontReflectivity name the ends in the legend ("rear end, mirror
 	// R = 0.9"); 0 for an open end.
 	RearReflectivity, FrontReflectivity float64
@@ -321,7 +331,7 @@ func (r *PulseData) powerPanel(t []float64) *plot.Plot {
 	p.Y.Label.Text = "output power [" + u + "]"
 	p.Y.Min = 0
 	if r.FWHMEnd > r.FWHMStart && maxAbs(r.PowerFront) > 0 {
-		markFWHM(p, 1e9*r.FWHMStart, 1e9*r.FWHMEnd, 0.5*f*maxAbs(r.PowerFront), r.Pulses)
+		markFWHM(p, 1e9*r.FWHMStart, 1e9*r.FWHMEnd, 0.5*f*maxAbs(r.PowerFront), r.fwhmLabel())
 	}
 	return p
 }
@@ -341,9 +351,8 @@ func (b band) Plot(c draw.Canvas, p *plot.Plot) {
 }
 
 // markFWHM draws dashed verticals at the half-maximum crossings a and b [ns], a bar between
-// them at the half-maximum level half, and the label "half maximum, output end: … ns", which
-// says when the span holds several separate pulses.
-func markFWHM(p *plot.Plot, a, b, half float64, pulses int) {
+// them at the half-maximum level half, and the label text (PulseData.fwhmLabel).
+func markFWHM(p *plot.Plot, a, b, half float64, text string) {
 	dash := []vg.Length{vg.Points(3), vg.Points(2)}
 	for _, x := range []float64{a, b} {
 		l, err := plotter.NewLine(plotter.XYs{{X: x, Y: 0}, {X: x, Y: 2 * half}})
@@ -358,14 +367,6 @@ func markFWHM(p *plot.Plot, a, b, half float64, pulses int) {
 		bar.Color, bar.Width = colMark, vg.Points(1.2)
 		p.Add(bar)
 	}
-	width := b - a
-	text := fmt.Sprintf("half maximum, output end: %.3g ns", width)
-	if width < 1 {
-		text = fmt.Sprintf("half maximum, output end: %.3g ps", 1e3*width)
-	}
-	if pulses >= 2 {
-		text += fmt.Sprintf(", spans %d separate pulses", pulses)
-	}
 	lab, err := plotter.NewLabels(plotter.XYLabels{XYs: plotter.XYs{{X: b, Y: half}}, Labels: []string{text}})
 	if err == nil {
 		for i := range lab.TextStyle {
@@ -375,6 +376,37 @@ func markFWHM(p *plot.Plot, a, b, half float64, pulses int) {
 		lab.Offset = vg.Point{X: vg.Points(3)}
 		p.Add(lab)
 	}
+}
+
+// fwhmLabel is the text of the half-maximum mark: "half maximum, output end: 1.36 ns" (in ps
+// below 1 ns), ", spans 2 separate pulses" from two pulses on, and when the width is
+// ill-conditioned a second line "ill-conditioned: 0.65–0.972 ns at 55–45 % of the peak" (with
+// "through the 1 ns detector" when the width was read through one).
+func (r *PulseData) fwhmLabel() string {
+	text := "half maximum, output end: " + nsOrPs(1e9*(r.FWHMEnd-r.FWHMStart))
+	if r.Pulses >= 2 {
+		text += fmt.Sprintf(", spans %d separate pulses", r.Pulses)
+	}
+	if r.FWHMIllConditioned {
+		lo, hi := 1e9*r.FWHMAt55, 1e9*r.FWHMAt45
+		rng := fmt.Sprintf("%.3g–%.3g ns", lo, hi)
+		if hi < 1 {
+			rng = fmt.Sprintf("%.3g–%.3g ps", 1e3*lo, 1e3*hi)
+		}
+		text += fmt.Sprintf("\nill-conditioned: %s at %.0f–%.0f %% of the peak", rng, 100*(0.5+kinetics.HalfMaxBand), 100*(0.5-kinetics.HalfMaxBand))
+		if r.DetectorResponse > 0 {
+			text += " through the " + nsOrPs(1e9*r.DetectorResponse) + " detector"
+		}
+	}
+	return text
+}
+
+// nsOrPs formats a duration w [ns] with three significant digits, in ps below 1 ns.
+func nsOrPs(w float64) string {
+	if w < 1 {
+		return fmt.Sprintf("%.3g ps", 1e3*w)
+	}
+	return fmt.Sprintf("%.3g ns", w)
 }
 
 // addCurve adds v·factor against t as a line, broken at NaN values (and at non-positive ones
