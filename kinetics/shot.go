@@ -500,11 +500,11 @@ func (sh *shot) summarise(res *Result) {
 		s.Delay = t(a)
 		s.PulseCentre, s.RMSWidth = pulseWidth(sh.powerFront, dt)
 		s.FWHM, s.DetectorResponse = s.HalfMaxWidth, sh.detector
-		seen := sh.powerFront
+		seen, sk, sp := sh.powerFront, pk, kp // the trace the FWHM reads and its peak
 		if sh.detector > 0 {
 			seen = detected(sh.powerFront, dt, sh.detector)
-			dk, dp := peak(seen)
-			a, b := crossings(seen, dp, 0.5*dk)
+			sk, sp = peak(seen)
+			a, b := crossings(seen, sp, 0.5*sk)
 			s.FWHM = (b - a) * dt
 		}
 		// The pulses as the FWHM sees them (through the detector when there is one), spikes
@@ -514,7 +514,6 @@ func (sh *shot) summarise(res *Result) {
 		s.Pulses, s.PulseSeparation, s.StrongestPulseFWHM, s.HalfMaxEnergyShare = tr.count, tr.separation, tr.strongestWidth, tr.energyShare
 		// How the FWHM depends on its level, on the same trace (not the round-trip mean: the
 		// spikes of that trace are what the FWHM's edges leap between).
-		sk, sp := peak(seen)
 		hm := halfMaxConditioning(seen, sp, sk)
 		s.FWHMAt45, s.FWHMAt55, s.FWHMJump = hm.low*dt, hm.high*dt, hm.jump*dt
 		s.FWHMIllConditioned = hm.illConditioned(s.FWHM / dt)

@@ -216,7 +216,7 @@ func (a Alternative) apply(d *design.Design) (*design.Design, error) {
 		if !ok {
 			return nil, fmt.Errorf("validation: alternative %s: unknown key %s", a.Name, key)
 		}
-		if err := c.Set(key, fmt.Sprintf("%.17g %s", v, siUnit(u))); err != nil {
+		if err := c.Set(key, fmt.Sprintf("%.17g %s", v, u)); err != nil {
 			return nil, fmt.Errorf("validation: alternative %s: %w", a.Name, err)
 		}
 	}
@@ -224,15 +224,6 @@ func (a Alternative) apply(d *design.Design) (*design.Design, error) {
 		return nil, fmt.Errorf("validation: alternative %s: %w", a.Name, err)
 	}
 	return c, nil
-}
-
-// siUnit spells a design key's SI unit as the unit parser reads it.
-func siUnit(u string) string {
-	switch u {
-	case "Ω":
-		return "ohm"
-	}
-	return u
 }
 
 // ApparatusEnvelope runs every experiment case with a measured energy, FWHM, lasing or

@@ -95,12 +95,8 @@ func writeScoreboard(w *bytes.Buffer, rows []ScoreRow, fig string) {
 			fmt.Fprintf(w, "| %s | error: %s | | | | | | | |\n", r.Case, mdCell(r.Err.Error()))
 			continue
 		}
-		glow := "yes"
-		if !r.UniformGlow {
-			glow = "no"
-		}
 		fmt.Fprintf(w, "| %s | %.3g | %.3g | %.3g | %s | %s / %s | %s | %s / %s | %s |\n", r.Case,
-			r.EnergyPerMolecule, r.SpecificEnergy*1e-6, r.CurrentDensity*1e-7, glow,
+			r.EnergyPerMolecule, r.SpecificEnergy*1e-6, r.CurrentDensity*1e-7, yesNo(r.UniformGlow),
 			scoreValue(r.Energy*1e6, "µJ"), scoreValue(r.Measured*1e6, "µJ"), scoreValue(r.EnergyRatio(), ""),
 			scoreValue(r.FWHM*1e9, "ns"), scoreValue(r.MeasuredW*1e9, "ns"), scoreValue(r.FWHMRatio(), ""))
 	}
