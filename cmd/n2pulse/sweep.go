@@ -242,28 +242,24 @@ func tableCounts(t *study.Table) string {
 
 // illWidthRows are the rows of t whose FWHM is ill-conditioned (column fwhm_ill_conditioned).
 func illWidthRows(t *study.Table) []int {
-	c := t.Column("fwhm_ill_conditioned")
-	if c < 0 {
-		return nil
-	}
-	var rows []int
-	for r := range t.Rows {
-		if t.Rows[r][c] == "true" {
-			rows = append(rows, r)
-		}
-	}
-	return rows
+	return rowsWhere(t, "fwhm_ill_conditioned", func(v string) bool { return v == "true" })
 }
 
 // multiPulseRows are the rows of t whose output is two or more separate pulses.
 func multiPulseRows(t *study.Table) []int {
-	c := t.Column("pulses")
+	return rowsWhere(t, "pulses", func(v string) bool { n, err := strconv.Atoi(v); return err == nil && n >= 2 })
+}
+
+// rowsWhere returns the rows of t whose cell in the named column satisfies keep; nil when t
+// has no such column (a table written before it existed).
+func rowsWhere(t *study.Table, column string, keep func(string) bool) []int {
+	c := t.Column(column)
 	if c < 0 {
 		return nil
 	}
 	var rows []int
 	for r := range t.Rows {
-		if n, err := strconv.Atoi(t.Rows[r][c]); err == nil && n >= 2 {
+		if keep(t.Rows[r][c]) {
 			rows = append(rows, r)
 		}
 	}
