@@ -22,7 +22,11 @@ type BandRow struct {
 	Band     study.Band // over the samples [J]
 	Samples  int        // samples with a defined energy
 	Held     []string   // constants the case pins, not sampled (study.HeldConstants)
-	Err      error      // the case could not be run or banded
+	// SeparatePulses and IllConditionedFWHM count the samples whose output is separate pulses
+	// or whose FWHM is ill-conditioned (study.UncertaintyResult): the energy band holds, their
+	// width is ambiguous.
+	SeparatePulses, IllConditionedFWHM int
+	Err                                error // the case could not be run or banded
 }
 
 // Position says where the measured energy lies against the band: "inside" (5 % ≤ measured ≤
@@ -87,6 +91,7 @@ func ExperimentBands(n int, seed uint64, workers int) ([]BandRow, error) {
 			continue
 		}
 		row.Held = u.Held
+		row.SeparatePulses, row.IllConditionedFWHM = u.SeparatePulses, u.IllConditionedFWHM
 		if b, ok := u.Metric(metric); ok {
 			row.Band, row.Samples = b.Band, b.Samples
 		} else {

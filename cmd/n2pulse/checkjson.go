@@ -54,7 +54,7 @@ func checkJSON(checks []validation.Check, failed, discrepant int, bands []valida
 			rows = append(rows, map[string]any{"case": r.Case, "end": r.End, "measured_J": nullable(r.Measured),
 				"nominal_J": nullable(r.Nominal), "p05_J": nullable(r.Band.P05), "p50_J": nullable(r.Band.P50),
 				"p95_J": nullable(r.Band.P95), "samples": r.Samples, "held": r.Held, "measured_lies": r.Position(),
-				"error": errText(r.Err)})
+				"separate_pulses": r.SeparatePulses, "fwhm_ill_conditioned": r.IllConditionedFWHM, "error": errText(r.Err)})
 		}
 		out["uncertainty_bands"] = map[string]any{"samples": n, "seed": seed, "cases": rows,
 			"note": "model uncertainty over the constants of package kinetics/design (Spreads), not the circuit and switch values of the common block"}
